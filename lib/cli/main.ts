@@ -1,0 +1,40 @@
+/**
+ * `hundredfold`: the command-line face of the engine. Each subcommand lives in ./commands/.
+ * Usage errors exit 2 with one line on stderr and nothing on stdout; no stack trace ever
+ * reaches the user.
+ */
+import { complain, EXIT_OK, type Command, type CommandIo } from './io';
+import { compute } from './commands/compute';
+import { link } from './commands/link';
+import { glycaemia } from './commands/glycaemia';
+import { table } from './commands/table';
+
+export const USAGE = `Usage: hundredfold <command> [options]
+
+Commands:
+  compute [--input FILE] [--ndjson]   one scenario as JSON (stdin or FILE) -> one result as JSON
+  link [--input FILE]                 print the path and query that open the scenario in the app
+  glycaemia [--input FILE] [--fhir]   classify serial HbA1c / fasting glucose results
+  table check FILE                    validate a population-table CSV file
+
+Exit codes: 0 done, 1 some --ndjson lines failed, 2 bad input or usage.`;
+
+const COMMANDS: Readonly<Record<string, Command>> = { compute, link, glycaemia, table };
+
+export async function main(io: CommandIo): Promise<number> {
+  const [name, ...rest] = io.args;
+  if (name === '--help' || name === '-h' || name === 'help') {
+    io.stdout.write(`${USAGE}\n`);
+    return EXIT_OK;
+  }
+  if (name === undefined) return complain(io, 'no command given; run "hundredfold --help" for the commands');
+  const command = COMMANDS[name];
+  if (!command) return complain(io, `unknown command "${name}"; commands are: ${Object.keys(COMMANDS).join(', ')}`);
+  try {
+    return await command({ ...io, args: rest });
+  } catch (error) {
+    // A bug, not bad input: still one line, never a stack trace.
+    const message = error instanceof Error ? error.message : String(error);
+    return complain(io, `internal error: ${message}`);
+  }
+}

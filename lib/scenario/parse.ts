@@ -1,0 +1,57 @@
+/**
+ * Validates anything that claims to be a {@link Scenario}: a parsed JSON body from the command
+ * line, a decoded link, an import, the form's values.
+ */
+import { fail, ok, type Issue, type Result } from '../result';
+import { BASELINE_FORM_KEYS, scenarioSchema, type Scenario } from './schema';
+import { pickUnionBranch, toIssues } from './issues';
+
+const BASELINE_FORMS_MESSAGE =
+  'The baseline must be one of: {"risk", "years"}, {"rate", "perPersonYears"} or {"populationRisk", "exposurePrevalence", "years"}';
+
+/**
+ * Validate a scenario.
+ *
+ * @example
+ * parseScenario({ baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9 } })
+ * //=> { ok: true, value: { baseline: …, effect: … } }
+ * parseScenario({ baseline: { risk: 8, years: 10 }, effect: … })
+ * //=> { ok: false, issues: [{ code: 'out-of-range', path: ['baseline', 'risk'], message: 'The baseline risk must be less than 1 …' }] }
+ */
+export function parseScenario(input: unknown): Result<Scenario> {
+  const parsed = scenarioSchema.safeParse(input, { reportInput: true });
+  if (parsed.success) return ok(parsed.data);
+  const baseline = typeof input === 'object' && input !== null ? (input as { baseline?: unknown }).baseline : undefined;
+  const issues: Issue[] = [];
+  for (const issue of parsed.error.issues) {
+    if (issue.code === 'invalid_union' && issue.path.length === 1 && issue.path[0] === 'baseline') {
+      const branch = pickUnionBranch(issue, BASELINE_FORM_KEYS, baseline);
+      if (branch) {
+        issues.push(...toIssues(branch));
+      } else {
+        issues.push({
+          code: baseline === undefined ? 'required' : 'baseline-form',
+          path: ['baseline'],
+          message: baseline === undefined ? `The baseline is required. ${BASELINE_FORMS_MESSAGE}` : BASELINE_FORMS_MESSAGE,
+        });
+      }
+      continue;
+    }
+    issues.push(...toIssues([issue]));
+  }
+  return fail(issues);
+}
+
+/** Parse JSON text, then validate it as a scenario. Malformed JSON is an issue, never a throw. */
+export function parseScenarioJson(textInput: string): Result<Scenario> {
+  let value: unknown;
+  try {
+    value = JSON.parse(textInput);
+  } catch (error) {
+    const detail = error instanceof SyntaxError ? error.message : 'unreadable';
+    return fail([{ code: 'invalid-json', path: [], message: `The input is not valid JSON (${detail})` }]);
+  }
+  return parseScenario(value);
+}
+
+export type { Scenario };

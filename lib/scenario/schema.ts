@@ -1,0 +1,197 @@
+/**
+ * The scenario: everything needed to compute one result, and everything the consultation
+ * screen, the handout, the link codec and the `hundredfold` command share.
+ *
+ * This file is the single source of the input types (`z.infer`). The same schema validates
+ * the form, the URL, the command line and every import; {@link parseScenario} turns its
+ * failures into {@link Issue}s.
+ *
+ * Ranges are stated once here, with the reason for each bound. Risks are fractions.
+ */
+import { z } from 'zod';
+
+/** Allowed interval levels. The engine carries the level through; it does not re-estimate. */
+export const INTERVAL_LEVELS = [0.9, 0.95, 0.99] as const;
+export type IntervalLevel = (typeof INTERVAL_LEVELS)[number];
+
+/** Study designs, each with its own treatment of an odds ratio (see lib/engine/exposedRisk.ts). */
+export const STUDY_DESIGNS = [
+  'cohort',
+  'trial',
+  'cross-sectional',
+  'case-control',
+  'risk-set-case-control',
+  'case-cohort',
+] as const;
+export type StudyDesign = (typeof STUDY_DESIGNS)[number];
+
+export const EFFECT_MEASURES = ['OR', 'RR', 'HR'] as const;
+export type EffectMeasure = (typeof EFFECT_MEASURES)[number];
+
+export const DENOMINATORS = [100, 1000] as const;
+export type Denominator = (typeof DENOMINATORS)[number];
+
+/** Longest horizon or follow-up accepted, in years: a human life span (common practice). */
+export const MAX_YEARS = 100;
+/** Largest ratio accepted: beyond this, a typing slip is far likelier than a real effect. */
+export const MAX_RATIO = 1000;
+/** Longest free-text field (wording, citation), in characters. */
+export const MAX_TEXT = 500;
+
+function numberField(what: string) {
+  return z.number({
+    error: (iss) => (iss.input === undefined ? `${what} is required` : `${what} must be a number`),
+  });
+}
+
+/** A probability strictly between 0 and 1. */
+export function fraction(what: string) {
+  return numberField(what)
+    .gt(0, { error: `${what} must be greater than 0 (risks are fractions: for 8% enter 0.08)` })
+    .lt(1, { error: `${what} must be less than 1 (risks are fractions: for 8% enter 0.08)` });
+}
+
+export function years(what: string) {
+  return numberField(what)
+    .gt(0, { error: `${what} must be greater than 0 years` })
+    .lte(MAX_YEARS, { error: `${what} must be at most ${MAX_YEARS} years` });
+}
+
+function ratio(what: string) {
+  return numberField(what)
+    .gt(0, { error: `${what} must be greater than 0 (ratios are positive)` })
+    .lte(MAX_RATIO, { error: `${what} must be at most ${MAX_RATIO}` });
+}
+
+function text(what: string) {
+  return z
+    .string({ error: `${what} must be text` })
+    .max(MAX_TEXT, { error: `${what} must be at most ${MAX_TEXT} characters` });
+}
+
+/** A risk over a stated number of years in the reference (unexposed) group. */
+export const riskBaselineSchema = z.strictObject({
+  risk: fraction('The baseline risk'),
+  years: years('The baseline period'),
+});
+
+/** An event rate: `rate` events per `perPersonYears` person-years (e.g. 12 per 1000). */
+export const rateBaselineSchema = z.strictObject({
+  rate: numberField('The event rate')
+    .gt(0, { error: 'The event rate must be greater than 0' })
+    .lte(1e6, { error: 'The event rate must be at most 1,000,000' }),
+  perPersonYears: numberField('The person-years')
+    .gt(0, { error: 'The person-years must be greater than 0 (e.g. 1000 for a rate per 1000 person-years)' })
+    .lte(1e9, { error: 'The person-years must be at most 1,000,000,000' }),
+});
+
+/**
+ * A population-average risk, which mixes exposed and unexposed people, plus the exposure's
+ * prevalence in that population; the engine solves for the reference-group risk.
+ */
+export const populationBaselineSchema = z.strictObject({
+  populationRisk: fraction('The population risk'),
+  exposurePrevalence: numberField('The exposure prevalence')
+    .gte(0, { error: 'The exposure prevalence must be at least 0' })
+    .lt(1, { error: 'The exposure prevalence must be less than 1 (a fraction: for 30% enter 0.3)' }),
+  years: years('The baseline period'),
+});
+
+export const baselineSchema = z.union([riskBaselineSchema, rateBaselineSchema, populationBaselineSchema]);
+
+/** The keys that pick each baseline form, in the order of {@link baselineSchema}'s options. */
+export const BASELINE_FORM_KEYS = ['risk', 'rate', 'populationRisk'] as const;
+
+export const effectSchema = z
+  .strictObject({
+    measure: z.enum(EFFECT_MEASURES, { error: 'The measure must be one of OR, RR or HR' }),
+    estimate: ratio('The estimate'),
+    lower: ratio('The lower limit'),
+    upper: ratio('The upper limit'),
+    level: z
+      .union(INTERVAL_LEVELS.map((l) => z.literal(l)), {
+        error: 'The interval level must be 0.9, 0.95 or 0.99',
+      })
+      .optional(),
+    design: z
+      .enum(STUDY_DESIGNS, {
+        error: `The study design must be one of ${STUDY_DESIGNS.join(', ')}`,
+      })
+      .optional(),
+    followUpYears: years('The follow-up').optional(),
+    adjusted: z.boolean({ error: 'Adjusted must be true or false' }).optional(),
+  })
+  .superRefine((effect, ctx) => {
+    if (effect.lower >= effect.upper) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['lower'],
+        params: { code: 'interval-order' },
+        message: `The lower limit (${effect.lower}) must be less than the upper limit (${effect.upper}); check the order of the limits`,
+      });
+    } else if (effect.estimate < effect.lower || effect.estimate > effect.upper) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['estimate'],
+        params: { code: 'estimate-outside-interval' },
+        message: `The estimate (${effect.estimate}) must lie within its interval (${effect.lower} to ${effect.upper}); this is almost always a typing slip`,
+      });
+    }
+  });
+
+/** Words that describe the evidence; shown on the screen and the handout, never computed with. */
+export const wordingSchema = z.strictObject({
+  outcome: text('The outcome').optional(),
+  exposure: text('The exposure').optional(),
+  comparison: text('The comparison').optional(),
+  population: text('The population').optional(),
+  citation: text('The citation').optional(),
+});
+
+/** Who the baseline was looked up for. Never an identifier: only what a table's strata need. */
+export const personSchema = z.strictObject({
+  age: numberField('The age')
+    .int({ error: 'The age must be a whole number of years' })
+    .gte(0, { error: 'The age must be at least 0' })
+    .lte(120, { error: 'The age must be at most 120' })
+    .optional(),
+  sex: z.enum(['female', 'male'], { error: 'The sex must be female or male' }).optional(),
+});
+
+export const scenarioSchema = z
+  .strictObject({
+    baseline: baselineSchema,
+    effect: effectSchema,
+    horizonYears: years('The horizon').optional(),
+    /** Icon-array denominator chosen by the clinician; absent means the engine's automatic rule. */
+    denominator: z
+      .union(DENOMINATORS.map((d) => z.literal(d)), { error: 'The denominator must be 100 or 1000' })
+      .optional(),
+    wording: wordingSchema.optional(),
+    person: personSchema.optional(),
+    /** Id of the population table the baseline was looked up in, when it was. */
+    tableId: z
+      .string({ error: 'The table id must be text' })
+      .min(1, { error: 'The table id must not be empty' })
+      .max(100, { error: 'The table id must be at most 100 characters' })
+      .optional(),
+  })
+  .superRefine((scenario, ctx) => {
+    if ('rate' in scenario.baseline && scenario.horizonYears === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['horizonYears'],
+        params: { code: 'horizon-required' },
+        message: 'The horizon is required when the baseline is a rate: say over how many years to give the risk',
+      });
+    }
+  });
+
+export type RiskBaseline = z.infer<typeof riskBaselineSchema>;
+export type RateBaseline = z.infer<typeof rateBaselineSchema>;
+export type PopulationBaseline = z.infer<typeof populationBaselineSchema>;
+export type Baseline = z.infer<typeof baselineSchema>;
+export type Effect = z.infer<typeof effectSchema>;
+export type Wording = z.infer<typeof wordingSchema>;
+export type Person = z.infer<typeof personSchema>;
+export type Scenario = z.infer<typeof scenarioSchema>;
