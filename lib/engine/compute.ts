@@ -1,10 +1,91 @@
 /**
  * The engine's front door: one valid {@link Scenario} in, one {@link ComputeResult} out.
- * (Being written: the signature is fixed.)
+ *
+ * Steps (each in its own module, with its source):
+ * 1. Horizon H: the scenario's, else the baseline's own period.
+ * 2. Reference-group risk P0 over H: rescaled from a risk (./baseline.ts), from a rate, or solved
+ *    from a population-average risk with the exposure's prevalence (at the ratio's estimate).
+ * 3. Conversion by measure and design (./conversion.ts) and the exposed risk P1 at the estimate
+ *    and at each interval limit (./exposedRisk.ts). P0 is held fixed, so the limits ignore
+ *    uncertainty in the baseline (Cochrane Handbook §12.5.4.5).
+ * 4. Risk ratio at this baseline P1/P0, risk difference P1 − P0, number needed (./numberNeeded.ts),
+ *    icon-array counts (./iconArray.ts), warnings (./warnings.ts).
  */
+import { fail, ok, type Result } from '../result';
 import type { Scenario } from '../scenario/schema';
-import type { ComputeResult } from './types';
+import { referenceRiskFromPopulation, rescaleRisk, riskFromRate } from './baseline';
+import { conversionFor } from './conversion';
+import { exposedRiskCapped } from './exposedRisk';
+import { iconArrayCounts } from './iconArray';
+import { numberNeeded } from './numberNeeded';
+import type { ComputeResult, Conversion } from './types';
+import { scenarioWarnings } from './warnings';
 
-export function computeScenario(_scenario: Scenario): ComputeResult {
-  throw new Error('computeScenario is being written');
+/** The horizon the result is given over: the scenario's own, else the baseline's period. */
+export function resolveHorizonYears(scenario: Scenario): number {
+  if (scenario.horizonYears !== undefined) return scenario.horizonYears;
+  const { baseline } = scenario;
+  // The schema requires a horizon with a rate, so a rate never reaches here without one.
+  return 'years' in baseline ? baseline.years : Number.NaN;
+}
+
+/** P0 over the horizon, from whichever baseline form the scenario has. */
+export function referenceRiskOverHorizon(scenario: Scenario, conversion: Conversion, horizonYears: number): number {
+  const { baseline } = scenario;
+  if ('rate' in baseline) return riskFromRate(baseline.rate / baseline.perPersonYears, horizonYears);
+  if ('populationRisk' in baseline) {
+    const atBaselineYears = referenceRiskFromPopulation(
+      conversion,
+      baseline.populationRisk,
+      scenario.effect.estimate,
+      baseline.exposurePrevalence,
+    );
+    return rescaleRisk(atBaselineYears, baseline.years, horizonYears);
+  }
+  return rescaleRisk(baseline.risk, baseline.years, horizonYears);
+}
+
+/**
+ * @example
+ * computeScenario({ baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9 } })
+ * //=> { ok: true, value: { horizonYears: 10, referenceRisk: 0.08, exposedRisk: { estimate: 0.12, lower: 0.096, upper: 0.152 }, … } }
+ */
+export function computeScenario(scenario: Scenario): Result<ComputeResult> {
+  const { effect } = scenario;
+  const design = effect.design ?? 'cohort';
+  const level = effect.level ?? 0.95;
+  const conversion = conversionFor(effect.measure, design);
+  const horizonYears = resolveHorizonYears(scenario);
+  const p0 = referenceRiskOverHorizon(scenario, conversion, horizonYears);
+
+  if (!(p0 > 0 && p0 < 1)) {
+    return fail([
+      {
+        code: 'baseline-degenerate',
+        path: ['baseline'],
+        message: `Over ${horizonYears} years the baseline works out to a risk of ${p0 >= 1 ? '100%' : '0%'}, which leaves nothing to compare; check the baseline and the horizon`,
+      },
+    ]);
+  }
+
+  const p1 = exposedRiskCapped(conversion, p0, effect.estimate);
+  const p1Lower = exposedRiskCapped(conversion, p0, effect.lower);
+  const p1Upper = exposedRiskCapped(conversion, p0, effect.upper);
+  const exposedRisk = { estimate: p1, lower: p1Lower, upper: p1Upper };
+  const riskDifference = { estimate: p1 - p0, lower: p1Lower - p0, upper: p1Upper - p0 };
+
+  return ok({
+    horizonYears,
+    referenceRisk: p0,
+    exposedRisk,
+    riskRatio: { estimate: p1 / p0, lower: p1Lower / p0, upper: p1Upper / p0 },
+    riskDifference,
+    numberNeeded: numberNeeded(riskDifference, level),
+    iconArray: iconArrayCounts(p0, exposedRisk, scenario.denominator),
+    warnings: scenarioWarnings({ effect, conversion, referenceRisk: p0, horizonYears }),
+    measure: effect.measure,
+    design,
+    level,
+    conversion,
+  });
 }
