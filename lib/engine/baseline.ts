@@ -56,6 +56,8 @@ export function referenceRiskFromPopulation(
   if (exposurePrevalence === 0 || ratio === 1) return populationAverageRisk;
   if (conversion === 'risk-ratio') {
     const closed = populationAverageRisk / (1 - exposurePrevalence + exposurePrevalence * ratio);
+    // Above 1 there is no reference risk that fits: the caller refuses the baseline.
+    if (closed >= 1) return 1;
     if (ratio * closed < 1) return closed;
   }
   // f(P0) = Ppop(P0) − target is increasing, f(0) = −target < 0, f(1) = 1 − target > 0.

@@ -58,6 +58,15 @@ export function computeScenario(scenario: Scenario): Result<ComputeResult> {
   const horizonYears = resolveHorizonYears(scenario);
   const p0 = referenceRiskOverHorizon(scenario, conversion, horizonYears);
 
+  if (!(p0 > 0 && p0 < 1) && 'populationRisk' in scenario.baseline) {
+    return fail([
+      {
+        code: 'population-risk-inconsistent',
+        path: ['baseline', 'populationRisk'],
+        message: `No reference-group risk fits a population risk of ${scenario.baseline.populationRisk} with ${scenario.baseline.exposurePrevalence} exposed and a ratio of ${effect.estimate}; check the population risk and the prevalence`,
+      },
+    ]);
+  }
   if (!(p0 > 0 && p0 < 1)) {
     return fail([
       {

@@ -13,11 +13,12 @@ import type { Direction, NumberNeeded, NumberNeededLimit } from './types';
 import type { Estimate } from './types';
 
 /**
- * Rounds up, forgiving the last bits of floating-point noise: 1/(0.12 − 0.08) computes as
- * 25.000000000000004 and must display as 25, not 26.
+ * Rounds up, forgiving floating-point noise: 1/(0.12 − 0.08) computes as 25.000000000000004
+ * and must display as 25, not 26. Anything within a billionth of a person below a whole number
+ * counts as that number.
  */
 export function roundUpPeople(value: number): number {
-  return Math.ceil(value * (1 - 1e-12));
+  return Math.ceil(value - 1e-9);
 }
 
 function directionOf(difference: number): Direction {

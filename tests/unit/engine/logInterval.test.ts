@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { decimalPlaces, logSymmetry, standardErrorFromInterval } from '@/lib/engine/logInterval';
+
+describe('standardErrorFromInterval: SE = (ln U − ln L) / (2·z) (Cochrane Handbook §7.7.7.3)', () => {
+  it('gives 0.117230 for a 95% interval of 1.2 to 1.9', () => {
+    // Hand-computed: (0.6418539 − 0.1823216) / 3.9199280 = 0.1172298.
+    expect(standardErrorFromInterval(1.2, 1.9, 0.95)).toBeCloseTo(0.11722978917040633, 12);
+  });
+
+  it('is wider in z for a 99% interval: (ln 2 − ln 0.5) / (2·2.5758293) = 0.269097', () => {
+    // Hand-computed: 1.3862944 / 5.1516586 = 0.2690967.
+    expect(standardErrorFromInterval(0.5, 2, 0.99)).toBeCloseTo(Math.log(4) / (2 * 2.5758293035489004), 12);
+    expect(standardErrorFromInterval(0.5, 2, 0.99)).toBeCloseTo(0.2690967, 6);
+  });
+});
+
+describe('decimalPlaces', () => {
+  it.each([
+    [1.25, 2],
+    [3, 0],
+    [0.1, 1],
+    [1e-7, 7],
+    [12.5, 1],
+  ])('%s has %s decimal places', (value, places) => {
+    expect(decimalPlaces(value)).toBe(places);
+  });
+});
+
+describe('logSymmetry', () => {
+  it('accepts a rounded published interval', () => {
+    // Hand-computed: √(1.2·1.9) = 1.510; 1.5 is within rounding of the geometric mean.
+    expect(logSymmetry(1.5, 1.2, 1.9).symmetric).toBe(true);
+    // Hand-computed: 1.10 (1.00–1.20): offset = 0.0953 − 0.0912 = 0.0041, rounding allows ~0.05.
+    expect(logSymmetry(1.1, 1.0, 1.2).symmetric).toBe(true);
+  });
+
+  it('flags a slipped digit', () => {
+    // 1.91 typed as 9.1: √(1.2·9.1) = 3.30, far from 1.5.
+    expect(logSymmetry(1.5, 1.2, 9.1).symmetric).toBe(false);
+    // 1.25 (1.2–1.9): offset = 0.2231 − 0.4121 = −0.189; rounding of two-decimal figures allows ~0.016.
+    expect(logSymmetry(1.25, 1.2, 1.9).symmetric).toBe(false);
+  });
+
+  it('is exact for a Wald interval built from the estimate', () => {
+    // Definition: L = X·e^(−z·SE), U = X·e^(z·SE) have geometric mean X.
+    const x = 1.37;
+    const se = 0.2;
+    const result = logSymmetry(x, x * Math.exp(-1.96 * se), x * Math.exp(1.96 * se));
+    expect(Math.abs(result.offset)).toBeLessThan(1e-15);
+  });
+});
