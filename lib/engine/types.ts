@@ -35,7 +35,7 @@ export interface NumberNeeded {
   readonly direction: Direction;
   /** 1/|RD|, unrounded; null when RD = 0 (infinitely many). */
   readonly estimate: number | null;
-  /** The estimate rounded up (Cochrane Handbook §15.4.4); null when infinite. */
+  /** The estimate rounded up (Cochrane Handbook §12.5.4.1); null when infinite. */
   readonly display: number | null;
   /** True when the risk-difference interval includes 0, so the interval passes through infinity. */
   readonly crossesNull: boolean;

@@ -1,1 +1,0 @@
-import { it, expect } from "vitest"; import { parseScenario } from "@/lib/scenario/parse"; it("accepts a minimal scenario", () => { expect(parseScenario({ baseline: { risk: 0.08, years: 10 }, effect: { measure: "RR", estimate: 1.5, lower: 1.2, upper: 1.9 } }).ok).toBe(true); });
