@@ -1,0 +1,116 @@
+/**
+ * Every valid scenario, as fast-check sees it: each field over the schema's whole range
+ * (lib/scenario/schema.ts), every optional field sometimes absent, −0 where a bound of 0 lets
+ * it through, and text that is hard for a URL (&, =, #, +, %, Unicode, lone surrogates).
+ * Narrower than the schema only where the schema itself is (the text length limits).
+ */
+import fc from 'fast-check';
+import {
+  DENOMINATORS,
+  EFFECT_MEASURES,
+  INTERVAL_LEVELS,
+  MAX_RATIO,
+  MAX_TEXT,
+  MAX_YEARS,
+  STUDY_DESIGNS,
+  type Baseline,
+  type Effect,
+  type Scenario,
+} from '@/lib/scenario/schema';
+
+/** Objects as JSON.parse and zod make them (fast-check would otherwise try null prototypes too). */
+const plain = { noNullPrototype: true } as const;
+
+/** Open interval (min, max) of doubles, plus round decimals as people type them. */
+function openDouble(min: number, max: number, inclusiveMax = false): fc.Arbitrary<number> {
+  return fc.oneof(
+    fc.double({ min, max, minExcluded: true, maxExcluded: !inclusiveMax, noNaN: true }),
+    fc.integer({ min: 1, max: 999 }).map((n) => min + ((max - min) * n) / 1000),
+  );
+}
+
+const fractionArb = openDouble(0, 1);
+const yearsArb = openDouble(0, MAX_YEARS, true);
+const ratioArb = openDouble(0, MAX_RATIO, true);
+
+const baselineArb: fc.Arbitrary<Baseline> = fc.oneof(
+  fc.record({ risk: fractionArb, years: yearsArb }, plain),
+  fc.record({ rate: openDouble(0, 1e6, true), perPersonYears: openDouble(0, 1e9, true) }, plain),
+  fc.record(
+    {
+      populationRisk: fractionArb,
+      exposurePrevalence: fc.oneof(fc.constant(0), fc.constant(-0), fc.double({ min: 0, max: 1, maxExcluded: true, noNaN: true })),
+      years: yearsArb,
+    },
+    plain,
+  ),
+);
+
+const effectArb: fc.Arbitrary<Effect> = fc
+  .tuple(
+    fc.tuple(ratioArb, ratioArb, ratioArb).map((xs) => [...xs].sort((a, b) => a - b) as [number, number, number]),
+    fc.record(
+      {
+        measure: fc.constantFrom(...EFFECT_MEASURES),
+        level: fc.constantFrom(...INTERVAL_LEVELS),
+        design: fc.constantFrom(...STUDY_DESIGNS),
+        followUpYears: yearsArb,
+        adjusted: fc.boolean(),
+      },
+      { requiredKeys: ['measure'], ...plain },
+    ),
+  )
+  .filter(([[lower, , upper]]) => lower < upper)
+  .map(([[lower, estimate, upper], rest]) => ({ ...rest, estimate, lower, upper }));
+
+/** Characters that a URL query treats specially, and text a clinician might type. */
+const awkwardUnit = fc.constantFrom(
+  '&', '=', '#', '+', '%', '?', '/', ';', ' ', '\n', '\t', '"', "'", '\\', '.json', 'wo=', '%20', '%zz',
+  'é', 'ß', '€', 'µ', 'Δ', '≥', '≤', '–', '…', '中', '😀', '👩‍⚕️', '\u0301', '\u0000', '\uFEFF', '\uD800', '\uDFFF',
+);
+/** Any UTF-16 code unit, lone surrogates included (a valid JS string need not be valid Unicode). */
+const codeUnit = fc.integer({ min: 0, max: 0xffff }).map((c) => String.fromCharCode(c));
+
+function textArb(minLength: number, maxLength: number): fc.Arbitrary<string> {
+  return fc
+    .oneof(
+      fc.string({ unit: awkwardUnit, minLength, maxLength: 40 }),
+      fc.string({ unit: 'grapheme', minLength, maxLength: Math.min(maxLength, 100) }),
+      fc.string({ unit: codeUnit, minLength, maxLength: Math.min(maxLength, 60) }),
+      fc.string({ unit: 'binary', minLength, maxLength: Math.floor(maxLength / 2) }),
+    )
+    .filter((s) => s.length >= minLength && s.length <= maxLength);
+}
+
+const wordingArb = fc.record(
+  {
+    outcome: textArb(0, MAX_TEXT),
+    exposure: textArb(0, MAX_TEXT),
+    comparison: textArb(0, MAX_TEXT),
+    population: textArb(0, MAX_TEXT),
+    citation: textArb(0, MAX_TEXT),
+  },
+  { requiredKeys: [], ...plain },
+);
+
+const personArb = fc.record(
+  { age: fc.oneof(fc.integer({ min: 0, max: 120 }), fc.constant(-0)), sex: fc.constantFrom('female' as const, 'male' as const) },
+  { requiredKeys: [], ...plain },
+);
+
+export const anyValidScenarioArb: fc.Arbitrary<Scenario> = fc
+  .record(
+    {
+      baseline: baselineArb,
+      effect: effectArb,
+      horizonYears: yearsArb,
+      denominator: fc.constantFrom(...DENOMINATORS),
+      // An empty object is valid too, and must stay an empty object.
+      wording: fc.oneof(fc.constant({}), wordingArb),
+      person: fc.oneof(fc.constant({}), personArb),
+      tableId: textArb(1, 100),
+    },
+    { requiredKeys: ['baseline', 'effect'], ...plain },
+  )
+  // The schema requires a horizon with a rate baseline.
+  .filter((s) => !('rate' in s.baseline) || s.horizonYears !== undefined);
