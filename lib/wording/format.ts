@@ -1,0 +1,99 @@
+/**
+ * Number and plural formatting for patient-facing text, in one place so that every count on a
+ * page is written the same way.
+ *
+ * Locale: English ("en"), digits grouped by thousands ("1,000"). Counts of people are whole
+ * numbers; years may carry one decimal ("2.5 years").
+ */
+
+/** The one locale patient text is written in. */
+export const TEXT_LOCALE = 'en';
+
+const countFormat = new Intl.NumberFormat(TEXT_LOCALE, { maximumFractionDigits: 0 });
+const yearsFormat = new Intl.NumberFormat(TEXT_LOCALE, { maximumFractionDigits: 1 });
+
+/**
+ * A whole count of people, grouped by thousands.
+ * @example
+ * formatCount(1000) //=> "1,000"
+ */
+export function formatCount(count: number): string {
+  return countFormat.format(count);
+}
+
+/**
+ * A number of years, at most one decimal.
+ * @example
+ * formatYears(2.5) //=> "2.5"
+ */
+export function formatYears(years: number): string {
+  return yearsFormat.format(years);
+}
+
+/**
+ * The singular or plural noun for a count: 1 takes the singular, every other count the plural.
+ * @example
+ * plural(1, 'person', 'people') //=> "person"
+ */
+export function plural(count: number, singular: string, pluralForm: string): string {
+  return count === 1 ? singular : pluralForm;
+}
+
+/**
+ * A count of people with its noun.
+ * @example
+ * peopleCount(1) //=> "1 person"
+ * peopleCount(1000) //=> "1,000 people"
+ */
+export function peopleCount(count: number): string {
+  return `${formatCount(count)} ${plural(count, 'person', 'people')}`;
+}
+
+/**
+ * "in the next 10 years", "in the next year" for a horizon of exactly 1.
+ * @example
+ * inTheNext(10) //=> "in the next 10 years"
+ */
+export function inTheNext(horizonYears: number): string {
+  return horizonYears === 1 ? 'in the next year' : `in the next ${formatYears(horizonYears)} years`;
+}
+
+/**
+ * "over the next 10 years", "over the next year".
+ * @example
+ * overTheNext(5) //=> "over the next 5 years"
+ */
+export function overTheNext(horizonYears: number): string {
+  return horizonYears === 1 ? 'over the next year' : `over the next ${formatYears(horizonYears)} years`;
+}
+
+/**
+ * A percentage for the clinician view, one decimal: 0.08 → "8.0%".
+ * @example
+ * formatPercent(0.0825) //=> "8.3%"
+ */
+export function formatPercent(fraction: number): string {
+  return `${(fraction * 100).toLocaleString(TEXT_LOCALE, { minimumFractionDigits: 1, maximumFractionDigits: 1 })}%`;
+}
+
+/**
+ * A signed number of percentage points for the clinician view, one decimal: 0.04 → "+4.0".
+ * @example
+ * formatPercentagePoints(-0.031) //=> "−3.1"
+ */
+export function formatPercentagePoints(fraction: number): string {
+  const value = Math.round(fraction * 1000) / 10;
+  const magnitude = Math.abs(value).toLocaleString(TEXT_LOCALE, { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+  if (value > 0) return `+${magnitude}`;
+  if (value < 0) return `\u2212${magnitude}`;
+  return magnitude;
+}
+
+/**
+ * A ratio for the clinician view, two decimals: 1.5 → "1.50".
+ * @example
+ * formatRatio(1.4567) //=> "1.46"
+ */
+export function formatRatio(ratio: number): string {
+  return ratio.toLocaleString(TEXT_LOCALE, { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+}

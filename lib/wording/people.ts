@@ -1,0 +1,93 @@
+/**
+ * Who "people like you" are, in words: the group every patient sentence is about.
+ *
+ * Always state who the figures describe (Trevena et al. 2013, BMC Med Inform Decis Mak
+ * 13(Suppl 2):S7; risk-communication guide). The phrase is built from what the baseline was
+ * looked up for, never from identifiers:
+ * - sex → "women" / "men" (under 18: "girls" / "boys"); unknown or "any" → "people";
+ * - the table's age band → "aged 50 to 59" ("aged 80 and over" for an open top band);
+ *   without a band, the person's age → "aged 53";
+ * - with neither sex nor age, a short population text the clinician wrote (e.g. "adults at a
+ *   workplace health check") is used as it stands;
+ * - with none of these there is no honest description, and the function refuses.
+ * The sentence adds "like you" after the phrase: "women aged 50 to 59 like you".
+ */
+import { fail, ok, type Result } from '../result';
+import type { Person } from '../scenario/schema';
+import { formatCount } from './format';
+
+/** An age band from a population table's stratum; `toYears` ≥ 120 means open-ended. */
+export interface AgeBand {
+  readonly fromYears: number;
+  readonly toYears: number;
+}
+
+export interface PeopleInput {
+  readonly person?: Person | undefined;
+  /** The band the baseline was looked up in; preferred to the exact age. */
+  readonly ageBand?: AgeBand | undefined;
+  /** Used only when neither sex nor age is known. Trimmed; at most 80 characters. */
+  readonly population?: string | undefined;
+}
+
+/** Longest population text accepted as the group phrase: it goes inside every sentence. */
+export const MAX_PEOPLE_PHRASE = 80;
+/** Top of the age range (years): a band reaching it is written "and over". */
+export const OPEN_AGE_YEARS = 120;
+
+function noun(sex: Person['sex'], age: number | undefined): string {
+  const child = age !== undefined && age < 18;
+  if (sex === 'female') return child ? 'girls' : 'women';
+  if (sex === 'male') return child ? 'boys' : 'men';
+  return 'people';
+}
+
+function agePart(input: PeopleInput): string | undefined {
+  const band = input.ageBand;
+  if (band) {
+    if (band.toYears >= OPEN_AGE_YEARS) return `aged ${formatCount(band.fromYears)} and over`;
+    if (band.fromYears === band.toYears) return `aged ${formatCount(band.fromYears)}`;
+    return `aged ${formatCount(band.fromYears)} to ${formatCount(band.toYears)}`;
+  }
+  const age = input.person?.age;
+  return age === undefined ? undefined : `aged ${formatCount(age)}`;
+}
+
+/**
+ * The plural phrase naming the group, without "like you".
+ *
+ * @example
+ * describePeople({ person: { age: 53, sex: 'female' }, ageBand: { fromYears: 50, toYears: 59 } })
+ * //=> { ok: true, value: "women aged 50 to 59" }
+ * describePeople({})
+ * //=> { ok: false, issues: [{ code: 'population-required', path: ['people'], … }] }
+ */
+export function describePeople(input: PeopleInput): Result<string> {
+  const sex = input.person?.sex;
+  const age = agePart(input);
+  if (sex !== undefined || age !== undefined) {
+    const ageYears = input.ageBand?.toYears ?? input.person?.age;
+    return ok([noun(sex, ageYears), age].filter((part) => part !== undefined).join(' '));
+  }
+  const population = input.population?.trim().replace(/[.\s]+$/, '') ?? '';
+  if (population.length === 0) {
+    return fail([
+      {
+        code: 'population-required',
+        path: ['people'],
+        message:
+          'Say who the figures are about: give the person\u2019s age or sex (as the table uses them) or a short description of the group, e.g. "adults at a workplace health check"',
+      },
+    ]);
+  }
+  if (population.length > MAX_PEOPLE_PHRASE) {
+    return fail([
+      {
+        code: 'too-long',
+        path: ['people'],
+        message: `The description of the group must be at most ${MAX_PEOPLE_PHRASE} characters: it goes inside every sentence`,
+      },
+    ]);
+  }
+  return ok(population);
+}
