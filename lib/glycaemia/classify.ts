@@ -1,0 +1,208 @@
+/**
+ * One checkup's glycaemic category under one criteria set.
+ *
+ * Each test is first expressed in the body's own unit (./criteria.ts) — the measurement is
+ * converted, the threshold never is — then placed in a range:
+ *
+ *     value ≥ diabetesRangeFrom                 → diabetes-range
+ *     prediabetesFrom ≤ value < diabetesRangeFrom → prediabetes
+ *     value < prediabetesFrom                   → normal
+ *     (no prediabetesFrom, value below the diabetes range → this test does not classify)
+ *
+ * The checkup takes the higher range of its tests (any one test in a range places the result in
+ * it: ADA section 2 and WHO 2006/2011 accept either test; from memory). `decidedBy` names the test
+ * that gave that range, or "both". Tests are discordant when both are present and place the
+ * checkup in different ranges; under WHO an HbA1c below 6.5% is silent below the diabetes range,
+ * so it is discordant only with a fasting glucose in the diabetes range.
+ *
+ * A converted value within the rounding of a threshold (it would fall on the other side once
+ * rounded as the lab would print it in the body's unit) gets a note, because then the unit the
+ * lab reported in decides: WHO's 7.0 mmol/L is 126.1 mg/dL, so 126 mg/dL is 6.99 mmol/L, just
+ * under it.
+ *
+ * Converted values within 1e-9 (relative) of a threshold count as at the threshold: that is
+ * floating-point round-off from the conversion, not a clinical tolerance.
+ */
+import type { Warning } from '../result';
+import { CRITERIA, type TestThresholds } from './criteria';
+import type { CriteriaSet, GlycaemicCategory } from './exposure';
+import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, withUnit, type ValueUnit } from './format';
+import { glucoseIn } from './glucose';
+import { hba1cIn } from './hba1c';
+import { REPORTING_STEP } from './merge';
+import type { Checkup } from './schema';
+
+export type TestName = 'hba1c' | 'fpg';
+
+export interface TestClassification {
+  readonly test: TestName;
+  /** The result in the body's unit, unrounded. */
+  readonly value: number;
+  readonly unit: ValueUnit;
+  /** The result as entered. */
+  readonly entered: { readonly value: number; readonly unit: ValueUnit };
+  /** True when the result was entered in the other unit and converted to the body's. */
+  readonly converted: boolean;
+  /**
+   * The value in the body's unit as text: as entered, or converted and rounded to
+   * {@link CONVERTED_DECIMALS} — with more decimals when fewer would put it on the other side of a
+   * threshold (99 mg/dL is "5.495 mmol/L", never "5.5 mmol/L", under NICE's 5.5).
+   */
+  readonly text: string;
+  /**
+   * The range this test alone places the checkup in; null when the body does not use this test
+   * below its diabetes range (WHO: HbA1c below 6.5%).
+   */
+  readonly category: GlycaemicCategory | null;
+}
+
+export interface ClassifiedCheckup {
+  readonly date: string;
+  readonly criteria: CriteriaSet;
+  /** null when no test classifies under this body (WHO with only an HbA1c below 6.5%). */
+  readonly category: GlycaemicCategory | null;
+  readonly decidedBy: TestName | 'both' | null;
+  readonly discordant: boolean;
+  readonly hba1c: TestClassification | null;
+  readonly fpg: TestClassification | null;
+  /** Both units of each test, unrounded; null where the test is missing. */
+  readonly hba1cPercent: number | null;
+  readonly hba1cMmolMol: number | null;
+  readonly fpgMgDl: number | null;
+  readonly fpgMmolL: number | null;
+  /** Notes about this checkup: not classified, discordant tests, a conversion near a threshold. */
+  readonly notes: readonly Warning[];
+}
+
+const RANK: Readonly<Record<GlycaemicCategory, number>> = { normal: 0, prediabetes: 1, 'diabetes-range': 2 };
+const FLOAT_TOLERANCE = 1e-9;
+
+function atOrAbove(value: number, threshold: number): boolean {
+  return value >= threshold - FLOAT_TOLERANCE * Math.abs(threshold);
+}
+
+/**
+ * The range a value in the body's unit falls in.
+ *
+ * @example
+ * categoryFor(6.5, CRITERIA.ADA.hba1c)   //=> 'diabetes-range'
+ * categoryFor(6.49, CRITERIA.ADA.hba1c)  //=> 'prediabetes'
+ * categoryFor(6.0, CRITERIA.WHO.hba1c)   //=> null (WHO: HbA1c below 6.5% does not classify)
+ */
+export function categoryFor(value: number, thresholds: TestThresholds<string>): GlycaemicCategory | null {
+  if (atOrAbove(value, thresholds.diabetesRangeFrom)) return 'diabetes-range';
+  if (thresholds.prediabetesFrom === null) return null;
+  return atOrAbove(value, thresholds.prediabetesFrom) ? 'prediabetes' : 'normal';
+}
+
+/** A converted value rounded for display without crossing a threshold (at most 6 decimals). */
+function sidePreservingText(value: number, thresholds: TestThresholds<ValueUnit>): string {
+  const category = categoryFor(value, thresholds);
+  let decimals = CONVERTED_DECIMALS[thresholds.unit];
+  while (decimals < 6 && categoryFor(roundTo(value, decimals), thresholds) !== category) decimals += 1;
+  return withUnit(roundTo(value, decimals), thresholds.unit);
+}
+
+function roundToStep(value: number, step: number): number {
+  return Math.round(value / step) * step;
+}
+
+function classifyTest(
+  test: TestName,
+  entered: { readonly value: number; readonly unit: ValueUnit },
+  value: number,
+  thresholds: TestThresholds<ValueUnit>,
+): { result: TestClassification; note: Warning | null } {
+  const converted = entered.unit !== thresholds.unit;
+  const category = categoryFor(value, thresholds);
+  const text = converted ? sidePreservingText(value, thresholds) : withUnit(entered.value, entered.unit);
+  const result: TestClassification = { test, value, unit: thresholds.unit, entered, converted, text, category };
+  if (!converted) return { result, note: null };
+  const rounded = roundToStep(value, REPORTING_STEP[thresholds.unit]);
+  if (categoryFor(rounded, thresholds) === category) return { result, note: null };
+  const limits = [thresholds.prediabetesFrom, thresholds.diabetesRangeFrom].filter((t): t is number => t !== null);
+  const nearest = limits.reduce((best, t) => (Math.abs(t - value) < Math.abs(best - value) ? t : best));
+  return {
+    result,
+    note: {
+      code: 'conversion-near-threshold',
+      message: `The ${TEST_LABELS[test]} ${withUnit(entered.value, entered.unit)} is ${text}, within rounding of the ${withUnit(nearest, thresholds.unit)} limit: the range depends on the unit the lab reported in, so check the lab's own ${thresholds.unit} value`,
+    },
+  };
+}
+
+/**
+ * Classify one checkup under one criteria set.
+ *
+ * @example
+ * classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 92, unit: 'mg/dL' } }, 'ADA')
+ * //=> { category: 'prediabetes', decidedBy: 'hba1c', discordant: true, hba1cMmolMol: 43.173, … }
+ */
+export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): ClassifiedCheckup {
+  const body = CRITERIA[criteria];
+  const notes: Warning[] = [];
+  let hba1c: TestClassification | null = null;
+  let fpg: TestClassification | null = null;
+  if (checkup.hba1c) {
+    const { result, note } = classifyTest('hba1c', checkup.hba1c, hba1cIn(body.hba1c.unit, checkup.hba1c), body.hba1c);
+    hba1c = result;
+    if (note) notes.push(note);
+  }
+  if (checkup.fpg) {
+    const { result, note } = classifyTest('fpg', checkup.fpg, glucoseIn(body.fpg.unit, checkup.fpg), body.fpg);
+    fpg = result;
+    if (note) notes.push(note);
+  }
+
+  const classifying = [hba1c, fpg].filter((t): t is TestClassification & { category: GlycaemicCategory } => t !== null && t.category !== null);
+  let category: GlycaemicCategory | null = null;
+  let decidedBy: ClassifiedCheckup['decidedBy'] = null;
+  if (classifying.length > 0) {
+    const top = Math.max(...classifying.map((t) => RANK[t.category]));
+    const deciders = classifying.filter((t) => RANK[t.category] === top);
+    category = deciders[0]?.category ?? null;
+    decidedBy = deciders.length === 2 ? 'both' : (deciders[0]?.test ?? null);
+  } else {
+    notes.push({
+      code: 'not-classified',
+      message: `Under ${body.id} criteria an HbA1c below 6.5% (48 mmol/mol) does not place a result in the normal or the prediabetes range; a fasting glucose is needed to classify this checkup`,
+    });
+  }
+
+  let discordant = false;
+  if (hba1c && fpg) {
+    if (hba1c.category !== null && fpg.category !== null) discordant = hba1c.category !== fpg.category;
+    else discordant = (hba1c.category === 'diabetes-range') !== (fpg.category === 'diabetes-range');
+  }
+  if (discordant && hba1c && fpg) {
+    const words = (t: TestClassification) => (t.category === null ? 'below the diabetes range' : `in the ${rangeName(t.category)}`);
+    notes.push({
+      code: 'discordant-tests',
+      message: `HbA1c and fasting glucose disagree: HbA1c is ${words(hba1c)}, fasting glucose ${words(fpg)} (${body.id}); the checkup is shown in the higher range, ${categoryLabel(category, criteria)}`,
+    });
+  }
+
+  const percent = checkup.hba1c ? hba1cIn('%', checkup.hba1c) : null;
+  const mmolMol = checkup.hba1c ? hba1cIn('mmol/mol', checkup.hba1c) : null;
+  const mgDl = checkup.fpg ? glucoseIn('mg/dL', checkup.fpg) : null;
+  const mmolL = checkup.fpg ? glucoseIn('mmol/L', checkup.fpg) : null;
+  return {
+    date: checkup.date,
+    criteria,
+    category,
+    decidedBy,
+    discordant,
+    hba1c,
+    fpg,
+    hba1cPercent: percent,
+    hba1cMmolMol: mmolMol,
+    fpgMgDl: mgDl,
+    fpgMmolL: mmolL,
+    notes,
+  };
+}
+
+/** Classify every checkup, sorted by date (earliest first). */
+export function classifyHistory(checkups: readonly Checkup[], criteria: CriteriaSet): ClassifiedCheckup[] {
+  return [...checkups].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0)).map((c) => classifyCheckup(c, criteria));
+}

@@ -1,0 +1,105 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { classifyCheckup, classifyHistory } from '@/lib/glycaemia/classify';
+import { CRITERIA_SETS } from '@/lib/glycaemia/exposure';
+import { categoryLabel } from '@/lib/glycaemia/format';
+
+describe('classifyCheckup: which test decides, discordance', () => {
+  it('takes the higher range and names the test that gave it (ADA: either test suffices, §2, from memory)', () => {
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 92, unit: 'mg/dL' } }, 'ADA');
+    expect(c.category).toBe('prediabetes');
+    expect(c.decidedBy).toBe('hba1c');
+    expect(c.discordant).toBe(true);
+    expect(c.notes.map((n) => n.code)).toEqual(['discordant-tests']);
+  });
+
+  it('says "both" when the two tests agree', () => {
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 44, unit: 'mmol/mol' }, fpg: { value: 5.9, unit: 'mmol/L' } }, 'NICE');
+    expect(c).toMatchObject({ category: 'prediabetes', decidedBy: 'both', discordant: false, notes: [] });
+  });
+
+  it('lets the fasting glucose decide when it is the higher', () => {
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 5.4, unit: '%' }, fpg: { value: 130, unit: 'mg/dL' } }, 'ADA');
+    expect(c).toMatchObject({ category: 'diabetes-range', decidedBy: 'fpg', discordant: true });
+  });
+
+  it('uses a single test alone, without discordance', () => {
+    const c = classifyCheckup({ date: '2023-03-01', fpg: { value: 6.3, unit: 'mmol/L' } }, 'WHO');
+    expect(c).toMatchObject({ category: 'prediabetes', decidedBy: 'fpg', discordant: false, hba1c: null, hba1cPercent: null, hba1cMmolMol: null });
+  });
+
+  describe('WHO: an HbA1c below 6.5 % does not classify (WHO 2011, from memory)', () => {
+    it('leaves a checkup with only such an HbA1c unclassified, with a note', () => {
+      const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.2, unit: '%' } }, 'WHO');
+      expect(c.category).toBeNull();
+      expect(c.decidedBy).toBeNull();
+      expect(c.notes.map((n) => n.code)).toEqual(['not-classified']);
+      expect(categoryLabel(c.category, 'WHO')).toBe('not classified (WHO)');
+    });
+    it('lets the fasting glucose decide, without calling the pair discordant', () => {
+      const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.2, unit: '%' }, fpg: { value: 6.3, unit: 'mmol/L' } }, 'WHO');
+      expect(c).toMatchObject({ category: 'prediabetes', decidedBy: 'fpg', discordant: false });
+    });
+    it('flags discordance when the fasting glucose is in the diabetes range and the HbA1c is not', () => {
+      const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.2, unit: '%' }, fpg: { value: 7.4, unit: 'mmol/L' } }, 'WHO');
+      expect(c).toMatchObject({ category: 'diabetes-range', decidedBy: 'fpg', discordant: true });
+    });
+    it('flags discordance when the HbA1c is in the diabetes range and the glucose is not', () => {
+      const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.7, unit: '%' }, fpg: { value: 5.0, unit: 'mmol/L' } }, 'WHO');
+      expect(c).toMatchObject({ category: 'diabetes-range', decidedBy: 'hba1c', discordant: true });
+    });
+  });
+
+  it('reports both units of each test (hand-computed)', () => {
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.5, unit: '%' }, fpg: { value: 7, unit: 'mmol/L' } }, 'ADA');
+    expect(c.hba1cPercent).toBe(6.5);
+    expect(c.hba1cMmolMol).toBeCloseTo(47.545, 10); // 10.93 × 6.5 − 23.5
+    expect(c.fpgMmolL).toBe(7);
+    expect(c.fpgMgDl).toBeCloseTo(126.112, 10); // 7 × 18.016
+  });
+
+  it('classifyHistory sorts by date', () => {
+    const h = classifyHistory(
+      [
+        { date: '2022-01-01', fpg: { value: 5, unit: 'mmol/L' } },
+        { date: '2020-01-01', fpg: { value: 5, unit: 'mmol/L' } },
+        { date: '2021-01-01', fpg: { value: 5, unit: 'mmol/L' } },
+      ],
+      'NICE',
+    );
+    expect(h.map((c) => c.date)).toEqual(['2020-01-01', '2021-01-01', '2022-01-01']);
+  });
+
+  it('is monotone: a higher value never gives a lower range (property, 1000 runs)', () => {
+    const rank = { normal: 0, prediabetes: 1, 'diabetes-range': 2 } as const;
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...CRITERIA_SETS),
+        fc.constantFrom('%' as const, 'mmol/mol' as const),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (criteria, unit, u, v) => {
+          const [lo, hi] = unit === '%' ? [3, 20] : [9, 195];
+          const a = lo + Math.min(u, v) * (hi - lo);
+          const b = lo + Math.max(u, v) * (hi - lo);
+          const ca = classifyCheckup({ date: '2023-01-01', hba1c: { value: a, unit }, fpg: { value: 4, unit: 'mmol/L' } }, criteria).category;
+          const cb = classifyCheckup({ date: '2023-01-01', hba1c: { value: b, unit }, fpg: { value: 4, unit: 'mmol/L' } }, criteria).category;
+          expect(ca).not.toBeNull();
+          expect(cb).not.toBeNull();
+          if (ca !== null && cb !== null) expect(rank[ca]).toBeLessThanOrEqual(rank[cb]);
+        },
+      ),
+      { numRuns: 1000 },
+    );
+  });
+
+  it('never words a category as a diagnosis: "diabetes" only as "diabetes range"', () => {
+    for (const criteria of CRITERIA_SETS) {
+      for (const category of ['normal', 'prediabetes', 'diabetes-range', null] as const) {
+        expect(categoryLabel(category, criteria)).not.toMatch(/\bdiabetes\b(?! range)/i);
+      }
+    }
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.2, unit: '%' }, fpg: { value: 7.4, unit: 'mmol/L' } }, 'WHO');
+    for (const note of c.notes) expect(note.message).not.toMatch(/\bdiabetes\b(?! range)/i);
+  });
+});
