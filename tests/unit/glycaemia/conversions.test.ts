@@ -109,7 +109,7 @@ describe('glucose: mg/dL = mmol/L × 18.016 (methods guide; molar mass 180.16 g/
     [110, 6.1, 'WHO 1999/2006: IFG from 6.1 mmol/L (110 mg/dL) (from memory)'],
     [140, 7.8, 'WHO 1999/2006: 2-h glucose 7.8 mmol/L (140 mg/dL) (from memory)'],
     [200, 11.1, 'WHO 1999/2006, ADA: 11.1 mmol/L (200 mg/dL) (from memory)'],
-  ] as const)('%d mg/dL ≈ %d mmol/L (%s)', (mgDl, mmolL) => {
+  ] as const)('%d mg/dL ≈ %d mmol/L (%s)', (mgDl, mmolL, _source) => {
     expect(Math.abs(glucoseMgDlToMmolL(mgDl) - mmolL)).toBeLessThanOrEqual(0.05);
   });
 
@@ -118,7 +118,7 @@ describe('glucose: mg/dL = mmol/L × 18.016 (methods guide; molar mass 180.16 g/
     [7.0, 126, 'WHO 2006: 7.0 mmol/L (126 mg/dL) (from memory)'],
     [6.1, 110, 'WHO 2006: 6.1 mmol/L (110 mg/dL) (from memory)'],
     [11.1, 200, 'WHO 2006: 11.1 mmol/L (200 mg/dL) (from memory)'],
-  ] as const)('%d mmol/L ≈ %d mg/dL (%s)', (mmolL, mgDl) => {
+  ] as const)('%d mmol/L ≈ %d mg/dL (%s)', (mmolL, mgDl, _source) => {
     expect(Math.abs(glucoseMmolLToMgDl(mmolL) - mgDl)).toBeLessThanOrEqual(0.5);
   });
 
