@@ -43,12 +43,14 @@ export const ID_PATTERN = /^[a-z0-9][a-z0-9._-]*$/;
 /** Extra-stratum keys: a letter first, then letters, digits or underscores (they become CSV columns). */
 export const STRATUM_KEY_PATTERN = /^[a-z][a-z0-9_]*$/;
 
+/** One line of text: a table's details and stratum values each fit on one line of a CSV file. */
 function requiredText(what: string, max = MAX_TEXT) {
   return z
     .string({ error: (iss) => (iss.input === undefined ? `${what} is required` : `${what} must be text`) })
     .trim()
     .min(1, { error: `${what} must not be empty` })
-    .max(max, { error: `${what} must be at most ${max} characters` });
+    .max(max, { error: `${what} must be at most ${max} characters` })
+    .regex(/^[^\r\n]*$/, { error: `${what} must fit on one line (no line breaks)` });
 }
 
 function age(what: string) {
@@ -65,78 +67,76 @@ export const tableIdSchema = z
   .max(MAX_ID, { error: `The table id must be at most ${MAX_ID} characters` })
   .regex(ID_PATTERN, { error: 'The table id may hold only lower-case letters, digits, "-", "_" and "." and must start with a letter or digit' });
 
+/** A stratum's fields, each checked on its own (the CSV reader checks cell by cell with these). */
+export const stratumFieldsSchema = z.strictObject({
+  sex: z.enum(SEXES, { error: 'The sex must be female, male or any' }),
+  ageFrom: age('The band start age'),
+  ageTo: age('The band end age'),
+  /** Further strata, e.g. `{ region: "north" }`; absent when the table has none (never `{}`). */
+  extra: z
+    .record(
+      z.string().regex(STRATUM_KEY_PATTERN, {
+        error: 'An extra stratum name must start with a lower-case letter and hold only lower-case letters, digits and "_"',
+      }),
+      requiredText('An extra stratum value', MAX_STRATUM_TEXT),
+    )
+    .refine((extra) => Object.keys(extra).length > 0, { error: 'Extra strata must name at least one stratum; leave the field out when there are none' })
+    .optional(),
+  /** Risk over the table's `horizonYears`, a fraction. */
+  risk: fraction('The risk').optional(),
+  /** Events per `perPersonYears` person-years. */
+  rate: z
+    .number({ error: 'The rate must be a number' })
+    .gt(0, { error: 'The rate must be greater than 0 (events per person-years; a negative or zero rate cannot be used)' })
+    .lte(1e6, { error: 'The rate must be at most 1,000,000' })
+    .optional(),
+  perPersonYears: z
+    .number({ error: 'The person-years must be a number' })
+    .gt(0, { error: 'The person-years must be greater than 0 (e.g. 1000 for a rate per 1000 person-years)' })
+    .lte(1e9, { error: 'The person-years must be at most 1,000,000,000' })
+    .optional(),
+});
+
+/** Receives one problem: its path (in the stratum or the table), its issue code and its message. */
+export type TableProblemReport = (path: (string | number)[], code: string, message: string) => void;
+
+/**
+ * The rules across one stratum's fields: a band ends no earlier than it starts; a risk, or a
+ * rate with its person-years, never both.
+ */
+export function checkStratum(s: z.infer<typeof stratumFieldsSchema>, report: TableProblemReport): void {
+  if (s.ageFrom > s.ageTo) {
+    report(['ageTo'], 'age-band-order', `The band end age (${s.ageTo}) must be at least the start age (${s.ageFrom}); both ends are included`);
+  }
+  const hasRisk = s.risk !== undefined;
+  const hasRate = s.rate !== undefined || s.perPersonYears !== undefined;
+  if (hasRisk && hasRate) {
+    report(['risk'], 'stratum-form', 'A stratum gives either a risk or a rate with its person-years, not both');
+  } else if (!hasRisk && !hasRate) {
+    report(['risk'], 'stratum-form', 'A stratum needs either a risk or a rate with its person-years');
+  } else if (hasRate && s.rate === undefined) {
+    report(['rate'], 'required', 'The rate is required when the person-years are given');
+  } else if (hasRate && s.perPersonYears === undefined) {
+    report(['perPersonYears'], 'required', 'The person-years are required with a rate (e.g. 1000 for a rate per 1000 person-years)');
+  }
+}
+
 /** One stratum: who it covers and its baseline (a risk, or a rate per person-years). */
-export const stratumSchema = z
-  .strictObject({
-    sex: z.enum(SEXES, { error: 'The sex must be female, male or any' }),
-    ageFrom: age('The band start age'),
-    ageTo: age('The band end age'),
-    /** Further strata, e.g. `{ region: "north" }`; absent when the table has none. */
-    extra: z
-      .record(
-        z.string().regex(STRATUM_KEY_PATTERN, {
-          error: 'An extra stratum name must start with a lower-case letter and hold only lower-case letters, digits and "_"',
-        }),
-        requiredText('An extra stratum value', MAX_STRATUM_TEXT),
-      )
-      .optional(),
-    /** Risk over the table's `horizonYears`, a fraction. */
-    risk: fraction('The risk').optional(),
-    /** Events per `perPersonYears` person-years. */
-    rate: z
-      .number({ error: 'The rate must be a number' })
-      .gt(0, { error: 'The rate must be greater than 0 (events per person-years; a negative or zero rate cannot be used)' })
-      .lte(1e6, { error: 'The rate must be at most 1,000,000' })
-      .optional(),
-    perPersonYears: z
-      .number({ error: 'The person-years must be a number' })
-      .gt(0, { error: 'The person-years must be greater than 0 (e.g. 1000 for a rate per 1000 person-years)' })
-      .lte(1e9, { error: 'The person-years must be at most 1,000,000,000' })
-      .optional(),
-  })
-  .superRefine((s, ctx) => {
-    if (s.ageFrom > s.ageTo) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['ageTo'],
-        params: { code: 'age-band-order' },
-        message: `The band end age (${s.ageTo}) must be at least the start age (${s.ageFrom}); both ends are included`,
-      });
-    }
-    const hasRisk = s.risk !== undefined;
-    const hasRate = s.rate !== undefined || s.perPersonYears !== undefined;
-    if (hasRisk && hasRate) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['risk'],
-        params: { code: 'stratum-form' },
-        message: 'A stratum gives either a risk or a rate with its person-years, not both',
-      });
-    } else if (!hasRisk && !hasRate) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['risk'],
-        params: { code: 'stratum-form' },
-        message: 'A stratum needs either a risk or a rate with its person-years',
-      });
-    } else if (hasRate && s.rate === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['rate'], params: { code: 'required' }, message: 'The rate is required when the person-years are given' });
-    } else if (hasRate && s.perPersonYears === undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['perPersonYears'],
-        params: { code: 'required' },
-        message: 'The person-years are required with a rate (e.g. 1000 for a rate per 1000 person-years)',
-      });
-    }
-  });
+export const stratumSchema = stratumFieldsSchema.superRefine((s, ctx) => {
+  checkStratum(s, (path, code, message) => ctx.addIssue({ code: 'custom', path, params: { code }, message }));
+});
 
 export type Stratum = z.infer<typeof stratumSchema>;
 
 /** The key that groups strata whose age bands must tile: sex plus the extra values. */
 export function stratumGroupKey(s: Pick<Stratum, 'sex' | 'extra'>): string {
-  const extra = Object.entries(s.extra ?? {}).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-  return JSON.stringify([s.sex, extra]);
+  if (s.extra === undefined) return s.sex;
+  const keys = Object.keys(s.extra);
+  if (keys.length > 1) keys.sort();
+  // JSON strings cannot be confused with one another, whatever the values hold.
+  let key = s.sex;
+  for (const k of keys) key += `\u0000${JSON.stringify(k)}:${JSON.stringify(s.extra[k])}`;
+  return key;
 }
 
 /** Words for a group in messages: "female", "any sex, region north". */
@@ -190,11 +190,18 @@ export function extraKeys(table: Pick<PopulationTable, 'strata'>): string[] {
   return Object.keys(table.strata[0]?.extra ?? {}).sort();
 }
 
-/** Receives one whole-table problem: its path in the table, its issue code and its message. */
-export type TableProblemReport = (path: (string | number)[], code: string, message: string) => void;
+
+/** Names a stratum in messages: "stratum 3" in a table, "row 7" in a CSV file. */
+export type StratumLabel = (index: number) => string;
+
+const defaultLabel: StratumLabel = (index) => `stratum ${index + 1}`;
+
+function capitalised(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
 
 /**
- * The whole-table rules: one form, horizon for risks, one sex scheme, the same extra keys,
+ * The whole-table rules: one form, a horizon for risks, one sex scheme, the same extra keys,
  * and age bands that tile each group without overlap, gap or repeat. Runs on strata that
  * each passed {@link stratumSchema}.
  */
@@ -207,19 +214,12 @@ export function checkTable(table: { horizonYears?: number | undefined; strata: r
   strata.forEach((s, i) => {
     const form: TableForm = s.risk !== undefined ? 'risk' : 'rate';
     if (form !== firstForm) {
-      report(['strata', i, form], 'mixed-baseline-forms', `Stratum ${i + 1} gives a ${form} but the first stratum gives a ${firstForm}; one table uses one form throughout`);
+      report(['strata', i, form], 'mixed-baseline-forms', `Stratum ${i + 1} gives a ${form} but stratum 1 gives a ${firstForm}; one table uses one form throughout`);
     }
   });
   if (firstForm === 'risk' && table.horizonYears === undefined) {
     report(['horizonYears'], 'horizon-required', 'The horizon is required for a table of risks: say over how many years the risks run');
   }
-
-  const anySex = first.sex === 'any';
-  strata.forEach((s, i) => {
-    if ((s.sex === 'any') !== anySex) {
-      report(['strata', i, 'sex'], 'mixed-sex-strata', `Stratum ${i + 1} has sex "${s.sex}" but stratum 1 has "${first.sex}"; a table uses either "any" throughout or "female"/"male" throughout`);
-    }
-  });
 
   const keys = JSON.stringify(Object.keys(first.extra ?? {}).sort());
   strata.forEach((s, i) => {
@@ -229,10 +229,33 @@ export function checkTable(table: { horizonYears?: number | undefined; strata: r
     }
   });
 
-  // Age bands within each group: sort by start, then each band must begin the year after the last ends.
+  checkStrataLayout(strata, (path, code, message) => report(['strata', ...path], code, message));
+}
+
+/**
+ * The rules on who the strata cover: one sex scheme ("any" throughout, or "female"/"male"
+ * throughout) and, within each group of the same sex and extra values, age bands that
+ * neither overlap, leave a gap nor repeat. Paths are `[index, field]`.
+ */
+export function checkStrataLayout(
+  strata: readonly Pick<Stratum, 'sex' | 'ageFrom' | 'ageTo' | 'extra'>[],
+  report: TableProblemReport,
+  label: StratumLabel = defaultLabel,
+): void {
+  const first = strata[0];
+  if (!first) return;
+  const anySex = first.sex === 'any';
+  strata.forEach((s, i) => {
+    if ((s.sex === 'any') !== anySex) {
+      report([i, 'sex'], 'mixed-sex-strata', `${capitalised(label(i))} has sex "${s.sex}" but ${label(0)} has "${first.sex}"; a table uses either "any" throughout or "female"/"male" throughout`);
+    }
+  });
+
+  // Age bands within each group: sort by start; each band must begin the year after the
+  // furthest-reaching band before it ends.
   const groups = new Map<string, number[]>();
   strata.forEach((s, i) => {
-    if (s.ageFrom > s.ageTo) return; // already reported by the stratum schema
+    if (s.ageFrom > s.ageTo) return; // reported by checkStratum
     const key = stratumGroupKey(s);
     const list = groups.get(key);
     if (list) list.push(i);
@@ -240,7 +263,6 @@ export function checkTable(table: { horizonYears?: number | undefined; strata: r
   });
   for (const indices of groups.values()) {
     const sorted = [...indices].sort((a, b) => strata[a]!.ageFrom - strata[b]!.ageFrom || strata[a]!.ageTo - strata[b]!.ageTo || a - b);
-    // `reach` is the stratum reaching the oldest age so far: a band must start right after it.
     let reach = sorted[0]!;
     for (let k = 1; k < sorted.length; k++) {
       const prevIndex = sorted[k - 1]!;
@@ -248,13 +270,13 @@ export function checkTable(table: { horizonYears?: number | undefined; strata: r
       const prev = strata[prevIndex]!;
       const last = strata[reach]!;
       const s = strata[index]!;
-      const who = describeGroup(s);
+      const who = () => describeGroup(s);
       if (s.ageFrom === prev.ageFrom && s.ageTo === prev.ageTo) {
-        report(['strata', index, 'ageFrom'], 'duplicate-stratum', `Stratum ${index + 1} repeats stratum ${prevIndex + 1} (${who}, ages ${s.ageFrom} to ${s.ageTo}); each stratum appears once`);
+        report([index, 'ageFrom'], 'duplicate-stratum', `${capitalised(label(index))} repeats ${label(prevIndex)} (${who()}, ages ${s.ageFrom} to ${s.ageTo}); each stratum appears once`);
       } else if (s.ageFrom <= last.ageTo) {
-        report(['strata', index, 'ageFrom'], 'overlapping-age-bands', `Stratum ${index + 1} (${who}, ages ${s.ageFrom} to ${s.ageTo}) overlaps stratum ${reach + 1} (ages ${last.ageFrom} to ${last.ageTo}); both ends of a band are included, so the next band starts at ${last.ageTo + 1}`);
+        report([index, 'ageFrom'], 'overlapping-age-bands', `${capitalised(label(index))} (${who()}, ages ${s.ageFrom} to ${s.ageTo}) overlaps ${label(reach)} (ages ${last.ageFrom} to ${last.ageTo}); both ends of a band are included, so the next band starts at ${last.ageTo + 1}`);
       } else if (s.ageFrom > last.ageTo + 1) {
-        report(['strata', index, 'ageFrom'], 'age-band-gap', `Ages ${last.ageTo + 1} to ${s.ageFrom - 1} are missing for ${who}: stratum ${reach + 1} ends at ${last.ageTo} and stratum ${index + 1} starts at ${s.ageFrom}`);
+        report([index, 'ageFrom'], 'age-band-gap', `Ages ${last.ageTo + 1} to ${s.ageFrom - 1} are missing for ${who()}: ${label(reach)} ends at ${last.ageTo} and ${label(index)} starts at ${s.ageFrom}`);
       }
       if (s.ageTo > last.ageTo) reach = index;
     }

@@ -1,0 +1,730 @@
+/**
+ * Population tables as CSV files a clinic can fill in a spreadsheet, and back.
+ *
+ * The format is documented in docs/table-format.md. In short: `# key: value` lines give the
+ * table's details, then one header row, then one row per stratum:
+ *
+ *     # title: Heart failure needing hospital care within 10 years
+ *     # outcome: a first hospital admission for heart failure
+ *     # horizon_years: 10
+ *     # population: Adults aged 30 to 79 registered in the district
+ *     # source: District health report, table 4
+ *     # year: 2024
+ *     sex,age_from,age_to,risk
+ *     female,30,39,0.002
+ *
+ * Cells are split by papaparse (RFC 4180 quoting); everything else here is checking. Every
+ * problem is reported with its row (the file's line number, as a spreadsheet numbers rows)
+ * and column, and a file with any problem yields no table. Reading works in blocks of lines
+ * so that a page can pause between blocks ({@link parseTableCsvInChunks}).
+ */
+import Papa from 'papaparse';
+import type { Issue } from '../result';
+import { toIssues } from '../scenario/issues';
+import {
+  checkStrataLayout,
+  checkStratum,
+  ID_PATTERN,
+  MAX_ID,
+  MAX_STRATA,
+  populationTableSchema,
+  STRATUM_KEY_PATTERN,
+  stratumFieldsSchema,
+  type PopulationTable,
+  type Stratum,
+  type TableForm,
+} from './schema';
+
+/** Largest file accepted, in bytes of UTF-8: 10 MiB, about 20 times a full national table by single year of age. */
+export const MAX_TABLE_FILE_BYTES = 10 * 1024 * 1024;
+/** Most stratum rows accepted in one file (the schema's limit on strata). */
+export const MAX_TABLE_ROWS = MAX_STRATA;
+/** Most problems listed for one file; beyond it one last problem says how many more there were. */
+export const MAX_REPORTED_PROBLEMS = 1000;
+/** Stratum rows kept for the import preview. */
+export const PREVIEW_ROWS = 10;
+/** Characters read per block by {@link parseTableCsvInChunks} unless told otherwise (about 256 kB). */
+export const DEFAULT_CHUNK_CHARS = 256 * 1024;
+
+/** The detail keys, in the order the export writes them. */
+export const DETAIL_KEYS = ['id', 'title', 'outcome', 'horizon_years', 'population', 'source', 'year', 'illustrative'] as const;
+export type DetailKey = (typeof DETAIL_KEYS)[number];
+const REQUIRED_DETAILS: readonly DetailKey[] = ['title', 'outcome', 'population', 'source', 'year'];
+
+/** An extra stratum `region` is the column `stratum_region`. */
+export const STRATUM_COLUMN_PREFIX = 'stratum_';
+
+type BaseColumn = 'sex' | 'age_from' | 'age_to' | 'risk' | 'rate' | 'person_years';
+const BASE_COLUMNS: readonly BaseColumn[] = ['sex', 'age_from', 'age_to', 'risk', 'rate', 'person_years'];
+const COLUMN_FIELD = { sex: 'sex', age_from: 'ageFrom', age_to: 'ageTo', risk: 'risk', rate: 'rate', person_years: 'perPersonYears' } as const;
+type NumericColumn = Exclude<BaseColumn, 'sex'>;
+const FIELD_COLUMN: Readonly<Record<string, BaseColumn>> = {
+  sex: 'sex',
+  ageFrom: 'age_from',
+  ageTo: 'age_to',
+  risk: 'risk',
+  rate: 'rate',
+  perPersonYears: 'person_years',
+};
+const DETAIL_FIELD = {
+  id: 'id',
+  title: 'title',
+  outcome: 'outcome',
+  horizon_years: 'horizonYears',
+  population: 'population',
+  source: 'source',
+  year: 'year',
+  illustrative: 'illustrative',
+} as const satisfies Record<DetailKey, keyof PopulationTable>;
+
+/** A problem in a table file: an {@link Issue} plus where it is (row = line of the file, column = header name or detail key). */
+export interface TableFileIssue extends Issue {
+  readonly line?: number;
+  readonly column?: string;
+}
+
+/** What the file holds, shown before anything is saved. */
+export interface TableCsvPreview {
+  readonly delimiter: string;
+  readonly details: readonly { readonly key: string; readonly value: string; readonly line: number }[];
+  readonly columns: readonly string[];
+  /** The first {@link PREVIEW_ROWS} stratum rows, as cells. */
+  readonly rows: readonly { readonly line: number; readonly cells: readonly string[] }[];
+  /** Stratum rows read (blank lines not counted). */
+  readonly rowCount: number;
+}
+
+export type TableCsvResult =
+  | { readonly ok: true; readonly value: PopulationTable; readonly preview: TableCsvPreview }
+  | { readonly ok: false; readonly issues: readonly TableFileIssue[]; readonly preview: TableCsvPreview | undefined };
+
+/** How far a chunked read has got. */
+export interface TableCsvProgress {
+  readonly charsDone: number;
+  readonly charsTotal: number;
+  readonly rowsDone: number;
+}
+
+export interface ChunkedOptions {
+  /** Characters per block (cut at the next line end outside quotes). */
+  readonly chunkChars?: number;
+  readonly onProgress?: (progress: TableCsvProgress) => void;
+  /** Awaited between blocks; a page passes e.g. `() => new Promise((r) => setTimeout(r, 0))` to stay responsive. */
+  readonly pause?: () => Promise<void>;
+  /** Stops the read; the result is then a `cancelled` problem and no table. */
+  readonly signal?: AbortSignal;
+}
+
+/** Bytes of `text` encoded as UTF-8, without allocating the encoding. */
+export function utf8Length(text: string): number {
+  let bytes = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c < 0x80) bytes += 1;
+    else if (c < 0x800) bytes += 2;
+    else if (c >= 0xd800 && c <= 0xdbff && i + 1 < text.length) {
+      bytes += 4;
+      i++;
+    } else bytes += 3;
+  }
+  return bytes;
+}
+
+/** An id made from a title: "Heart failure (10 y)" → "heart-failure-10-y". */
+export function idFromTitle(title: string): string {
+  const slug = title
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, MAX_ID - 6)
+    .replace(/-+$/, '');
+  return slug && ID_PATTERN.test(slug) ? slug : 'table';
+}
+
+// ---------------------------------------------------------------------------------------------
+// Reading
+
+const NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
+const COMMA_NUMBER = /^[+-]?[\d.]*\d,\d[\d.,]*$/;
+const PERCENT = /^[+-]?[\d.,]+\s*%$/;
+
+/** Why a cell is not a plain number, or its value. */
+function readNumber(cell: string, column: string): number | { code: string; message: string } {
+  if (NUMBER.test(cell)) return Number(cell);
+  if (COMMA_NUMBER.test(cell)) {
+    return {
+      code: 'decimal-comma',
+      message: `"${cell}" has a comma inside a number; write numbers with a decimal point and no thousands separator (e.g. 0.08, 1000). In a spreadsheet, set the decimal separator to "." before saving as CSV`,
+    };
+  }
+  if (PERCENT.test(cell)) {
+    return column === 'risk'
+      ? { code: 'percent', message: `"${cell}" is a percentage; risks are fractions: for 8% write 0.08` }
+      : { code: 'percent', message: `"${cell}" has a % sign; write the plain number` };
+  }
+  if (/^\d+\s*\+$/.test(cell) && column === 'age_to') {
+    return { code: 'not-a-number', message: `"${cell}" is not a number; write an open top band ("80 and over") as 120` };
+  }
+  return { code: 'not-a-number', message: `"${cell}" is not a number` };
+}
+
+function normaliseName(name: string): string {
+  return name.trim().toLowerCase().replace(/[\s-]+/g, '_');
+}
+
+function plural(n: number, one: string, many: string): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+/** Splits a line into lines, keeping their 1-based numbers. */
+function leadingLines(text: string): { line: number; text: string; end: number }[] {
+  const out: { line: number; text: string; end: number }[] = [];
+  const re = /\r\n|\n|\r/g;
+  let start = 0;
+  let line = 1;
+  for (;;) {
+    const m = re.exec(text);
+    const end = m ? m.index : text.length;
+    const next = m ? m.index + m[0].length : text.length;
+    const content = text.slice(start, end);
+    out.push({ line, text: content, end: next });
+    // Stop at the first line that is neither blank nor a detail line: the header.
+    if (!isBlankLine(content) && !isDetailLine(content)) break;
+    if (!m) break;
+    start = next;
+    line++;
+  }
+  return out;
+}
+
+/** Blank, or only empty cells as a spreadsheet writes them (",,,", ";;;"). */
+function isBlankLine(line: string): boolean {
+  return /^[\s,;"]*$/.test(line);
+}
+
+function isDetailLine(line: string): boolean {
+  return /^\s*"?#/.test(line);
+}
+
+function guessDelimiter(header: string): string {
+  const counts = [',', ';', '\t'].map((d) => [d, header.split(d).length - 1] as const);
+  counts.sort((a, b) => b[1] - a[1]);
+  const best = counts[0];
+  return best && best[1] > 0 ? best[0] : ',';
+}
+
+function splitLine(line: string, delimiter: string): string[] {
+  const parsed = Papa.parse<string[]>(line, { delimiter, header: false });
+  return parsed.data[0] ?? [];
+}
+
+interface Columns {
+  readonly names: string[];
+  readonly index: Partial<Record<BaseColumn, number>>;
+  readonly extras: { key: string; index: number }[];
+  readonly form: TableForm | undefined;
+  /** Rows can be read: sex, both ages and one baseline form are present. */
+  readonly usable: boolean;
+}
+
+/** Collects problems up to {@link MAX_REPORTED_PROBLEMS}, counting the rest. */
+class Problems {
+  readonly list: TableFileIssue[] = [];
+  total = 0;
+  add(issue: TableFileIssue): void {
+    this.total++;
+    if (this.list.length < MAX_REPORTED_PROBLEMS) this.list.push(issue);
+  }
+  result(): TableFileIssue[] {
+    const sorted = [...this.list].sort((a, b) => (a.line ?? 0) - (b.line ?? 0));
+    if (this.total > this.list.length) {
+      sorted.push({
+        code: 'too-many-problems',
+        path: [],
+        message: `… and ${plural(this.total - this.list.length, 'more problem', 'more problems')} not listed; fix the ones above and check again`,
+      });
+    }
+    return sorted;
+  }
+}
+
+function where(line: number | undefined, column: string | undefined, detail: boolean): string {
+  if (line !== undefined && column !== undefined) return `Row ${line}, ${detail ? 'detail' : 'column'} ${column}: `;
+  if (line !== undefined) return `Row ${line}: `;
+  return '';
+}
+
+function issueAt(code: string, line: number | undefined, column: string | undefined, message: string, path: (string | number)[] = [], detail = false): TableFileIssue {
+  return {
+    code,
+    path,
+    message: `${where(line, column, detail)}${message}`,
+    ...(line !== undefined ? { line } : {}),
+    ...(column !== undefined ? { column } : {}),
+  };
+}
+
+interface RowStratum {
+  readonly line: number;
+  readonly stratum: Partial<Stratum>;
+  /** Sex, ages and extra values all valid: the row takes part in the band checks. */
+  readonly placed: boolean;
+  readonly valid: boolean;
+}
+
+/** One file being read: details and header first, then rows block by block, then the whole-table checks. */
+class TableCsvReader {
+  readonly problems = new Problems();
+  readonly details: { key: string; value: string; line: number }[] = [];
+  readonly rows: RowStratum[] = [];
+  readonly previewRows: { line: number; cells: string[] }[] = [];
+  rowCount = 0;
+  stopped = false;
+  delimiter = ',';
+  columns: Columns | undefined;
+  body = '';
+  bodyFirstLine = 1;
+  private readonly table: Partial<Record<keyof PopulationTable, unknown>> = {};
+
+  constructor(readonly text: string) {}
+
+  /** Reads the details and the header. False when the file cannot be read further. */
+  open(): boolean {
+    const bytes = utf8Length(this.text);
+    if (bytes > MAX_TABLE_FILE_BYTES) {
+      this.problems.add(
+        issueAt('file-too-large', undefined, undefined, `The file is ${(bytes / 1024 / 1024).toFixed(1)} MB; the largest accepted is ${MAX_TABLE_FILE_BYTES / 1024 / 1024} MB. Split the table into smaller tables`),
+      );
+      return false;
+    }
+    const text = this.text.startsWith('\uFEFF') ? this.text.slice(1) : this.text;
+    if (text.trim() === '') {
+      this.problems.add(issueAt('empty-file', undefined, undefined, 'The file is empty; a table file needs its details, a header row and at least one stratum row (see docs/table-format.md)'));
+      return false;
+    }
+    const lines = leadingLines(text);
+    const headerLine = lines[lines.length - 1];
+    const isHeader = headerLine !== undefined && !isBlankLine(headerLine.text) && !isDetailLine(headerLine.text);
+    this.delimiter = isHeader ? guessDelimiter(headerLine.text) : ',';
+    for (const l of isHeader ? lines.slice(0, -1) : lines) this.readDetailLine(l.text, l.line);
+    if (!isHeader || headerLine === undefined) {
+      this.problems.add(issueAt('no-header', undefined, undefined, 'The file has no column header: after the "# key: value" details, a row must name the columns (e.g. sex,age_from,age_to,risk)'));
+      return false;
+    }
+    this.columns = this.readHeader(splitLine(headerLine.text, this.delimiter), headerLine.line);
+    this.body = text.slice(headerLine.end);
+    this.bodyFirstLine = headerLine.line + 1;
+    return true;
+  }
+
+  private readDetailLine(raw: string, line: number): void {
+    if (isBlankLine(raw)) return;
+    const cells = splitLine(raw, this.delimiter);
+    let last = cells.length - 1;
+    while (last > 0 && (cells[last] ?? '').trim() === '') last--;
+    const joined = cells.slice(0, last + 1).join(this.delimiter).trim();
+    const body = joined.replace(/^#\s*/, '');
+    const colon = body.indexOf(':');
+    if (colon < 0) {
+      this.problems.add(issueAt('detail-format', line, undefined, `A detail line must read "# key: value", e.g. "# title: …"; found "${joined}"`));
+      return;
+    }
+    const key = normaliseName(body.slice(0, colon));
+    const value = body.slice(colon + 1).trim();
+    if (!(DETAIL_KEYS as readonly string[]).includes(key)) {
+      this.problems.add(issueAt('unknown-detail', line, key, `"${key}" is not a table detail; the details are ${DETAIL_KEYS.join(', ')}`, [], true));
+      return;
+    }
+    if (this.details.some((d) => d.key === key)) {
+      this.problems.add(issueAt('duplicate-detail', line, key, `"${key}" is given twice; give each detail once`, [], true));
+      return;
+    }
+    this.details.push({ key, value, line });
+    this.readDetail(key as DetailKey, value, line);
+  }
+
+  private readDetail(key: DetailKey, value: string, line: number): void {
+    const field = DETAIL_FIELD[key];
+    let input: unknown = value;
+    if (key === 'horizon_years' || key === 'year') {
+      if (value === '') {
+        this.problems.add(issueAt('required', line, key, `The ${key === 'year' ? 'year' : 'horizon'} is empty`, [field], true));
+        return;
+      }
+      const n = readNumber(value, key);
+      if (typeof n !== 'number') {
+        this.problems.add(issueAt(n.code, line, key, n.message, [field], true));
+        return;
+      }
+      input = n;
+    } else if (key === 'illustrative') {
+      const v = value.toLowerCase();
+      if (v === 'true' || v === 'yes') input = true;
+      else if (v === 'false' || v === 'no' || v === '') input = false;
+      else {
+        this.problems.add(issueAt('invalid-choice', line, key, `Illustrative must be true or false (yes or no); found "${value}"`, [field], true));
+        return;
+      }
+    }
+    const parsed = populationTableSchema.shape[field].safeParse(input, { reportInput: true });
+    if (!parsed.success) {
+      for (const issue of toIssues(parsed.error.issues)) this.problems.add(issueAt(issue.code, line, key, issue.message, [field], true));
+      return;
+    }
+    this.table[field] = parsed.data;
+  }
+
+  private readHeader(cells: string[], line: number): Columns {
+    let width = cells.length;
+    while (width > 0 && (cells[width - 1] ?? '').trim() === '') width--;
+    const names = cells.slice(0, width).map(normaliseName);
+    const index: Partial<Record<BaseColumn, number>> = {};
+    const extras: { key: string; index: number }[] = [];
+    const seen = new Set<string>();
+    names.forEach((name, i) => {
+      if (name === '') {
+        this.problems.add(issueAt('unknown-column', line, `#${i + 1}`, `Column ${i + 1} of the header has no name; name it or remove the column`));
+        return;
+      }
+      if (seen.has(name)) {
+        this.problems.add(issueAt('duplicate-column', line, name, `The column "${name}" appears twice; keep one`));
+        return;
+      }
+      seen.add(name);
+      if ((BASE_COLUMNS as readonly string[]).includes(name)) {
+        index[name as BaseColumn] = i;
+      } else if (name.startsWith(STRATUM_COLUMN_PREFIX)) {
+        const key = name.slice(STRATUM_COLUMN_PREFIX.length);
+        if (!STRATUM_KEY_PATTERN.test(key)) {
+          this.problems.add(issueAt('unknown-column', line, name, `"${name}" is not a usable extra stratum: after "${STRATUM_COLUMN_PREFIX}" write a name starting with a letter, using letters, digits and "_" (e.g. stratum_region)`));
+          return;
+        }
+        extras.push({ key, index: i });
+      } else {
+        this.problems.add(
+          issueAt('unknown-column', line, name, `"${name}" is not a known column; the columns are ${BASE_COLUMNS.join(', ')}, and extra strata named ${STRATUM_COLUMN_PREFIX}<name> (e.g. stratum_region)`),
+        );
+      }
+    });
+    for (const required of ['sex', 'age_from', 'age_to'] as const) {
+      if (index[required] === undefined) this.problems.add(issueAt('missing-column', line, required, `The column "${required}" is missing from the header`));
+    }
+    const hasRisk = index.risk !== undefined;
+    const hasRate = index.rate !== undefined || index.person_years !== undefined;
+    let form: TableForm | undefined;
+    if (hasRisk && hasRate) {
+      this.problems.add(issueAt('mixed-baseline-forms', line, 'risk', 'The header has both a risk column and rate columns; a table gives either risks (column risk) or rates (columns rate and person_years)'));
+    } else if (hasRisk) {
+      form = 'risk';
+    } else if (hasRate) {
+      if (index.rate === undefined) this.problems.add(issueAt('missing-column', line, 'rate', 'The column "rate" is missing: person_years needs a rate column beside it'));
+      else if (index.person_years === undefined) this.problems.add(issueAt('missing-column', line, 'person_years', 'The column "person_years" is missing: a rate needs its person-years (e.g. 1000 for a rate per 1000 person-years)'));
+      else form = 'rate';
+    } else {
+      this.problems.add(issueAt('missing-column', line, 'risk', 'The header needs either a risk column, or rate and person_years columns'));
+    }
+    if (names.length > 0 && !names.some((n) => (BASE_COLUMNS as readonly string[]).includes(n) || n.startsWith(STRATUM_COLUMN_PREFIX))) {
+      this.problems.add(
+        issueAt('no-header', line, undefined, `This row should be the column header (e.g. sex,age_from,age_to,risk) but names no known column; found "${cells.join(this.delimiter)}"`),
+      );
+    }
+    const usable = index.sex !== undefined && index.age_from !== undefined && index.age_to !== undefined && form !== undefined;
+    return { names, index, extras, form, usable };
+  }
+
+  /** Reads one block of the body. False once reading must stop (too many rows). */
+  feed(block: string, firstLine: number): boolean {
+    if (this.stopped) return false;
+    const parsed = Papa.parse<string[]>(block, { delimiter: this.delimiter, header: false, skipEmptyLines: false });
+    for (const error of parsed.errors) {
+      const line = firstLine + (error.row ?? 0);
+      const message = error.type === 'Quotes' ? 'a quoted cell is not closed or has a stray quotation mark; check the quotation marks' : error.message;
+      this.problems.add(issueAt('csv-syntax', line, undefined, message));
+    }
+    const rows = parsed.data;
+    // A block ends after a line break, so its last "row" is the empty rest.
+    const count = block.endsWith('\n') || block.endsWith('\r') ? rows.length - 1 : rows.length;
+    for (let i = 0; i < count; i++) {
+      const cells = rows[i] ?? [];
+      if (cells.every((c) => c.trim() === '')) continue;
+      this.rowCount++;
+      if (this.rowCount > MAX_TABLE_ROWS) {
+        this.problems.add(issueAt('too-many-rows', firstLine + i, undefined, `The file has more than ${MAX_TABLE_ROWS.toLocaleString('en-GB')} stratum rows, the most accepted; split the table into smaller tables`));
+        this.stopped = true;
+        return false;
+      }
+      if (this.previewRows.length < PREVIEW_ROWS) this.previewRows.push({ line: firstLine + i, cells });
+      this.readRow(cells, firstLine + i);
+    }
+    return true;
+  }
+
+  private readRow(cells: string[], line: number): void {
+    const columns = this.columns;
+    if (!columns?.usable) return;
+    const width = columns.names.length;
+    if (cells.length > width && cells.slice(width).some((c) => c.trim() !== '')) {
+      this.problems.add(issueAt('cell-count', line, undefined, this.cellCountMessage(cells, width)));
+      this.rows.push({ line, stratum: {}, placed: false, valid: false });
+      return;
+    }
+    const stratum: Partial<Record<keyof Stratum, unknown>> = {};
+    const bad = new Set<string>();
+    const cell = (i: number | undefined) => (i === undefined ? undefined : (cells[i] ?? '').trim());
+    const problem = (code: string, column: string, message: string, field: string) => {
+      bad.add(field);
+      this.problems.add(issueAt(code, line, column, message, ['strata', this.rows.length, field]));
+    };
+
+    const sex = cell(columns.index.sex);
+    if (sex === '' || sex === undefined) problem('required', 'sex', 'The sex is empty; write female, male or any', 'sex');
+    else {
+      const parsed = stratumFieldsSchema.shape.sex.safeParse(sex.toLowerCase());
+      if (parsed.success) stratum.sex = parsed.data;
+      else problem('invalid-choice', 'sex', `"${sex}" is not a sex here; write female, male or any`, 'sex');
+    }
+
+    const numeric: NumericColumn[] = ['age_from', 'age_to', ...(columns.form === 'risk' ? (['risk'] as const) : (['rate', 'person_years'] as const))];
+    for (const column of numeric) {
+      const field = COLUMN_FIELD[column];
+      const value = cell(columns.index[column]);
+      if (value === '' || value === undefined) {
+        problem('required', column, `The cell is empty; ${describeColumn(column)} is required`, field);
+        continue;
+      }
+      const n = readNumber(value, column);
+      if (typeof n !== 'number') {
+        problem(n.code, column, n.message, field);
+        continue;
+      }
+      const parsed = stratumFieldsSchema.shape[field].safeParse(n, { reportInput: true });
+      if (parsed.success) stratum[field] = parsed.data;
+      else for (const issue of toIssues(parsed.error.issues)) problem(issue.code, column, issue.message, field);
+    }
+
+    if (columns.extras.length > 0) {
+      const extra: Record<string, string> = {};
+      for (const { key, index } of columns.extras) {
+        const value = cell(index) ?? '';
+        const column = `${STRATUM_COLUMN_PREFIX}${key}`;
+        if (value === '') problem('required', column, `The cell is empty; every row gives its ${key}`, 'extra');
+        else {
+          const parsed = stratumFieldsSchema.shape.extra.unwrap().valueType.safeParse(value);
+          if (parsed.success) extra[key] = parsed.data;
+          else for (const issue of toIssues(parsed.error.issues)) problem(issue.code, column, issue.message, 'extra');
+        }
+      }
+      stratum.extra = extra;
+    }
+
+    const placed = !bad.has('sex') && !bad.has('ageFrom') && !bad.has('ageTo') && !bad.has('extra');
+    if (placed && bad.size === 0) {
+      checkStratum(stratum as Stratum, (path, code, message) => {
+        const field = String(path[0]);
+        bad.add(field);
+        this.problems.add(issueAt(code, line, FIELD_COLUMN[field] ?? field, message, ['strata', this.rows.length, field]));
+      });
+    }
+    const orderBad = bad.has('ageTo') && placed;
+    this.rows.push({ line, stratum: stratum as Partial<Stratum>, placed: placed && !orderBad, valid: bad.size === 0 });
+  }
+
+  private cellCountMessage(cells: string[], width: number): string {
+    const base = `The row has ${cells.length} cells but the header names ${width} columns.`;
+    // "0,08" in a comma-separated file arrives as the cells "0" and "08": digits on both sides.
+    const looksSplit = cells.some((c, i) => i > 0 && /^\s*\d+\s*$/.test(c) && /^\s*[+-]?\d+\s*$/.test(cells[i - 1] ?? ''));
+    return looksSplit && this.delimiter === ','
+      ? `${base} A number written with a decimal comma (e.g. 0,08) splits into two cells in a comma-separated file: write numbers with a decimal point (0.08)`
+      : `${base} Check for a stray "${this.delimiter === '\t' ? 'tab' : this.delimiter}" in a cell, or put quotation marks around a cell that contains one`;
+  }
+
+  /** The whole-file checks, then the table or the problems. */
+  finish(): TableCsvResult {
+    const preview = this.preview();
+    const columns = this.columns;
+    if (columns) {
+      for (const key of REQUIRED_DETAILS) {
+        if (!this.details.some((d) => d.key === key)) {
+          this.problems.add(issueAt('required', undefined, key, `The detail "${key}" is missing; add a line "# ${key}: …" above the column header`, [DETAIL_FIELD[key]]));
+        }
+      }
+      if (columns.form === 'risk' && !this.details.some((d) => d.key === 'horizon_years')) {
+        this.problems.add(issueAt('horizon-required', undefined, 'horizon_years', 'The detail "horizon_years" is missing: a table of risks must say over how many years the risks run ("# horizon_years: 10")', ['horizonYears']));
+      }
+      if (columns.usable && this.rowCount === 0 && !this.stopped) {
+        this.problems.add(issueAt('no-rows', undefined, undefined, 'The file has a header but no stratum rows'));
+      }
+      const placed = this.rows.filter((r) => r.placed);
+      checkStrataLayout(
+        placed.map((r) => r.stratum as Stratum),
+        (path, code, message) => {
+          const row = placed[Number(path[0])];
+          const field = String(path[1]);
+          this.problems.add(issueAt(code, row?.line, FIELD_COLUMN[field] ?? field, message, ['strata', this.rows.indexOf(row ?? placed[0]!), field]));
+        },
+        (i) => `row ${placed[i]?.line ?? '?'}`,
+      );
+    }
+    if (this.problems.total > 0) return { ok: false, issues: this.problems.result(), preview };
+
+    if (!preview) return { ok: false, issues: [issueAt('no-header', undefined, undefined, 'The file has no column header')], preview };
+    // Every rule of populationTableSchema was checked above, field by field and row by row;
+    // re-parsing 100,000 strata at the end would block a page for a second, so the table is
+    // assembled directly (tests check that what comes out always passes parseTable).
+    const title = typeof this.table.title === 'string' ? this.table.title : '';
+    const table = {
+      ...this.table,
+      id: typeof this.table.id === 'string' ? this.table.id : idFromTitle(title),
+      illustrative: this.table.illustrative === true,
+      strata: this.rows.map((r) => r.stratum as Stratum),
+    } as PopulationTable;
+    return { ok: true, value: orderedTable(table), preview };
+  }
+
+  preview(): TableCsvPreview | undefined {
+    if (!this.columns) return undefined;
+    return { delimiter: this.delimiter, details: this.details, columns: this.columns.names, rows: this.previewRows, rowCount: this.rowCount };
+  }
+}
+
+/** The table's fields in schema order, as parsing would give them (so results compare equal field for field). */
+function orderedTable(t: PopulationTable): PopulationTable {
+  return {
+    id: t.id,
+    title: t.title,
+    outcome: t.outcome,
+    ...(t.horizonYears === undefined ? {} : { horizonYears: t.horizonYears }),
+    population: t.population,
+    source: t.source,
+    year: t.year,
+    illustrative: t.illustrative,
+    strata: t.strata,
+  };
+}
+
+function describeColumn(column: NumericColumn): string {
+  switch (column) {
+    case 'age_from':
+      return 'the band start age';
+    case 'age_to':
+      return 'the band end age';
+    case 'risk':
+      return 'the risk';
+    case 'rate':
+      return 'the rate';
+    case 'person_years':
+      return 'the person-years';
+  }
+}
+
+/**
+ * Cuts `body` into blocks of about `size` characters, each ending at a line break outside
+ * quotes (an even count of quotation marks so far), so no row is split between blocks.
+ */
+export function* blocksOf(body: string, size: number): Generator<{ text: string; firstLine: number; end: number }> {
+  let start = 0;
+  let line = 0;
+  const step = Math.max(1, Math.floor(size));
+  while (start < body.length) {
+    let end = Math.min(body.length, start + step);
+    let quotes = countChar(body, '"', start, end);
+    while (end < body.length && (quotes % 2 === 1 || body.charCodeAt(end - 1) !== 10)) {
+      const nl = body.indexOf('\n', end);
+      const next = nl < 0 ? body.length : nl + 1;
+      quotes += countChar(body, '"', end, next);
+      end = next;
+    }
+    const text = body.slice(start, end);
+    yield { text, firstLine: line, end };
+    line += countChar(text, '\n', 0, text.length);
+    start = end;
+  }
+}
+
+function countChar(text: string, char: string, from: number, to: number): number {
+  let n = 0;
+  for (let i = text.indexOf(char, from); i >= 0 && i < to; i = text.indexOf(char, i + 1)) n++;
+  return n;
+}
+
+/**
+ * Read a table file in one go (the command line, tests).
+ *
+ * @example
+ * parseTableCsv('# title: T\n# outcome: O\n# horizon_years: 10\n# population: P\n# source: S\n# year: 2024\nsex,age_from,age_to,risk\nany,30,79,0.05\n')
+ * //=> { ok: true, value: { id: 't', title: 'T', …, strata: [{ sex: 'any', ageFrom: 30, ageTo: 79, risk: 0.05 }] }, preview: … }
+ */
+export function parseTableCsv(text: string): TableCsvResult {
+  const reader = new TableCsvReader(text);
+  if (!reader.open()) return reader.finish();
+  for (const block of blocksOf(reader.body, DEFAULT_CHUNK_CHARS)) {
+    if (!reader.feed(block.text, reader.bodyFirstLine + block.firstLine)) break;
+  }
+  return reader.finish();
+}
+
+/**
+ * Read a table file block by block, awaiting `pause` between blocks and reporting progress,
+ * so a page stays responsive on a large file. Same result as {@link parseTableCsv}.
+ */
+export async function parseTableCsvInChunks(text: string, options: ChunkedOptions = {}): Promise<TableCsvResult> {
+  const reader = new TableCsvReader(text);
+  if (!reader.open()) return reader.finish();
+  const total = reader.body.length;
+  for (const block of blocksOf(reader.body, options.chunkChars ?? DEFAULT_CHUNK_CHARS)) {
+    if (options.signal?.aborted) {
+      return { ok: false, issues: [issueAt('cancelled', undefined, undefined, 'The import was cancelled; nothing was saved')], preview: reader.preview() };
+    }
+    const more = reader.feed(block.text, reader.bodyFirstLine + block.firstLine);
+    options.onProgress?.({ charsDone: block.end, charsTotal: total, rowsDone: reader.rowCount });
+    if (!more) break;
+    if (options.pause) await options.pause();
+  }
+  if (options.signal?.aborted) {
+    return { ok: false, issues: [issueAt('cancelled', undefined, undefined, 'The import was cancelled; nothing was saved')], preview: reader.preview() };
+  }
+  return reader.finish();
+}
+
+// ---------------------------------------------------------------------------------------------
+// Writing
+
+function numberCell(n: number): string {
+  return String(n);
+}
+
+/**
+ * Write a table in the same format {@link parseTableCsv} reads: details, header, one row per
+ * stratum in the table's order. Reading the result back gives the same table.
+ */
+export function exportTableCsv(table: PopulationTable): string {
+  const detailValue: Record<DetailKey, string | undefined> = {
+    id: table.id,
+    title: table.title,
+    outcome: table.outcome,
+    horizon_years: table.horizonYears === undefined ? undefined : numberCell(table.horizonYears),
+    population: table.population,
+    source: table.source,
+    year: numberCell(table.year),
+    illustrative: table.illustrative ? 'true' : 'false',
+  };
+  const lines: string[] = [];
+  for (const key of DETAIL_KEYS) {
+    const value = detailValue[key];
+    if (value !== undefined) lines.push(Papa.unparse([[`# ${key}: ${value}`]], { newline: '\n' }));
+  }
+  const form: TableForm = table.strata[0]?.risk !== undefined ? 'risk' : 'rate';
+  const keys = Object.keys(table.strata[0]?.extra ?? {}).sort();
+  const header = ['sex', 'age_from', 'age_to', ...keys.map((k) => `${STRATUM_COLUMN_PREFIX}${k}`), ...(form === 'risk' ? ['risk'] : ['rate', 'person_years'])];
+  const rows = table.strata.map((s) => [
+    s.sex,
+    numberCell(s.ageFrom),
+    numberCell(s.ageTo),
+    ...keys.map((k) => s.extra?.[k] ?? ''),
+    ...(form === 'risk' ? [numberCell(s.risk ?? Number.NaN)] : [numberCell(s.rate ?? Number.NaN), numberCell(s.perPersonYears ?? Number.NaN)]),
+  ]);
+  lines.push(Papa.unparse([header, ...rows], { newline: '\n' }));
+  return `${lines.join('\n')}\n`;
+}
