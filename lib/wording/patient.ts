@@ -127,9 +127,10 @@ function nonEventsSentence(count: number, denominator: number, risk: number): st
   return `The other ${formatCount(denominator - count)} out of ${d} will not.`;
 }
 
-function groupSentence(lead: string, people: string, group: string, count: number, denominator: number, risk: number, outcome: string, horizonYears: number): string {
+function groupSentence(lead: string, people: string, who: string, count: number, denominator: number, risk: number, outcome: string, horizonYears: number): string {
   return [
-    `${lead} ${formatCount(denominator)} ${people} like you ${group}.`,
+    `${lead} ${formatCount(denominator)} ${people} like you.`,
+    who,
     `${capitalise(inTheNext(horizonYears))}, ${eventsOutOf(count, denominator, risk)} will have ${outcome}.`,
     nonEventsSentence(count, denominator, risk),
   ].join(' ');
@@ -200,7 +201,7 @@ function requiredIssues(input: PatientTextInput): Issue[] {
  * @example
  * // P0 = 0.08, P1 = 0.12 (0.10 to 0.15) over 10 years, D = 100
  * patientText({ result, wording: { outcome: 'heart failure needing hospital care', exposure: 'HbA1c in the prediabetes range', comparison: 'normal HbA1c' }, people: 'women aged 50 to 59', horizonYears: 10 })
- * //=> { ok: true, value: { referenceSentence: "Think of 100 women aged 50 to 59 like you with normal HbA1c. In the next 10 years, about 8 out of 100 will have heart failure needing hospital care. The other 92 out of 100 will not.", differenceSentence: "That is about 4 more out of 100.", … } }
+ * //=> { ok: true, value: { referenceSentence: "Think of 100 women aged 50 to 59 like you. All of them have normal HbA1c. In the next 10 years, about 8 out of 100 will have heart failure needing hospital care. The other 92 out of 100 will not.", differenceSentence: "That is about 4 more out of 100.", … } }
  */
 export function patientText(input: PatientTextInput): Result<PatientText> {
   const issues = requiredIssues(input);
@@ -221,8 +222,11 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
   const refLayout = referenceLayout(counts);
   const expLayout = exposedLayout(counts);
 
-  const referenceSentence = groupSentence('Think of', people, comparisonGroup, counts.referenceEvents, D, result.referenceRisk, outcome, horizonYears);
-  const exposedSentence = groupSentence('Now think of', people, exposedGroup, counts.exposedEvents, D, result.exposedRisk.estimate, outcome, horizonYears);
+  // Short sentences: who the group is, then what it has, then the two frames.
+  const referenceWho = comparison ? `All of them have ${comparison}.` : `None of them have ${exposure}.`;
+  const exposedWho = `All of them have ${exposure}.`;
+  const referenceSentence = groupSentence('Think of', people, referenceWho, counts.referenceEvents, D, result.referenceRisk, outcome, horizonYears);
+  const exposedSentence = groupSentence('Now think of', people, exposedWho, counts.exposedEvents, D, result.exposedRisk.estimate, outcome, horizonYears);
 
   const diff = counts.exposedEvents - counts.referenceEvents;
   const direction = diff > 0 ? 'more' : diff < 0 ? 'fewer' : 'same';

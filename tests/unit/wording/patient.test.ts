@@ -34,7 +34,7 @@ const NONE = compute({ baseline: { risk: 0.2, years: 10 }, effect: { measure: 'R
 describe('patientText: the sentences (hand-computed counts)', () => {
   it('states both frames for the reference group, with the group and the time frame', () => {
     expect(text(HARM).referenceSentence).toBe(
-      'Think of 100 women aged 50 to 59 like you with normal HbA1c. In the next 10 years, about 8 out of 100 will have heart failure needing hospital care. The other 92 out of 100 will not.',
+      'Think of 100 women aged 50 to 59 like you. All of them have normal HbA1c. In the next 10 years, about 8 out of 100 will have heart failure needing hospital care. The other 92 out of 100 will not.',
     );
   });
 
@@ -87,7 +87,7 @@ describe('patientText: the sentences (hand-computed counts)', () => {
     const t = text(r);
     expect(t.denominator).toBe(1000);
     expect(t.referenceSentence).toBe(
-      'Think of 1,000 women aged 50 to 59 like you with normal HbA1c. In the next 5 years, about 4 out of 1,000 will have heart failure needing hospital care. The other 996 out of 1,000 will not.',
+      'Think of 1,000 women aged 50 to 59 like you. All of them have normal HbA1c. In the next 5 years, about 4 out of 1,000 will have heart failure needing hospital care. The other 996 out of 1,000 will not.',
     );
     expect(t.differenceSentence).toBe('That is about 2 more out of 1,000.');
   });
@@ -199,5 +199,11 @@ describe('patientText: phrasing rules over random results (fast-check, 1000 runs
       }),
       { numRuns: 1000 },
     );
+  });
+});
+
+describe('patientText: the group sentences without a worded comparison', () => {
+  it('says the reference group does not have the exposure', () => {
+    expect(text(HARM, { outcome: 'a stroke', exposure: 'high blood pressure' }).referenceSentence).toContain('None of them have high blood pressure.');
   });
 });
