@@ -396,3 +396,14 @@ describe('reading in blocks', () => {
     expect(utf8Length('aé€😀')).toBe(10);
   });
 });
+
+describe('docs/table-format.md', () => {
+  it('its example file is a valid table', async () => {
+    const { readFile } = await import('node:fs/promises');
+    const doc = await readFile(new URL('../../../docs/table-format.md', import.meta.url), 'utf8');
+    const example = /```csv\n([\s\S]*?)```/.exec(doc)?.[1] ?? '';
+    const r = parseTableCsv(example);
+    expect(r.ok ? r.value.strata.length : r.issues).toBe(10);
+    expect(r.ok && r.value.id).toBe('north-heart-failure-10y');
+  });
+});
