@@ -139,9 +139,9 @@ export function stratumGroupKey(s: Pick<Stratum, 'sex' | 'extra'>): string {
   return key;
 }
 
-/** Words for a group in messages: "female", "any sex, region north". */
+/** Words for a group in messages: "female", "both sexes, region north". */
 export function describeGroup(s: Pick<Stratum, 'sex' | 'extra'>): string {
-  const parts = [s.sex === 'any' ? 'any sex' : s.sex];
+  const parts = [s.sex === 'any' ? 'both sexes' : s.sex];
   for (const [key, value] of Object.entries(s.extra ?? {})) parts.push(`${key} ${value}`);
   return parts.join(', ');
 }
@@ -276,7 +276,7 @@ export function checkStrataLayout(
       } else if (s.ageFrom <= last.ageTo) {
         report([index, 'ageFrom'], 'overlapping-age-bands', `${capitalised(label(index))} (${who()}, ages ${s.ageFrom} to ${s.ageTo}) overlaps ${label(reach)} (ages ${last.ageFrom} to ${last.ageTo}); both ends of a band are included, so the next band starts at ${last.ageTo + 1}`);
       } else if (s.ageFrom > last.ageTo + 1) {
-        report([index, 'ageFrom'], 'age-band-gap', `Ages ${last.ageTo + 1} to ${s.ageFrom - 1} are missing for ${who()}: ${label(reach)} ends at ${last.ageTo} and ${label(index)} starts at ${s.ageFrom}`);
+        report([index, 'ageFrom'], 'age-band-gap', `${s.ageFrom - 1 === last.ageTo + 1 ? `Age ${last.ageTo + 1} is` : `Ages ${last.ageTo + 1} to ${s.ageFrom - 1} are`} missing for ${who()}: ${label(reach)} ends at ${last.ageTo} and ${label(index)} starts at ${s.ageFrom}`);
       }
       if (s.ageTo > last.ageTo) reach = index;
     }

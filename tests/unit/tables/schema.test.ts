@@ -181,3 +181,10 @@ describe('parseTable: whole-table rules', () => {
     expect(codes('a table')).toEqual(['wrong-type']);
   });
 });
+
+describe('parseTable: messages', () => {
+  it('names a one-year gap as one age, and "both sexes" for sex "any"', () => {
+    const r = parseTable(table({ strata: [{ sex: 'any', ageFrom: 30, ageTo: 39, risk: 0.1 }, { sex: 'any', ageFrom: 41, ageTo: 49, risk: 0.1 }] }));
+    expect(!r.ok && r.issues[0]?.message).toBe('Age 40 is missing for both sexes: stratum 1 ends at 39 and stratum 2 starts at 41');
+  });
+});
