@@ -21,11 +21,10 @@
 import Papa from 'papaparse';
 import type { Issue } from '../result';
 import { toIssues } from '../scenario/issues';
+import { idFromTitle } from './ids';
 import {
   checkStrataLayout,
   checkStratum,
-  ID_PATTERN,
-  MAX_ID,
   MAX_STRATA,
   populationTableSchema,
   STRATUM_KEY_PATTERN,
@@ -115,6 +114,8 @@ export interface ChunkedOptions {
   readonly signal?: AbortSignal;
 }
 
+export { idFromTitle };
+
 /** Bytes of `text` encoded as UTF-8, without allocating the encoding. */
 export function utf8Length(text: string): number {
   let bytes = 0;
@@ -128,19 +129,6 @@ export function utf8Length(text: string): number {
     } else bytes += 3;
   }
   return bytes;
-}
-
-/** An id made from a title: "Heart failure (10 y)" → "heart-failure-10-y". */
-export function idFromTitle(title: string): string {
-  const slug = title
-    .normalize('NFKD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, MAX_ID - 6)
-    .replace(/-+$/, '');
-  return slug && ID_PATTERN.test(slug) ? slug : 'table';
 }
 
 // ---------------------------------------------------------------------------------------------

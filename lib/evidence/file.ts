@@ -1,0 +1,129 @@
+/**
+ * The evidence library as a JSON file, for moving a clinic's entries between browsers and
+ * keeping a copy:
+ *
+ *     { "format": "hundredfold-evidence", "version": 1, "entries": [ {…}, … ] }
+ *
+ * Reading validates every entry and refuses the whole file on any problem, naming the entry
+ * and the field; nothing is half-imported.
+ */
+import { z } from 'zod';
+import { fail, ok, type Issue, type Result } from '../result';
+import { toIssues } from '../scenario/issues';
+import { evidenceEntrySchema, type EvidenceEntry } from './schema';
+
+export const EVIDENCE_FILE_FORMAT = 'hundredfold-evidence';
+/** The file version this program writes and reads. A newer file is refused with a plain reason. */
+export const EVIDENCE_FILE_VERSION = 1;
+/** Most entries in one file: far above any clinic's library (common practice: bound every import). */
+export const MAX_EVIDENCE_ENTRIES = 10_000;
+/** Largest file accepted, in characters (about 20 MB of text at the entry limit would be absurd; 5 MB is ample). */
+export const MAX_EVIDENCE_FILE_CHARS = 5 * 1024 * 1024;
+
+export interface EvidenceFile {
+  readonly format: typeof EVIDENCE_FILE_FORMAT;
+  readonly version: typeof EVIDENCE_FILE_VERSION;
+  readonly entries: readonly EvidenceEntry[];
+}
+
+/** Write entries as an evidence file (two-space indented JSON, one trailing newline). */
+export function exportEvidenceJson(entries: readonly EvidenceEntry[]): string {
+  const file: EvidenceFile = { format: EVIDENCE_FILE_FORMAT, version: EVIDENCE_FILE_VERSION, entries };
+  return `${JSON.stringify(file, null, 2)}\n`;
+}
+
+function describeEntry(index: number, raw: unknown): string {
+  const title = typeof raw === 'object' && raw !== null && typeof (raw as { title?: unknown }).title === 'string' ? (raw as { title: string }).title : '';
+  const short = title.length > 60 ? `${title.slice(0, 57)}…` : title;
+  return short ? `Entry ${index + 1} ("${short}")` : `Entry ${index + 1}`;
+}
+
+function fieldName(path: readonly (string | number)[]): string {
+  return path.length === 0 ? '' : `, ${path.map((p, i) => (typeof p === 'number' ? `[${p}]` : i === 0 ? p : `.${p}`)).join('')}`;
+}
+
+/**
+ * Validate a parsed evidence file. Issues carry the path `["entries", i, …field]` and a
+ * message starting "Entry 3 ("title"), effect.lower: …".
+ */
+export function parseEvidenceFile(input: unknown): Result<EvidenceEntry[]> {
+  if (typeof input !== 'object' || input === null || Array.isArray(input)) {
+    return fail([{ code: 'wrong-type', path: [], message: `This is not a Hundredfold evidence file: expected an object with "format": "${EVIDENCE_FILE_FORMAT}"` }]);
+  }
+  const file = input as Record<string, unknown>;
+  if (file.format !== EVIDENCE_FILE_FORMAT) {
+    return fail([{ code: 'wrong-format', path: ['format'], message: `This is not a Hundredfold evidence file: "format" must be "${EVIDENCE_FILE_FORMAT}"` }]);
+  }
+  if (typeof file.version !== 'number' || !Number.isInteger(file.version) || file.version < 1) {
+    return fail([{ code: 'wrong-version', path: ['version'], message: `The file's "version" must be a whole number; this program reads version ${EVIDENCE_FILE_VERSION}` }]);
+  }
+  if (file.version > EVIDENCE_FILE_VERSION) {
+    return fail([
+      {
+        code: 'newer-version',
+        path: ['version'],
+        message: `The file is version ${file.version}, written by a newer Hundredfold; this one reads version ${EVIDENCE_FILE_VERSION}. Update the program to import it`,
+      },
+    ]);
+  }
+  const issues: Issue[] = [];
+  for (const key of Object.keys(file)) {
+    if (key !== 'format' && key !== 'version' && key !== 'entries') {
+      issues.push({ code: 'unknown-field', path: [key], message: `"${key}" is not a field of an evidence file; the fields are format, version and entries` });
+    }
+  }
+  if (!Array.isArray(file.entries)) {
+    issues.push({ code: file.entries === undefined ? 'required' : 'wrong-type', path: ['entries'], message: 'The file needs "entries": a list of evidence entries' });
+    return fail(issues);
+  }
+  if (file.entries.length > MAX_EVIDENCE_ENTRIES) {
+    issues.push({ code: 'out-of-range', path: ['entries'], message: `The file holds ${file.entries.length} entries; at most ${MAX_EVIDENCE_ENTRIES.toLocaleString('en-GB')} are accepted` });
+    return fail(issues);
+  }
+  const entries: EvidenceEntry[] = [];
+  const firstIndexOf = new Map<string, number>();
+  file.entries.forEach((raw, index) => {
+    const parsed = evidenceEntrySchema.safeParse(raw, { reportInput: true });
+    if (!parsed.success) {
+      for (const issue of toIssues(parsed.error.issues)) {
+        issues.push({ code: issue.code, path: ['entries', index, ...issue.path], message: `${describeEntry(index, raw)}${fieldName(issue.path)}: ${issue.message}` });
+      }
+      return;
+    }
+    const earlier = firstIndexOf.get(parsed.data.id);
+    if (earlier !== undefined) {
+      issues.push({
+        code: 'duplicate-id',
+        path: ['entries', index, 'id'],
+        message: `${describeEntry(index, raw)}, id: the id "${parsed.data.id}" is also used by entry ${earlier + 1}; each entry needs its own id`,
+      });
+      return;
+    }
+    firstIndexOf.set(parsed.data.id, index);
+    entries.push(parsed.data);
+  });
+  return issues.length > 0 ? fail(issues) : ok(entries);
+}
+
+/** Parse JSON text, then validate it as an evidence file. Malformed JSON is an issue, never a throw. */
+export function parseEvidenceJson(text: string): Result<EvidenceEntry[]> {
+  if (text.length > MAX_EVIDENCE_FILE_CHARS) {
+    return fail([{ code: 'file-too-large', path: [], message: `The file is larger than ${MAX_EVIDENCE_FILE_CHARS / 1024 / 1024} MB, the most accepted for an evidence file` }]);
+  }
+  if (text.trim() === '') return fail([{ code: 'empty-file', path: [], message: 'The file is empty' }]);
+  let value: unknown;
+  try {
+    value = JSON.parse(text.startsWith('\uFEFF') ? text.slice(1) : text);
+  } catch (error) {
+    const detail = error instanceof SyntaxError ? error.message : 'unreadable';
+    return fail([{ code: 'invalid-json', path: [], message: `The file is not valid JSON (${detail})` }]);
+  }
+  return parseEvidenceFile(value);
+}
+
+/** The file schema, for documentation and tools; {@link parseEvidenceFile} gives the better messages. */
+export const evidenceFileSchema = z.strictObject({
+  format: z.literal(EVIDENCE_FILE_FORMAT),
+  version: z.literal(EVIDENCE_FILE_VERSION),
+  entries: z.array(evidenceEntrySchema).max(MAX_EVIDENCE_ENTRIES),
+});
