@@ -31,6 +31,14 @@ interface MergeOutcome {
 
 const TEST_NAMES = { hba1c: 'HbA1c', fpg: 'fasting glucose' } as const;
 
+function defaultName(index: number): string {
+  return `checkup [${index}]`;
+}
+
+function capitalised(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
 /**
  * Merges checkups that share a date. Indices in messages and paths are the input's.
  *
@@ -38,7 +46,7 @@ const TEST_NAMES = { hba1c: 'HbA1c', fpg: 'fasting glucose' } as const;
  * mergeSameDate([{ date: '2021-03-04', hba1c: { value: 6.1, unit: '%' } }, { date: '2021-03-04', fpg: { value: 5.9, unit: 'mmol/L' } }])
  * //=> { checkups: [{ date: '2021-03-04', hba1c: …, fpg: … }], notes: [{ code: 'same-day-merged', … }], issues: [] }
  */
-export function mergeSameDate(checkups: readonly Checkup[]): MergeOutcome {
+export function mergeSameDate(checkups: readonly Checkup[], checkupName: (index: number) => string = defaultName): MergeOutcome {
   const byDate = new Map<string, { merged: Checkup; firstIndex: number }>();
   const notes: Warning[] = [];
   const issues: Issue[] = [];
@@ -68,7 +76,7 @@ export function mergeSameDate(checkups: readonly Checkup[]): MergeOutcome {
         conflicts.push({
           code: 'duplicate-date',
           path: ['checkups', index, test, 'value'],
-          message: `Checkup [${index}] (${checkup.date}) has a different ${TEST_NAMES[test]} (${readingText(later)}) from checkup [${seen.firstIndex}] on the same date (${readingText(earlier)}): keep one result per test and date`,
+          message: `${capitalised(checkupName(index))} (${checkup.date}) has a different ${TEST_NAMES[test]} (${readingText(later)}) from ${checkupName(seen.firstIndex)} on the same date (${readingText(earlier)}): keep one result per test and date`,
         });
       }
       return earlier;
@@ -82,7 +90,7 @@ export function mergeSameDate(checkups: readonly Checkup[]): MergeOutcome {
     seen.merged = { date: checkup.date, ...(hba1c ? { hba1c } : {}), ...(fpg ? { fpg } : {}) };
     notes.push({
       code: 'same-day-merged',
-      message: `Checkups [${seen.firstIndex}] and [${index}] (${checkup.date}) share a date and were merged${kept.length > 0 ? `: ${kept.join('; ')}` : ''}`,
+      message: `${capitalised(checkupName(seen.firstIndex))} and ${checkupName(index)} (${checkup.date}) share a date and were merged${kept.length > 0 ? `: ${kept.join('; ')}` : ''}`,
     });
   });
   const merged = [...byDate.values()].map((entry) => entry.merged).sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
@@ -117,7 +125,7 @@ function historyIssues(zodIssues: readonly z.core.$ZodIssue[]): Issue[] {
 export function parseGlucoseHistory(input: unknown, options: HistoryOptions): Result<GlucoseHistory> {
   const parsed = glucoseHistorySchema(options).safeParse(input, { reportInput: true });
   if (!parsed.success) return fail(historyIssues(parsed.error.issues));
-  const { checkups, notes, issues } = mergeSameDate(parsed.data.checkups);
+  const { checkups, notes, issues } = mergeSameDate(parsed.data.checkups, options.checkupName);
   if (issues.length > 0) return fail(issues);
   return ok({ criteria: parsed.data.criteria, checkups, notes });
 }

@@ -88,6 +88,11 @@ export const fpgReadingSchema = boundedReading('fasting glucose', GLUCOSE_UNITS,
 export interface HistoryOptions {
   /** Today as "YYYY-MM-DD"; a checkup after it is refused. */
   readonly today: string;
+  /**
+   * How messages that name another checkup refer to the one at an input index; default
+   * "checkup [i]". The screen passes "row n".
+   */
+  readonly checkupName?: (index: number) => string;
 }
 
 export function checkupDateSchema({ today }: HistoryOptions) {
