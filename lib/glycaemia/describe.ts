@@ -8,6 +8,7 @@
 import type { ClassifiedCheckup, TestClassification } from './classify';
 import { CRITERIA } from './criteria';
 import { categoryLabel, rangeName, roundTo, TEST_LABELS, yearlyResults } from './format';
+import type { ExposureDefinition } from './exposure';
 import type { Persistence } from './persistence';
 
 /** The caution shown with every classified history (clinician-facing). */
@@ -93,4 +94,16 @@ export function describePersistence(p: Persistence): string {
     parts.push(`The history also has a gap of ${g.months} months (${g.from} to ${g.to}).`);
   }
   return parts.join(' ');
+}
+
+/**
+ * A study's exposure definition in words.
+ *
+ * @example
+ * describeExposure({ category: 'prediabetes', criteria: 'ADA', minYears: 3 })
+ * //=> 'The study's exposure: 3 yearly results in a row in the prediabetes range (ADA).'
+ */
+export function describeExposure(exposure: ExposureDefinition): string {
+  const count = exposure.minYears === 1 ? 'a result' : `${yearlyResults(exposure.minYears)} in a row`;
+  return `The study's exposure: ${count} in the ${rangeName(exposure.category)} (${CRITERIA[exposure.criteria].id}).`;
 }

@@ -105,3 +105,17 @@ export function parsePastedRows(text: string, criteria: CriteriaSet): PasteResul
   });
   return { rows, issues, headerSkipped };
 }
+
+/**
+ * What a paste did, in one sentence for the screen.
+ *
+ * @example
+ * pasteSummary({ rows: [r1, r2], issues: [i1], headerSkipped: true }) //=> 'Added 2 rows (header line skipped). 1 line was not added:'
+ */
+export function pasteSummary(result: PasteResult): string {
+  const n = result.rows.length;
+  const parts = [`Added ${n} row${n === 1 ? '' : 's'}${result.headerSkipped ? ' (header line skipped)' : ''}.`];
+  const bad = result.issues.length;
+  if (bad > 0) parts.push(`${bad} line${bad === 1 ? ' was' : 's were'} not added:`);
+  return parts.join(' ');
+}

@@ -7,7 +7,7 @@
 import type { Warning } from '../result';
 import { classifyHistory } from './classify';
 import { CRITERIA } from './criteria';
-import { decidedByText, describeCheckup, describePersistence, GLYCAEMIA_CAUTION } from './describe';
+import { decidedByText, describeCheckup, describeExposure, describePersistence, GLYCAEMIA_CAUTION } from './describe';
 import { draftsToCheckups, type CheckupDraft, type DraftField } from './draft';
 import type { CriteriaSet, ExposureDefinition, GlycaemicCategory } from './exposure';
 import { categoryLabel } from './format';
@@ -45,6 +45,8 @@ export interface GlucoseHistoryView {
   readonly status: 'empty' | 'invalid' | 'ready';
   readonly criteria: CriteriaSet;
   readonly criteriaName: string;
+  /** Parallel to the drafts: "Row 1", "Row 2", … */
+  readonly rowLabels: readonly string[];
   /** Parallel to the drafts: the errors of each row, by field ("row" for the whole row). */
   readonly rowErrors: readonly RowErrors[];
   /** One line per error, naming row and field, for a summary. */
@@ -57,6 +59,10 @@ export interface GlucoseHistoryView {
   /** Null without an exposure definition or before the rows are valid. */
   readonly match: HistoryMatch | null;
   readonly diabetesRangeNote: Warning | null;
+  /** The study's exposure in words; null without one. */
+  readonly exposureText: string | null;
+  /** One line on what the screen shows: "3 checkups, classified under ADA." */
+  readonly statusText: string;
   readonly caution: string;
 }
 
@@ -87,12 +93,16 @@ export function glucoseHistoryView(input: GlucoseHistoryViewInput): GlucoseHisto
   const rowErrors: RowErrors[] = drafts.map(() => ({}));
   const base = {
     criteria,
+    rowLabels: drafts.map((_, i) => `Row ${i + 1}`),
     criteriaName: CRITERIA[criteria].name,
     caution: GLYCAEMIA_CAUTION,
+    exposureText: exposure ? describeExposure(exposure) : null,
   };
   const empty = { checkups: [], runText: null, notes: [], timeline: null, match: null, diabetesRangeNote: null } as const;
   const { checkups, rowOf } = draftsToCheckups(drafts);
-  if (checkups.length === 0) return { ...base, ...empty, status: 'empty', rowErrors, errorLines: [] };
+  if (checkups.length === 0) {
+    return { ...base, ...empty, status: 'empty', rowErrors, errorLines: [], statusText: 'No checkups yet: add a row, paste rows or load a FHIR file.' };
+  }
 
   const rowName = (index: number) => `row ${(rowOf[index] ?? index) + 1}`;
   const parsed = parseGlucoseHistory({ criteria, checkups }, { today, checkupName: rowName });
@@ -110,7 +120,8 @@ export function glucoseHistoryView(input: GlucoseHistoryViewInput): GlucoseHisto
       if (errors && errors[field] === undefined) errors[field] = issue.message;
       errorLines.push(`Row ${row + 1}, ${FIELD_WORDS[field]}: ${issue.message}`);
     }
-    return { ...base, ...empty, status: 'invalid', rowErrors, errorLines };
+    const n = errorLines.length;
+    return { ...base, ...empty, status: 'invalid', rowErrors, errorLines, statusText: `${n} problem${n === 1 ? '' : 's'} in the rows; nothing is classified until ${n === 1 ? 'it is' : 'they are'} fixed:` };
   }
 
   const history = parsed.value;
@@ -120,6 +131,7 @@ export function glucoseHistoryView(input: GlucoseHistoryViewInput): GlucoseHisto
   return {
     ...base,
     status: 'ready',
+    statusText: `${classified.length} checkup${classified.length === 1 ? '' : 's'}, classified under ${CRITERIA[criteria].id}.`,
     rowErrors,
     errorLines: [],
     checkups: classified.map((c) => ({

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { importFhirGlucose, importFhirGlucoseJson } from '@/lib/fhir/importGlucose';
 import { readObservation } from '@/lib/fhir/observation';
+import { fhirImportSummary, skipLine } from '@/lib/fhir/summary';
 import { parseGlucoseHistory } from '@/lib/glycaemia/parse';
 
 /*
@@ -241,5 +242,15 @@ describe('importFhirGlucose: files that are not a Bundle or an Observation', () 
     for (const odd of [undefined, 1, 'x', { resourceType: 'Observation' }, { resourceType: 'Observation', status: 'final', code: 'x' }, { resourceType: 'Observation', status: 'final', code: { coding: [null, 1, { system: LOINC }] } }]) {
       expect(readObservation(odd, TODAY).ok).toBe(false);
     }
+  });
+});
+
+describe('fhirImportSummary and skipLine', () => {
+  it('say what the import did', () => {
+    const v = imported(bundle(obs({ date: '2021-03-01' }), obs({ id: 'x', status: 'preliminary' }), { resourceType: 'Patient' }));
+    expect(fhirImportSummary(v)).toBe('Read 3 resources: 1 checkup added, 2 resources skipped:');
+    expect(v.skipped.map(skipLine)).toEqual(['Entry 1 (id x): status "preliminary": only final and amended results are used', 'Entry 2: a Patient resource, not an Observation']);
+    expect(fhirImportSummary(imported(obs()))).toBe('Read 1 resource: 1 checkup added.');
+    expect(skipLine({ entry: null, id: null, reason: 'no status' })).toBe('The Observation: no status');
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { classifyCheckup, classifyHistory } from '@/lib/glycaemia/classify';
-import { describeCheckup, describePersistence, yearsText } from '@/lib/glycaemia/describe';
+import { describeCheckup, describeExposure, describePersistence, yearsText } from '@/lib/glycaemia/describe';
 import { persistence } from '@/lib/glycaemia/persistence';
 import { glycaemiaReport } from '@/lib/glycaemia/report';
 import type { Checkup } from '@/lib/glycaemia/schema';
@@ -90,5 +90,12 @@ describe('glycaemiaReport', () => {
     expect(report.diabetesRangeNote?.code).toBe('diabetes-range-latest');
     expect(report.caution).toMatch(/not a diagnosis/);
     expect(JSON.stringify(report)).not.toMatch(/\bdiabetes\b(?![ -]range)/i);
+  });
+});
+
+describe('describeExposure', () => {
+  it('words a study\'s exposure definition', () => {
+    expect(describeExposure({ category: 'prediabetes', criteria: 'ADA', minYears: 3 })).toBe("The study's exposure: 3 yearly results in a row in the prediabetes range (ADA).");
+    expect(describeExposure({ category: 'normal', criteria: 'NICE', minYears: 1 })).toBe("The study's exposure: a result in the normal range (NICE).");
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { parsePastedRows } from '@/lib/glycaemia/paste';
+import { parsePastedRows, pasteSummary } from '@/lib/glycaemia/paste';
 import { draftsToCheckups, readDecimal } from '@/lib/glycaemia/draft';
 
 // Pasted text invented for the tests (illustrative values).
@@ -90,5 +90,12 @@ describe('drafts → history input', () => {
     const { checkups, rowOf } = draftsToCheckups([blank, { ...blank, date: '2023-03-01', fpgValue: '101' }, blank]);
     expect(checkups).toEqual([{ date: '2023-03-01', fpg: { value: 101, unit: 'mg/dL' } }]);
     expect(rowOf).toEqual([1]);
+  });
+});
+
+describe('pasteSummary', () => {
+  it('says how many rows were added and how many lines were not', () => {
+    expect(pasteSummary(parsePastedRows('date\tHbA1c\n2021-03-01\t6\t%\t\t\n2022-03-01\t6\tx\t\t', 'ADA'))).toBe('Added 1 row (header line skipped). 1 line was not added:');
+    expect(pasteSummary(parsePastedRows('2021-03-01\t6\t%\n2022-03-01\t6\t%', 'ADA'))).toBe('Added 2 rows.');
   });
 });

@@ -57,6 +57,8 @@ describe('glucoseHistoryView', () => {
     const v = glucoseHistoryView({ drafts: [row('')], criteria: 'ADA', today: TODAY });
     expect(v.status).toBe('empty');
     expect(v.rowErrors).toEqual([{}]);
+    expect(v.rowLabels).toEqual(['Row 1']);
+    expect(v.statusText).toBe('No checkups yet: add a row, paste rows or load a FHIR file.');
   });
 
   it('maps every issue to its row and field', () => {
@@ -72,6 +74,7 @@ describe('glucoseHistoryView', () => {
     expect(v.rowErrors[3]).toEqual({ row: 'The checkup has neither an HbA1c nor a fasting glucose: give at least one' });
     expect(v.rowErrors[4]?.fpgValue).toMatch(/between 18 and 900 \(got 5\); 5 looks like a value in mmol\/L/);
     expect(v.errorLines[0]).toBe('Row 2, date: The date 2023-02-30 is not a real calendar day');
+    expect(v.statusText).toBe('4 problems in the rows; nothing is classified until they are fixed:');
     expect(v.checkups).toEqual([]);
     expect(v.match).toBeNull();
   });
@@ -89,6 +92,8 @@ describe('glucoseHistoryView', () => {
       exposure: { category: 'prediabetes', criteria: 'ADA', minYears: 3 },
     });
     expect(v.status).toBe('ready');
+    expect(v.statusText).toBe('2 checkups, classified under ADA.');
+    expect(v.exposureText).toBe("The study's exposure: 3 yearly results in a row in the prediabetes range (ADA).");
     expect(v.checkups.map((c) => [c.date, c.label, c.hba1cText, c.fpgText, c.discordant])).toEqual([
       ['2022-03-01', 'prediabetes range (ADA)', '6%', null, false],
       ['2023-03-01', 'prediabetes range (ADA)', '6.2%', '99 mg/dL', true],
