@@ -23,7 +23,7 @@ import type { Issue } from '../result';
 import { toIssues } from '../scenario/issues';
 import { idFromTitle } from './ids';
 import {
-  checkStrataLayout,
+  StrataLayout,
   checkStratum,
   MAX_STRATA,
   populationTableSchema,
@@ -213,6 +213,8 @@ interface Columns {
   readonly index: Partial<Record<BaseColumn, number>>;
   readonly extras: { key: string; index: number }[];
   readonly form: TableForm | undefined;
+  /** The number columns every row must fill: the ages, then risk or rate and person_years. */
+  readonly numeric: readonly NumericColumn[];
   /** Rows can be read: sex, both ages and one baseline form are present. */
   readonly usable: boolean;
 }
@@ -275,6 +277,13 @@ class TableCsvReader {
   body = '';
   bodyFirstLine = 1;
   private readonly table: Partial<Record<keyof PopulationTable, unknown>> = {};
+  /** Age-band and sex-scheme checks, fed row by row; strata are named by their row. */
+  private readonly layout = new StrataLayout((i) => `row ${this.rows[i]?.line ?? '?'}`);
+  private readonly layoutReport = (path: (string | number)[], code: string, message: string) => {
+    const index = Number(path[0]);
+    const field = String(path[1]);
+    this.problems.add(issueAt(code, this.rows[index]?.line, FIELD_COLUMN[field] ?? field, message, ['strata', index, field]));
+  };
 
   constructor(readonly text: string) {}
 
@@ -419,7 +428,8 @@ class TableCsvReader {
       );
     }
     const usable = index.sex !== undefined && index.age_from !== undefined && index.age_to !== undefined && form !== undefined;
-    return { names, index, extras, form, usable };
+    const numeric: NumericColumn[] = ['age_from', 'age_to', ...(form === 'risk' ? (['risk'] as const) : (['rate', 'person_years'] as const))];
+    return { names, index, extras, form, numeric, usable };
   }
 
   /** Reads one block of the body. False once reading must stop (too many rows). */
@@ -449,6 +459,19 @@ class TableCsvReader {
     return true;
   }
 
+  /**
+   * Cell texts already found valid, by column, with their values: ages, sexes and extra
+   * values repeat on almost every row, so most cells skip the schema (a large file's cost is
+   * mostly here). A pure memo: the result is the same with or without it.
+   */
+  private readonly known = new Map<string, Map<string, unknown>>();
+
+  private remember(column: string, text: string, value: unknown): void {
+    let memo = this.known.get(column);
+    if (!memo) this.known.set(column, (memo = new Map()));
+    if (memo.size < MEMO_LIMIT) memo.set(text, value);
+  }
+
   private readRow(cells: string[], line: number): void {
     const columns = this.columns;
     if (!columns?.usable) return;
@@ -458,27 +481,35 @@ class TableCsvReader {
       this.rows.push({ line, stratum: {}, placed: false, valid: false });
       return;
     }
+    const index = this.rows.length;
     const stratum: Partial<Record<keyof Stratum, unknown>> = {};
     const bad = new Set<string>();
-    const cell = (i: number | undefined) => (i === undefined ? undefined : (cells[i] ?? '').trim());
     const problem = (code: string, column: string, message: string, field: string) => {
       bad.add(field);
-      this.problems.add(issueAt(code, line, column, message, ['strata', this.rows.length, field]));
+      this.problems.add(issueAt(code, line, column, message, ['strata', index, field]));
     };
 
-    const sex = cell(columns.index.sex);
-    if (sex === '' || sex === undefined) problem('required', 'sex', 'The sex is empty; write female, male or any', 'sex');
+    const sex = cellAt(cells, columns.index.sex);
+    const knownSex = this.known.get('sex')?.get(sex);
+    if (knownSex !== undefined) stratum.sex = knownSex;
+    else if (sex === '') problem('required', 'sex', 'The sex is empty; write female, male or any', 'sex');
     else {
       const parsed = stratumFieldsSchema.shape.sex.safeParse(sex.toLowerCase());
-      if (parsed.success) stratum.sex = parsed.data;
-      else problem('invalid-choice', 'sex', `"${sex}" is not a sex here; write female, male or any`, 'sex');
+      if (parsed.success) {
+        stratum.sex = parsed.data;
+        this.remember('sex', sex, parsed.data);
+      } else problem('invalid-choice', 'sex', `"${sex}" is not a sex here; write female, male or any`, 'sex');
     }
 
-    const numeric: NumericColumn[] = ['age_from', 'age_to', ...(columns.form === 'risk' ? (['risk'] as const) : (['rate', 'person_years'] as const))];
-    for (const column of numeric) {
+    for (const column of columns.numeric) {
       const field = COLUMN_FIELD[column];
-      const value = cell(columns.index[column]);
-      if (value === '' || value === undefined) {
+      const value = cellAt(cells, columns.index[column]);
+      const known = this.known.get(column)?.get(value);
+      if (known !== undefined) {
+        stratum[field] = known;
+        continue;
+      }
+      if (value === '') {
         problem('required', column, `The cell is empty; ${describeColumn(column)} is required`, field);
         continue;
       }
@@ -488,20 +519,26 @@ class TableCsvReader {
         continue;
       }
       const parsed = stratumFieldsSchema.shape[field].safeParse(n, { reportInput: true });
-      if (parsed.success) stratum[field] = parsed.data;
-      else for (const issue of toIssues(parsed.error.issues)) problem(issue.code, column, issue.message, field);
+      if (parsed.success) {
+        stratum[field] = parsed.data;
+        if (column === 'age_from' || column === 'age_to') this.remember(column, value, parsed.data);
+      } else for (const issue of toIssues(parsed.error.issues)) problem(issue.code, column, issue.message, field);
     }
 
     if (columns.extras.length > 0) {
       const extra: Record<string, string> = {};
-      for (const { key, index } of columns.extras) {
-        const value = cell(index) ?? '';
+      for (const { key, index: at } of columns.extras) {
+        const value = cellAt(cells, at);
         const column = `${STRATUM_COLUMN_PREFIX}${key}`;
-        if (value === '') problem('required', column, `The cell is empty; every row gives its ${key}`, 'extra');
+        const known = this.known.get(column)?.get(value);
+        if (typeof known === 'string') extra[key] = known;
+        else if (value === '') problem('required', column, `The cell is empty; every row gives its ${key}`, 'extra');
         else {
           const parsed = stratumFieldsSchema.shape.extra.unwrap().valueType.safeParse(value);
-          if (parsed.success) extra[key] = parsed.data;
-          else for (const issue of toIssues(parsed.error.issues)) problem(issue.code, column, issue.message, 'extra');
+          if (parsed.success) {
+            extra[key] = parsed.data;
+            this.remember(column, value, parsed.data);
+          } else for (const issue of toIssues(parsed.error.issues)) problem(issue.code, column, issue.message, 'extra');
         }
       }
       stratum.extra = extra;
@@ -512,11 +549,12 @@ class TableCsvReader {
       checkStratum(stratum as Stratum, (path, code, message) => {
         const field = String(path[0]);
         bad.add(field);
-        this.problems.add(issueAt(code, line, FIELD_COLUMN[field] ?? field, message, ['strata', this.rows.length, field]));
+        this.problems.add(issueAt(code, line, FIELD_COLUMN[field] ?? field, message, ['strata', index, field]));
       });
     }
     const orderBad = bad.has('ageTo') && placed;
     this.rows.push({ line, stratum: stratum as Partial<Stratum>, placed: placed && !orderBad, valid: bad.size === 0 });
+    if (placed && !orderBad) this.layout.add(stratum as Stratum, index, this.layoutReport);
   }
 
   private cellCountMessage(cells: string[], width: number): string {
@@ -530,6 +568,15 @@ class TableCsvReader {
 
   /** The whole-file checks, then the table or the problems. */
   finish(): TableCsvResult {
+    const steps = this.finishing();
+    for (;;) {
+      const next = steps.next();
+      if (next.done) return next.value;
+    }
+  }
+
+  /** {@link finish} in steps: yields now and then so a page can pause between them. */
+  *finishing(): Generator<void, TableCsvResult> {
     const preview = this.preview();
     const columns = this.columns;
     if (columns) {
@@ -544,16 +591,7 @@ class TableCsvReader {
       if (columns.usable && this.rowCount === 0 && !this.stopped) {
         this.problems.add(issueAt('no-rows', undefined, undefined, 'The file has a header but no stratum rows'));
       }
-      const placed = this.rows.filter((r) => r.placed);
-      checkStrataLayout(
-        placed.map((r) => r.stratum as Stratum),
-        (path, code, message) => {
-          const row = placed[Number(path[0])];
-          const field = String(path[1]);
-          this.problems.add(issueAt(code, row?.line, FIELD_COLUMN[field] ?? field, message, ['strata', this.rows.indexOf(row ?? placed[0]!), field]));
-        },
-        (i) => `row ${placed[i]?.line ?? '?'}`,
-      );
+      yield* this.layout.checkBands(this.layoutReport);
     }
     if (this.problems.total > 0) return { ok: false, issues: this.problems.result(), preview };
 
@@ -590,6 +628,14 @@ function orderedTable(t: PopulationTable): PopulationTable {
     illustrative: t.illustrative,
     strata: t.strata,
   };
+}
+
+/** Most remembered cell texts per column (ages need 121; extra strata a few thousand). */
+const MEMO_LIMIT = 10_000;
+
+/** A cell's text, trimmed; "" when the row is short of it. */
+function cellAt(cells: readonly string[], index: number | undefined): string {
+  return index === undefined ? '' : (cells[index] ?? '').trim();
 }
 
 function describeColumn(column: NumericColumn): string {
@@ -670,10 +716,15 @@ export async function parseTableCsvInChunks(text: string, options: ChunkedOption
     if (!more) break;
     if (options.pause) await options.pause();
   }
-  if (options.signal?.aborted) {
-    return { ok: false, issues: [issueAt('cancelled', undefined, undefined, 'The import was cancelled; nothing was saved')], preview: reader.preview() };
+  const steps = reader.finishing();
+  for (;;) {
+    if (options.signal?.aborted) {
+      return { ok: false, issues: [issueAt('cancelled', undefined, undefined, 'The import was cancelled; nothing was saved')], preview: reader.preview() };
+    }
+    const next = steps.next();
+    if (next.done) return next.value;
+    if (options.pause) await options.pause();
   }
-  return reader.finish();
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -242,43 +242,70 @@ export function checkStrataLayout(
   report: TableProblemReport,
   label: StratumLabel = defaultLabel,
 ): void {
-  const first = strata[0];
-  if (!first) return;
-  const anySex = first.sex === 'any';
-  strata.forEach((s, i) => {
-    if ((s.sex === 'any') !== anySex) {
-      report([i, 'sex'], 'mixed-sex-strata', `${capitalised(label(i))} has sex "${s.sex}" but ${label(0)} has "${first.sex}"; a table uses either "any" throughout or "female"/"male" throughout`);
-    }
-  });
+  const layout = new StrataLayout(label);
+  strata.forEach((s, i) => layout.add(s, i, report));
+  for (const _ of layout.checkBands(report)) {
+    // run to the end
+  }
+}
 
-  // Age bands within each group: sort by start; each band must begin the year after the
-  // furthest-reaching band before it ends.
-  const groups = new Map<string, number[]>();
-  strata.forEach((s, i) => {
+type Placed = Pick<Stratum, 'sex' | 'ageFrom' | 'ageTo' | 'extra'>;
+
+/**
+ * {@link checkStrataLayout} in steps, for a reader that meets strata one by one and must be
+ * able to pause: `add` each stratum as it is read (the sex scheme is checked at once), then
+ * run `checkBands`, which yields after about every `step` strata so the caller can pause.
+ */
+export class StrataLayout {
+  private first: Placed | undefined;
+  private firstIndex = 0;
+  private readonly groups = new Map<string, { s: Placed; index: number }[]>();
+
+  constructor(private readonly label: StratumLabel = defaultLabel) {}
+
+  add(s: Placed, index: number, report: TableProblemReport): void {
+    const label = this.label;
+    if (!this.first) {
+      this.first = s;
+      this.firstIndex = index;
+    } else if ((s.sex === 'any') !== (this.first.sex === 'any')) {
+      report([index, 'sex'], 'mixed-sex-strata', `${capitalised(label(index))} has sex "${s.sex}" but ${label(this.firstIndex)} has "${this.first.sex}"; a table uses either "any" throughout or "female"/"male" throughout`);
+    }
     if (s.ageFrom > s.ageTo) return; // reported by checkStratum
     const key = stratumGroupKey(s);
-    const list = groups.get(key);
-    if (list) list.push(i);
-    else groups.set(key, [i]);
-  });
-  for (const indices of groups.values()) {
-    const sorted = [...indices].sort((a, b) => strata[a]!.ageFrom - strata[b]!.ageFrom || strata[a]!.ageTo - strata[b]!.ageTo || a - b);
-    let reach = sorted[0]!;
-    for (let k = 1; k < sorted.length; k++) {
-      const prevIndex = sorted[k - 1]!;
-      const index = sorted[k]!;
-      const prev = strata[prevIndex]!;
-      const last = strata[reach]!;
-      const s = strata[index]!;
-      const who = () => describeGroup(s);
-      if (s.ageFrom === prev.ageFrom && s.ageTo === prev.ageTo) {
-        report([index, 'ageFrom'], 'duplicate-stratum', `${capitalised(label(index))} repeats ${label(prevIndex)} (${who()}, ages ${s.ageFrom} to ${s.ageTo}); each stratum appears once`);
-      } else if (s.ageFrom <= last.ageTo) {
-        report([index, 'ageFrom'], 'overlapping-age-bands', `${capitalised(label(index))} (${who()}, ages ${s.ageFrom} to ${s.ageTo}) overlaps ${label(reach)} (ages ${last.ageFrom} to ${last.ageTo}); both ends of a band are included, so the next band starts at ${last.ageTo + 1}`);
-      } else if (s.ageFrom > last.ageTo + 1) {
-        report([index, 'ageFrom'], 'age-band-gap', `${s.ageFrom - 1 === last.ageTo + 1 ? `Age ${last.ageTo + 1} is` : `Ages ${last.ageTo + 1} to ${s.ageFrom - 1} are`} missing for ${who()}: ${label(reach)} ends at ${last.ageTo} and ${label(index)} starts at ${s.ageFrom}`);
+    const list = this.groups.get(key);
+    if (list) list.push({ s, index });
+    else this.groups.set(key, [{ s, index }]);
+  }
+
+  /** Checks the age bands group by group: sorted by start, each band must begin the year after the furthest-reaching band before it ends. */
+  *checkBands(report: TableProblemReport, step = 5000): Generator<void> {
+    const label = this.label;
+    let done = 0;
+    for (const members of this.groups.values()) {
+      const sorted = members.length > 1 ? [...members].sort((a, b) => a.s.ageFrom - b.s.ageFrom || a.s.ageTo - b.s.ageTo || a.index - b.index) : members;
+      let reach = sorted[0]!;
+      for (let k = 1; k < sorted.length; k++) {
+        const prev = sorted[k - 1]!;
+        const last = reach;
+        const cur = sorted[k]!;
+        const s = cur.s;
+        const who = () => describeGroup(s);
+        if (s.ageFrom === prev.s.ageFrom && s.ageTo === prev.s.ageTo) {
+          report([cur.index, 'ageFrom'], 'duplicate-stratum', `${capitalised(label(cur.index))} repeats ${label(prev.index)} (${who()}, ages ${s.ageFrom} to ${s.ageTo}); each stratum appears once`);
+        } else if (s.ageFrom <= last.s.ageTo) {
+          report([cur.index, 'ageFrom'], 'overlapping-age-bands', `${capitalised(label(cur.index))} (${who()}, ages ${s.ageFrom} to ${s.ageTo}) overlaps ${label(last.index)} (ages ${last.s.ageFrom} to ${last.s.ageTo}); both ends of a band are included, so the next band starts at ${last.s.ageTo + 1}`);
+        } else if (s.ageFrom > last.s.ageTo + 1) {
+          const missing = s.ageFrom - 1 === last.s.ageTo + 1 ? `Age ${last.s.ageTo + 1} is` : `Ages ${last.s.ageTo + 1} to ${s.ageFrom - 1} are`;
+          report([cur.index, 'ageFrom'], 'age-band-gap', `${missing} missing for ${who()}: ${label(last.index)} ends at ${last.s.ageTo} and ${label(cur.index)} starts at ${s.ageFrom}`);
+        }
+        if (s.ageTo > last.s.ageTo) reach = cur;
       }
-      if (s.ageTo > last.ageTo) reach = index;
+      done += members.length;
+      if (done >= step) {
+        done = 0;
+        yield;
+      }
     }
   }
 }
