@@ -68,6 +68,11 @@ export interface Library {
   listTables(): Promise<Result<Listing<TableSummary>>>;
   getTable(id: string): Promise<Result<StoredTable>>;
   saveTable(table: unknown, options?: SaveOptions): Promise<Result<StoredTable>>;
+  /**
+   * Saves a table read from a CSV file (after its preview was shown). A file without an
+   * `# id:` line gets a free id made from its title.
+   */
+  saveImportedTable(table: PopulationTable, hadIdLine: boolean, options?: SaveOptions): Promise<Result<StoredTable>>;
   /** Reads a CSV file in blocks (see parseTableCsvInChunks) and saves the table only when it has no problem. */
   importTableCsv(text: string, options?: SaveOptions & ChunkedOptions): Promise<TableCsvResult & { readonly saved?: StoredTable }>;
   renameTable(id: string, title: string, options?: Pick<SaveOptions, 'now'>): Promise<Result<StoredTable>>;
@@ -230,17 +235,22 @@ function createLibrary(db: Db): Library {
         return putTable(parsed.value, options);
       }),
 
+    saveImportedTable: (table, hadIdLine, options = {}) =>
+      guarded(async () => {
+        let toSave = table;
+        if (!hadIdLine) {
+          const free = await library.freeTableId(table.title);
+          if (!free.ok) return free;
+          toSave = { ...table, id: free.value };
+        }
+        return putTable(toSave, options);
+      }),
+
     importTableCsv: async (text, options = {}) => {
       const read = await parseTableCsvInChunks(text, options);
       if (!read.ok) return read;
-      const hasOwnId = read.preview.details.some((d) => d.key === 'id');
-      let table = read.value;
-      if (!hasOwnId) {
-        const free = await library.freeTableId(table.title);
-        if (!free.ok) return { ok: false, issues: free.issues, preview: read.preview };
-        table = { ...table, id: free.value };
-      }
-      const saved = await guarded(() => putTable(table, options));
+      const hadIdLine = read.preview.details.some((d) => d.key === 'id');
+      const saved = await library.saveImportedTable(read.value, hadIdLine, options);
       if (!saved.ok) return { ok: false, issues: saved.issues, preview: read.preview };
       return { ok: true, value: saved.value.table, preview: read.preview, saved: saved.value };
     },
