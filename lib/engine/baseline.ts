@@ -37,7 +37,8 @@ export function populationRisk(conversion: Conversion, referenceRisk: number, ra
 }
 
 const MAX_ITERATIONS = 60;
-const TOLERANCE = 1e-14;
+/** Stop when the population risk is matched to 1e-15 (absolute), or the bracket is one ulp wide. */
+const TOLERANCE = 1e-15;
 
 /**
  * Solves Ppop = (1 − pe)·P0 + pe·P1(P0) for P0.
@@ -74,9 +75,9 @@ export function referenceRiskFromPopulation(
     else lo = p;
     const capped = conversion === 'risk-ratio' && ratio * p >= 1;
     const slope = 1 - exposurePrevalence + exposurePrevalence * (capped ? 0 : exposedRiskSlope(conversion, p, ratio));
+    if (Math.abs(f) <= TOLERANCE || hi - lo <= 2 * Number.EPSILON * hi) return p;
     let next = p - f / slope;
     if (!(next > lo && next < hi)) next = (lo + hi) / 2;
-    if (Math.abs(next - p) <= TOLERANCE * Math.max(p, 1e-300)) return next;
     p = next;
   }
   return p;

@@ -21,6 +21,15 @@ import { numberNeeded } from './numberNeeded';
 import type { ComputeResult, Conversion } from './types';
 import { scenarioWarnings } from './warnings';
 
+/**
+ * A reference risk the engine can work with: above 0, and further than a billionth from
+ * certainty (beyond that, double precision cannot tell the exposed risk apart, and no
+ * consultation concerns such a risk).
+ */
+function isUsableRisk(p0: number): boolean {
+  return p0 > 0 && p0 < 1 - 1e-9;
+}
+
 /** The horizon the result is given over: the scenario's own, else the baseline's period. */
 export function resolveHorizonYears(scenario: Scenario): number {
   if (scenario.horizonYears !== undefined) return scenario.horizonYears;
@@ -58,7 +67,7 @@ export function computeScenario(scenario: Scenario): Result<ComputeResult> {
   const horizonYears = resolveHorizonYears(scenario);
   const p0 = referenceRiskOverHorizon(scenario, conversion, horizonYears);
 
-  if (!(p0 > 0 && p0 < 1) && 'populationRisk' in scenario.baseline) {
+  if (!isUsableRisk(p0) && 'populationRisk' in scenario.baseline) {
     return fail([
       {
         code: 'population-risk-inconsistent',
@@ -67,12 +76,12 @@ export function computeScenario(scenario: Scenario): Result<ComputeResult> {
       },
     ]);
   }
-  if (!(p0 > 0 && p0 < 1)) {
+  if (!isUsableRisk(p0)) {
     return fail([
       {
         code: 'baseline-degenerate',
         path: ['baseline'],
-        message: `Over ${horizonYears} years the baseline works out to a risk of ${p0 >= 1 ? '100%' : '0%'}, which leaves nothing to compare; check the baseline and the horizon`,
+        message: `Over ${horizonYears} years the baseline works out to a risk of ${p0 > 0.5 ? '100%' : '0%'}, which leaves nothing to compare; check the baseline and the horizon`,
       },
     ]);
   }
