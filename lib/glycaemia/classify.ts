@@ -26,7 +26,7 @@
 import type { Warning } from '../result';
 import { CRITERIA, type TestThresholds } from './criteria';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
-import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, withUnit, type ValueUnit } from './format';
+import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, thresholdText, withUnit, type ValueUnit } from './format';
 import { glucoseIn } from './glucose';
 import { hba1cIn } from './hba1c';
 import { REPORTING_STEP } from './merge';
@@ -126,7 +126,7 @@ function classifyTest(
     result,
     note: {
       code: 'conversion-near-threshold',
-      message: `The ${TEST_LABELS[test]} ${withUnit(entered.value, entered.unit)} is ${text}, within rounding of the ${withUnit(nearest, thresholds.unit)} limit: the range depends on the unit the lab reported in, so check the lab's own ${thresholds.unit} value`,
+      message: `The ${TEST_LABELS[test]} ${withUnit(entered.value, entered.unit)} is ${text}, within rounding of the ${thresholdText(nearest, thresholds.unit)} limit: the range depends on the unit the lab reported in, so check the lab's own ${thresholds.unit} value`,
     },
   };
 }

@@ -32,6 +32,15 @@ export function withUnit(value: number, unit: ValueUnit): string {
   return unit === '%' ? `${value}%` : `${value} ${unit}`;
 }
 
+/** Decimals the bodies write their thresholds with: 5.7 %, 48 mmol/mol, 7.0 mmol/L, 126 mg/dL. */
+export const THRESHOLD_DECIMALS: Readonly<Record<ValueUnit, number>> = { '%': 1, 'mmol/mol': 0, 'mmol/L': 1, 'mg/dL': 0 };
+
+/** A threshold as the bodies write it: "7.0 mmol/L", "6.5%". */
+export function thresholdText(value: number, unit: ValueUnit): string {
+  const text = value.toFixed(THRESHOLD_DECIMALS[unit]);
+  return unit === '%' ? `${text}%` : `${text} ${unit}`;
+}
+
 /** A converted value, rounded to {@link CONVERTED_DECIMALS}, with its unit. */
 export function convertedText(value: number, unit: ValueUnit): string {
   return withUnit(roundTo(value, CONVERTED_DECIMALS[unit]), unit);

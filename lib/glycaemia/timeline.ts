@@ -11,7 +11,7 @@ import type { ClassifiedCheckup, TestClassification, TestName } from './classify
 import { CRITERIA } from './criteria';
 import { dayNumber } from './dates';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
-import { categoryLabel, withUnit, type ValueUnit } from './format';
+import { categoryLabel, thresholdText, type ValueUnit } from './format';
 
 export interface TimelinePoint {
   readonly day: number;
@@ -75,9 +75,9 @@ function series(test: TestName, classified: readonly ClassifiedCheckup[], criter
   if (points.length === 0) return null;
   const lines: ReferenceLine[] = [];
   if (thresholds.prediabetesFrom !== null) {
-    lines.push({ value: thresholds.prediabetesFrom, label: `prediabetes range from ${withUnit(thresholds.prediabetesFrom, unit)}` });
+    lines.push({ value: thresholds.prediabetesFrom, label: `prediabetes range from ${thresholdText(thresholds.prediabetesFrom, unit)}` });
   }
-  lines.push({ value: thresholds.diabetesRangeFrom, label: `diabetes range from ${withUnit(thresholds.diabetesRangeFrom, unit)}` });
+  lines.push({ value: thresholds.diabetesRangeFrom, label: `diabetes range from ${thresholdText(thresholds.diabetesRangeFrom, unit)}` });
   const title = `${test === 'hba1c' ? 'HbA1c' : 'Fasting glucose'} (${unit})`;
   const summary = `${title} under ${body.id}: ${points.map((p) => `${p.date} ${p.text}, ${p.label}`).join('; ')}. Lines mark the ${lines.map((l) => l.label).join(' and the ')}.`;
   return {
