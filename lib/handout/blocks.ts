@@ -10,8 +10,8 @@ import type { Result } from '../result';
 
 /** Longest title, in characters: one line at the top of the page. */
 export const MAX_TITLE_CHARS = 120;
-/** Longest opening words or next steps, in characters: a short paragraph fits the one page. */
-export const MAX_BLOCK_CHARS = 600;
+/** Longest opening words or next steps, in characters: a short paragraph, so the page stays one sheet. */
+export const MAX_BLOCK_CHARS = 400;
 
 export const HANDOUT_BLOCK_KEYS = ['title', 'opening', 'nextSteps'] as const;
 export type HandoutBlockKey = (typeof HANDOUT_BLOCK_KEYS)[number];

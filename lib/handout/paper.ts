@@ -11,7 +11,7 @@ export type PaperSize = keyof typeof PAPER_SIZES;
 export const PAPER_SIZE_KEYS = Object.keys(PAPER_SIZES) as PaperSize[];
 
 /** Page margin on every side, in millimetres: inside what common office printers can reach (common practice). */
-export const PAGE_MARGIN_MM = 12;
+export const PAGE_MARGIN_MM = 10;
 
 /**
  * The CSS page rule for a paper size.

@@ -75,6 +75,8 @@ export interface PatientText {
   readonly denominator: Denominator;
   readonly horizonYears: number;
   readonly people: string;
+  /** Who and when, for a heading: "Women aged 50 to 59 like you, over the next 10 years". */
+  readonly groupLine: string;
   readonly outcome: string;
   readonly exposure: string;
   /** "with normal HbA1c", or "without {exposure}" when no comparison is worded. */
@@ -279,8 +281,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
 
   const means = [
     `Each figure in the pictures stands for one person.`,
-    `The pictures show how many out of ${d} ${people} like you will have ${outcome} ${inTheNext(horizonYears)}.`,
-    `The numbers are for a large group. They are not about you alone.`,
+    `The numbers are for a large group of people like you. They are not about you alone.`,
   ];
   const doesNotMean = [
     `They cannot tell what will happen to you. No one can say which people in the group will have it.`,
@@ -294,6 +295,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
     denominator: D,
     horizonYears,
     people,
+    groupLine: `${capitalise(people)} like you, ${time}`,
     outcome,
     exposure,
     comparisonGroup,
@@ -316,7 +318,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
     means,
     doesNotMean,
     caution: CAUTION_TEXT,
-    teachBackIntro: 'Your doctor or nurse may ask you to explain these in your own words. It checks that they explained things well. It is not a test of you.',
+    teachBackIntro: 'Try to answer these in your own words. They check how well we explained things. They are not a test of you.',
     teachBack: [
       `Out of ${d} people like you, about how many will have ${outcome} ${inTheNext(horizonYears)}?`,
       `What is the difference for people ${exposedGroup}?`,
@@ -349,6 +351,7 @@ export function patientProse(text: PatientText): string {
 export function allPatientStrings(text: PatientText): string[] {
   const arrayStrings = (a: ArrayText) => [a.heading, a.title, a.caption, a.alt, ...a.legend.map((l) => l.text)];
   return [
+    text.groupLine,
     ...arrayStrings(text.reference),
     ...arrayStrings(text.exposed),
     text.dataTable.caption,

@@ -26,8 +26,8 @@ describe('default blocks', () => {
 
 describe('paper sizes (ISO 216 A4 210 × 297 mm; ANSI US Letter 8.5 × 11 in)', () => {
   it('writes the page rule', () => {
-    expect(pageRule('a4')).toBe('@page { size: A4 portrait; margin: 12mm; }');
-    expect(pageRule('letter')).toBe('@page { size: letter portrait; margin: 12mm; }');
+    expect(pageRule('a4')).toBe('@page { size: A4 portrait; margin: 10mm; }');
+    expect(pageRule('letter')).toBe('@page { size: letter portrait; margin: 10mm; }');
     expect(PAPER_SIZES.letter.widthMm).toBeCloseTo(8.5 * 25.4, 9);
     expect(PAPER_SIZES.letter.heightMm).toBeCloseTo(11 * 25.4, 9);
   });

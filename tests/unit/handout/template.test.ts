@@ -32,7 +32,7 @@ describe('template file: export and import', () => {
     const text = (max: number) => fc.string({ maxLength: max });
     const template = fc.record({
       name: fc.string({ minLength: 1, maxLength: 80 }).filter((s) => s.trim() === s && s.length > 0),
-      blocks: fc.record({ title: fc.string({ minLength: 1, maxLength: 120 }).filter((s) => s.trim().length > 0), opening: text(600), nextSteps: text(600) }),
+      blocks: fc.record({ title: fc.string({ minLength: 1, maxLength: 120 }).filter((s) => s.trim().length > 0), opening: text(400), nextSteps: text(400) }),
       clinic: fc.record({ name: text(120), contact: text(200) }, { requiredKeys: [] }),
     });
     fc.assert(
@@ -75,7 +75,7 @@ describe('template file: export and import', () => {
   });
 
   it('names a missing field, an unknown field and a too-long text', () => {
-    const r = parseTemplateFile(file([{ name: 'X', blocks: { title: 'T', opening: 'o' }, clinic: { phone: '1' } }, { ...A, blocks: { ...A.blocks, opening: 'x'.repeat(601) } }]));
+    const r = parseTemplateFile(file([{ name: 'X', blocks: { title: 'T', opening: 'o' }, clinic: { phone: '1' } }, { ...A, blocks: { ...A.blocks, opening: 'x'.repeat(401) } }]));
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.issues.map((i) => [i.code, i.path.join('.')])).toEqual([
@@ -83,7 +83,7 @@ describe('template file: export and import', () => {
         ['unknown-field', 'templates.0.clinic.phone'],
         ['too-long', 'templates.1.blocks.opening'],
       ]);
-      expect(r.issues[2]?.message).toBe('Template 2 ("Diabetes clinic"): The opening words must be at most 600 characters');
+      expect(r.issues[2]?.message).toBe('Template 2 ("Diabetes clinic"): The opening words must be at most 400 characters');
     }
   });
 

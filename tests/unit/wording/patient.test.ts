@@ -207,3 +207,9 @@ describe('patientText: the group sentences without a worded comparison', () => {
     expect(text(HARM, { outcome: 'a stroke', exposure: 'high blood pressure' }).referenceSentence).toContain('None of them have high blood pressure.');
   });
 });
+
+describe('patientText: the group line', () => {
+  it('names who and when', () => {
+    expect(text(HARM).groupLine).toBe('Women aged 50 to 59 like you, over the next 10 years');
+  });
+});
