@@ -1,0 +1,241 @@
+'use client';
+/**
+ * The saved evidence entries: find by words, use one, edit, delete (after a second click),
+ * export all or those found as a JSON file, and import such a file — validated whole first;
+ * any problem (naming the entry and field) or an id already saved refuses the whole file
+ * unless "replace" is chosen, and nothing changes.
+ *
+ * Props:
+ * - onUse(entry): when given, each entry gets a "Use this evidence" button;
+ * - selectedId: the entry in use, marked as such.
+ *
+ * Needs a {@link LibraryProvider} above it.
+ */
+import { useEffect, useId, useMemo, useState, type ChangeEvent } from 'react';
+import type { Issue } from '@/lib/result';
+import type { EvidenceEntry } from '@/lib/evidence/schema';
+import { searchEvidence } from '@/lib/evidence/search';
+import { MAX_EVIDENCE_FILE_CHARS } from '@/lib/evidence/file';
+import type { StoredEvidence } from '@/lib/storage/records';
+import { useLibrary } from './LibraryContext';
+import { countProblems, ProblemList } from './ProblemList';
+import { EvidenceForm } from './EvidenceForm';
+import { downloadText } from './download';
+import './library.css';
+
+export interface EvidenceLibraryProps {
+  readonly onUse?: ((entry: EvidenceEntry) => void) | undefined;
+  readonly selectedId?: string | undefined;
+}
+
+export function EvidenceLibrary({ onUse, selectedId }: EvidenceLibraryProps) {
+  const id = useId();
+  const { library, revision, status, changed } = useLibrary();
+  const [stored, setStored] = useState<readonly StoredEvidence[] | undefined>(undefined);
+  const [problems, setProblems] = useState<readonly Issue[]>([]);
+  const [query, setQuery] = useState('');
+  const [importIssues, setImportIssues] = useState<readonly Issue[]>([]);
+  const [importNote, setImportNote] = useState('');
+  const [pendingFile, setPendingFile] = useState<{ name: string; text: string } | undefined>(undefined);
+  const [exportIssues, setExportIssues] = useState<readonly Issue[]>([]);
+
+  useEffect(() => {
+    if (!library) return;
+    let live = true;
+    void library.listEvidence().then((r) => {
+      if (!live) return;
+      if (r.ok) {
+        setStored(r.value.items);
+        setProblems(r.value.problems);
+      } else setProblems(r.issues);
+    });
+    return () => {
+      live = false;
+    };
+  }, [library, revision]);
+
+  const entries = useMemo(() => (stored ?? []).map((s) => s.entry), [stored]);
+  const found = useMemo(() => searchEvidence(entries, query), [entries, query]);
+
+  async function runImport(file: { name: string; text: string }, replace: boolean) {
+    if (!library) return;
+    const r = await library.importEvidenceJson(file.text, { replace });
+    if (!r.ok) {
+      setImportIssues(r.issues);
+      setImportNote('');
+      setPendingFile(r.issues.some((i) => i.code === 'id-taken') ? file : undefined);
+      return;
+    }
+    setImportIssues([]);
+    setPendingFile(undefined);
+    const { added, replaced, skipped } = r.value;
+    setImportNote(
+      `Imported ${file.name}: ${added.length} added, ${replaced.length} replaced${skipped.length > 0 ? `, ${skipped.length} bundled demo entries skipped` : ''}.`,
+    );
+    changed();
+  }
+
+  async function onFile(event: ChangeEvent<HTMLInputElement>) {
+    const file = event.target.files?.[0];
+    event.target.value = '';
+    if (!file) return;
+    if (file.size > MAX_EVIDENCE_FILE_CHARS * 4) {
+      setImportIssues([{ code: 'file-too-large', path: [], message: `The file is larger than the ${MAX_EVIDENCE_FILE_CHARS / 1024 / 1024} MB accepted for an evidence file` }]);
+      return;
+    }
+    await runImport({ name: file.name, text: await file.text() }, false);
+  }
+
+  async function exportEntries(which: 'all' | 'found') {
+    if (!library) return;
+    const r = await library.exportEvidence(which === 'all' ? undefined : found.map((e) => e.id));
+    if (!r.ok) return setExportIssues(r.issues);
+    setExportIssues([]);
+    downloadText(which === 'all' ? 'evidence-library.json' : 'evidence-selection.json', r.value, 'application/json');
+  }
+
+  if (status !== 'ready') return null;
+  return (
+    <div className="library__list">
+      <div className="library__toolbar">
+        <div className="field">
+          <label className="field__label" htmlFor={`${id}-search`}>
+            Find by words
+          </label>
+          <input
+            id={`${id}-search`}
+            className="field__input"
+            type="search"
+            value={query}
+            onChange={(e) => setQuery(e.target.value)}
+            aria-describedby={`${id}-count`}
+          />
+          <p className="field__hint" id={`${id}-count`} aria-live="polite">
+            {stored === undefined ? 'Reading the saved entries…' : `${found.length} of ${entries.length} entries shown`}
+          </p>
+        </div>
+        <div className="library__buttons">
+          <button type="button" className="button button--secondary" onClick={() => void exportEntries('all')} disabled={entries.length === 0}>
+            Export all (JSON)
+          </button>
+          <button type="button" className="button button--secondary" onClick={() => void exportEntries('found')} disabled={query.trim() === '' || found.length === 0}>
+            Export those shown
+          </button>
+        </div>
+        <div className="field">
+          <label className="field__label" htmlFor={`${id}-import`}>
+            Import entries (.json)
+          </label>
+          <input id={`${id}-import`} className="library__file" type="file" accept=".json,application/json" onChange={(e) => void onFile(e)} />
+        </div>
+      </div>
+      <ProblemList problems={exportIssues} heading="Not exported" />
+      <div aria-live="polite">{importNote && <p className="library__ok">{importNote}</p>}</div>
+      <ProblemList problems={importIssues} heading={`${countProblems(importIssues)} — nothing was imported`} />
+      {pendingFile && (
+        <button type="button" className="button" onClick={() => void runImport(pendingFile, true)}>
+          Import {pendingFile.name} again, replacing the saved entries with the same ids
+        </button>
+      )}
+      <ProblemList problems={problems} heading="Some saved entries could not be read; they are left as they are" />
+
+      {stored !== undefined && entries.length === 0 && <p>No evidence saved yet. Save the evidence from a consultation, or import a file.</p>}
+      <ul className="library__items">
+        {found.map((e) => (
+          <li key={e.id}>
+            <EvidenceItem entry={e} onUse={onUse} selected={e.id === selectedId} />
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
+/** "HR 1.6 (95% CI 1.2 to 2.1)": the numbers as entered, no arithmetic. */
+export function describeEffect(e: EvidenceEntry): string {
+  const level = e.effect.level === undefined ? 'CI' : `${Math.round(e.effect.level * 100)}% CI`;
+  return `${e.effect.measure} ${e.effect.estimate} (${level} ${e.effect.lower} to ${e.effect.upper})`;
+}
+
+function EvidenceItem({ entry, onUse, selected }: { readonly entry: EvidenceEntry; readonly onUse: ((e: EvidenceEntry) => void) | undefined; readonly selected: boolean }) {
+  const id = useId();
+  const { library, changed } = useLibrary();
+  const [mode, setMode] = useState<'none' | 'edit' | 'confirm-delete'>('none');
+  const [issues, setIssues] = useState<readonly Issue[]>([]);
+  const w = entry.wording;
+
+  async function remove() {
+    if (!library) return;
+    const r = await library.deleteEvidence(entry.id);
+    if (!r.ok) return setIssues(r.issues);
+    changed();
+  }
+
+  return (
+    <article className="library__item" aria-labelledby={`${id}-title`}>
+      <h4 id={`${id}-title`}>
+        {entry.title}
+        {selected && <span className="library__badge"> (in use)</span>}
+      </h4>
+      <p className="library__meta">
+        {describeEffect(entry)}
+        {entry.effect.design ? `, ${entry.effect.design}` : ''}
+        {entry.effect.followUpYears !== undefined ? `, ${entry.effect.followUpYears} years of follow-up` : ''}
+        {entry.effect.adjusted === true ? ', adjusted' : entry.effect.adjusted === false ? ', not adjusted' : ''}.
+      </p>
+      {(w.outcome || w.exposure) && (
+        <p className="library__meta">
+          {w.exposure ?? 'Exposure not stated'}
+          {w.comparison ? ` vs ${w.comparison}` : ''}
+          {w.outcome ? `; outcome: ${w.outcome}` : ''}.
+        </p>
+      )}
+      {w.citation && <p className="library__meta">{w.citation}</p>}
+      {entry.illustrative && (
+        <p className="library__meta">
+          <strong>Illustrative entry, not a real study.</strong>
+        </p>
+      )}
+
+      {mode === 'edit' ? (
+        <EvidenceForm
+          entry={entry}
+          onCancel={() => setMode('none')}
+          onSave={async (edited) => {
+            if (!library) return [];
+            const r = await library.saveEvidence(edited, { replace: true });
+            if (!r.ok) return r.issues;
+            setMode('none');
+            changed();
+            return [];
+          }}
+        />
+      ) : mode === 'confirm-delete' ? (
+        <div className="library__inline" role="group" aria-label={`Delete ${entry.title}?`}>
+          <p>Delete “{entry.title}” from this browser? Export it first to keep a copy.</p>
+          <button type="button" className="button button--danger" onClick={() => void remove()}>
+            Delete
+          </button>
+          <button type="button" className="button button--secondary" onClick={() => setMode('none')}>
+            Keep it
+          </button>
+        </div>
+      ) : (
+        <div className="library__buttons">
+          {onUse && (
+            <button type="button" className="button" onClick={() => onUse(entry)} aria-pressed={selected}>
+              Use this evidence
+            </button>
+          )}
+          <button type="button" className="button button--secondary" onClick={() => setMode('edit')}>
+            Edit
+          </button>
+          <button type="button" className="button button--secondary" onClick={() => setMode('confirm-delete')}>
+            Delete…
+          </button>
+        </div>
+      )}
+      <ProblemList problems={issues} heading="Not done" />
+    </article>
+  );
+}
