@@ -4,11 +4,14 @@ import './globals.css';
 
 export const metadata: Metadata = {
   title: 'Hundredfold — absolute risk from published evidence',
-  description: 'Turns a published relative effect and a population baseline into absolute risks for one person.',
+  description: 'Turns a published relative effect and a population baseline into absolute risks for people like the one in the chair.',
+  referrer: 'no-referrer',
+  robots: { index: false, follow: false },
 };
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1 };
 
+/** The shell every page shares. System fonts only: nothing is fetched from another origin. */
 export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en">

@@ -1,8 +1,10 @@
+import { ConsultationScreen } from './consultation/ConsultationScreen';
+
+/** `/`: the consultation screen. Static: the scenario is read from the address in the browser only. */
 export default function Home() {
   return (
-    <main>
-      <h1>Hundredfold</h1>
-      <p>The consultation screen is being built.</p>
+    <main id="main">
+      <ConsultationScreen />
     </main>
   );
 }

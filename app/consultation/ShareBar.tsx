@@ -1,0 +1,48 @@
+'use client';
+/**
+ * "Copy link" and "Prepare handout". The link is the scenario through the link codec
+ * (lib/link), so opening it shows exactly this screen; the handout opens the same query.
+ * Plain anchors, not prefetching links: nothing is requested until the clinician asks.
+ */
+import { useState } from 'react';
+import { encodeScenarioLink, scenarioQuery } from '@/lib/link';
+import type { Scenario } from '@/lib/scenario/schema';
+
+export function ShareBar({ scenario }: { scenario: Scenario }) {
+  const [status, setStatus] = useState<{ text: string; link?: string }>({ text: '' });
+  const path = encodeScenarioLink(scenario);
+
+  async function copy() {
+    const url = `${window.location.origin}${path}`;
+    try {
+      await navigator.clipboard.writeText(url);
+      setStatus({ text: 'Link copied. It holds the whole scenario and no name or other identifier.' });
+    } catch {
+      setStatus({ text: 'The browser did not allow copying. Select the link below and copy it:', link: url });
+    }
+  }
+
+  return (
+    <div className="share">
+      <div className="share__actions">
+        <button type="button" className="button" onClick={copy} data-testid="copy-link">
+          Copy link
+        </button>
+        <a className="button button--secondary" href={`/handout?${scenarioQuery(scenario)}`} data-testid="prepare-handout">
+          Prepare handout
+        </a>
+      </div>
+      <p className="share__status" role="status">
+        {status.text}
+      </p>
+      {status.link ? (
+        <p>
+          <label htmlFor="share-link" className="visually-hidden">
+            Link to this scenario
+          </label>
+          <input id="share-link" className="field__input share__link" readOnly value={status.link} onFocus={(e) => e.currentTarget.select()} />
+        </p>
+      ) : null}
+    </div>
+  );
+}

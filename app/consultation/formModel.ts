@@ -1,0 +1,419 @@
+/**
+ * The consultation form: what the clinician types, and how it becomes a {@link Scenario} and a
+ * result. Pure TypeScript (no React), so it is tested directly in tests/unit/consultation/.
+ *
+ * The form holds text exactly as typed. {@link makeConsultationSchema} builds the zod schema the
+ * form's resolver uses: its input is the raw form values, its output a {@link FormOutcome}. The
+ * output is produced only through the engine's own checks — the table lookup
+ * (lib/tables/lookup.ts), {@link parseScenario} (the scenario schema, the same one the URL and the
+ * command line use) and {@link computeScenario} — and their issues are mapped back onto the form
+ * fields, so every message the clinician sees is the engine's message for that field.
+ */
+import { z } from 'zod';
+import { computeScenario } from '@/lib/engine/compute';
+import type { ComputeResult } from '@/lib/engine/types';
+import type { EvidenceEntry } from '@/lib/evidence/schema';
+import { fail, ok, type Issue, type Result } from '@/lib/result';
+import { parseScenario } from '@/lib/scenario/parse';
+import { toIssues } from '@/lib/scenario/issues';
+import { EFFECT_MEASURES, personSchema, STUDY_DESIGNS, type Person, type Scenario } from '@/lib/scenario/schema';
+import { lookupStratum, tableNeeds, type StratumLookup } from '@/lib/tables/lookup';
+import type { PopulationTable } from '@/lib/tables/schema';
+import { patientText, type PatientText } from '@/lib/wording/patient';
+import { formatCount, formatPercent, formatYears } from '@/lib/wording/format';
+import { describePeople } from '@/lib/wording/people';
+
+/** Where the baseline comes from: a bundled table, or one of the engine's three forms typed in. */
+export const BASELINE_SOURCES = ['table', 'risk', 'rate', 'population'] as const;
+export type BaselineSource = (typeof BASELINE_SOURCES)[number];
+
+export const DENOMINATOR_CHOICES = ['auto', '100', '1000'] as const;
+export const LEVEL_CHOICES = ['', '0.9', '0.95', '0.99'] as const;
+export const ADJUSTED_CHOICES = ['', 'yes', 'no'] as const;
+export const SEX_CHOICES = ['', 'female', 'male'] as const;
+
+/** The raw form: every field is text as typed, or the value of a choice ("" = not stated). */
+export const formInputSchema = z.object({
+  baselineSource: z.enum(BASELINE_SOURCES),
+  tableId: z.string(),
+  person: z.object({ age: z.string(), sex: z.enum(SEX_CHOICES) }),
+  riskBaseline: z.object({ risk: z.string(), years: z.string() }),
+  rateBaseline: z.object({ rate: z.string(), perPersonYears: z.string() }),
+  populationBaseline: z.object({ populationRisk: z.string(), exposurePrevalence: z.string(), years: z.string() }),
+  evidenceId: z.string(),
+  effect: z.object({
+    measure: z.enum(['', ...EFFECT_MEASURES]),
+    estimate: z.string(),
+    lower: z.string(),
+    upper: z.string(),
+    level: z.enum(LEVEL_CHOICES),
+    design: z.enum(['', ...STUDY_DESIGNS]),
+    followUpYears: z.string(),
+    adjusted: z.enum(ADJUSTED_CHOICES),
+  }),
+  wording: z.object({ outcome: z.string(), exposure: z.string(), comparison: z.string(), population: z.string(), citation: z.string() }),
+  horizonYears: z.string(),
+  denominator: z.enum(DENOMINATOR_CHOICES),
+});
+
+export type ConsultationFormValues = z.infer<typeof formInputSchema>;
+
+/** The form as it first opens: nothing chosen, nothing typed. */
+export const EMPTY_FORM_VALUES: ConsultationFormValues = {
+  baselineSource: 'table',
+  tableId: '',
+  person: { age: '', sex: '' },
+  riskBaseline: { risk: '', years: '' },
+  rateBaseline: { rate: '', perPersonYears: '' },
+  populationBaseline: { populationRisk: '', exposurePrevalence: '', years: '' },
+  evidenceId: '',
+  effect: { measure: '', estimate: '', lower: '', upper: '', level: '', design: '', followUpYears: '', adjusted: '' },
+  wording: { outcome: '', exposure: '', comparison: '', population: '', citation: '' },
+  horizonYears: '',
+  denominator: 'auto',
+};
+
+/** Everything the screen shows, made from valid form values. */
+export interface FormOutcome {
+  readonly scenario: Scenario;
+  readonly result: ComputeResult;
+  /** The table and stratum the baseline was looked up in, when it was. */
+  readonly table?: PopulationTable;
+  readonly lookup?: StratumLookup;
+  /** Who "people like you" are, e.g. "women aged 40 to 49". */
+  readonly people: string;
+  readonly patient: PatientText;
+}
+
+/** A plain decimal as people type it: "0.08", ".08", "12", "1e-3"; a decimal comma is accepted. */
+const DECIMAL = /^[+-]?(\d+([.,]\d*)?|[.,]\d+)(e[+-]?\d+)?$/i;
+
+/**
+ * Text to a number for the engine: blank → undefined (the schema then says "is required" or
+ * leaves an optional field out), a decimal → its value, anything else → NaN (the schema then says
+ * "must be a number"). Never guesses at text such as "12abc" or "0x10".
+ */
+export function numberFromText(text: string): number | undefined {
+  const trimmed = text.trim();
+  if (trimmed === '') return undefined;
+  if (!DECIMAL.test(trimmed)) return Number.NaN;
+  return Number(trimmed.replace(',', '.'));
+}
+
+function optionalText(text: string): string | undefined {
+  const trimmed = text.trim();
+  return trimmed === '' ? undefined : trimmed;
+}
+
+/** Drops the keys whose value is undefined, so optional scenario fields stay absent. */
+function defined<T extends Record<string, unknown>>(object: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
+  const out: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(object)) if (value !== undefined) out[key] = value;
+  return out as { [K in keyof T]?: Exclude<T[K], undefined> };
+}
+
+const BASELINE_FIELD_GROUP: Record<Exclude<BaselineSource, 'table'>, keyof ConsultationFormValues> = {
+  risk: 'riskBaseline',
+  rate: 'rateBaseline',
+  population: 'populationBaseline',
+};
+
+const FIRST_BASELINE_FIELD: Record<Exclude<BaselineSource, 'table'>, string> = { risk: 'risk', rate: 'rate', population: 'populationRisk' };
+
+/** Maps an issue's path in the scenario onto the form field that holds it. */
+export function formPathFor(scenarioPath: readonly (string | number)[], source: BaselineSource): (string | number)[] {
+  const [head, ...rest] = scenarioPath;
+  if (head === 'baseline') {
+    if (source === 'table') return ['tableId'];
+    return [BASELINE_FIELD_GROUP[source], ...(rest.length > 0 ? rest : [FIRST_BASELINE_FIELD[source]])];
+  }
+  if (head === 'tableId' || head === 'extra') return ['tableId'];
+  if (head === undefined) return ['baselineSource'];
+  return [head, ...rest];
+}
+
+function remap(issues: readonly Issue[], source: BaselineSource): Issue[] {
+  return issues.map((issue) => ({ ...issue, path: formPathFor(issue.path, source) }));
+}
+
+type BaselinePart = {
+  baseline: unknown;
+  person?: Scenario['person'];
+  tableId?: string;
+  table?: PopulationTable;
+  lookup?: StratumLookup;
+  horizonFromTable?: number;
+};
+
+function checkedPerson(person: Scenario['person'] & object): Result<Scenario['person']> {
+  const checked = personSchema.safeParse(person, { reportInput: true });
+  if (checked.success) return ok(checked.data);
+  return fail(toIssues(checked.error.issues).map((issue) => ({ ...issue, path: ['person', ...issue.path] })));
+}
+
+/**
+ * A typed-in baseline needs no person, but an age or sex the clinician gives says who
+ * "people like you" are in the sentences; both are optional.
+ */
+function withPerson(values: ConsultationFormValues, part: BaselinePart): Result<BaselinePart> {
+  const person = defined({ age: numberFromText(values.person.age), sex: values.person.sex === '' ? undefined : values.person.sex });
+  if (Object.keys(person).length === 0) return ok(part);
+  const checked = checkedPerson(person);
+  if (!checked.ok) return fail(checked.issues);
+  return ok({ ...part, person: checked.value });
+}
+
+/** The baseline part of the scenario, from the chosen source. */
+function baselinePart(
+  values: ConsultationFormValues,
+  tables: readonly PopulationTable[],
+): Result<BaselinePart> {
+  switch (values.baselineSource) {
+    // Every key of the chosen form is kept, even when blank, so the engine reports each missing
+    // field of that form ("… is required") rather than "the baseline must be one of …".
+    case 'risk':
+      return withPerson(values, { baseline: { risk: numberFromText(values.riskBaseline.risk), years: numberFromText(values.riskBaseline.years) } });
+    case 'rate':
+      return withPerson(values, { baseline: { rate: numberFromText(values.rateBaseline.rate), perPersonYears: numberFromText(values.rateBaseline.perPersonYears) } });
+    case 'population':
+      return withPerson(values, {
+        baseline: {
+          populationRisk: numberFromText(values.populationBaseline.populationRisk),
+          exposurePrevalence: numberFromText(values.populationBaseline.exposurePrevalence),
+          years: numberFromText(values.populationBaseline.years),
+        },
+      });
+    case 'table': {
+      const table = tables.find((t) => t.id === values.tableId);
+      if (!table) {
+        return fail([{ code: 'required', path: ['tableId'], message: 'Choose a population table, or enter the baseline yourself' }]);
+      }
+      const needs = tableNeeds(table);
+      const age = needs.age ? numberFromText(values.person.age) : undefined;
+      const person = defined({ age, sex: needs.sex && values.person.sex !== '' ? values.person.sex : undefined });
+      // The person schema checks the age (whole years, 0 to 120) before the lookup uses it.
+      const checked = checkedPerson(person);
+      if (!checked.ok) return fail(checked.issues);
+      const found = lookupStratum(table, person);
+      if (!found.ok) return fail(found.issues);
+      return ok({
+        baseline: found.value.baseline,
+        person,
+        tableId: table.id,
+        table,
+        lookup: found.value,
+        ...(table.horizonYears !== undefined && 'rate' in found.value.baseline ? { horizonFromTable: table.horizonYears } : {}),
+      });
+    }
+  }
+}
+
+/**
+ * Valid form values → scenario and result; otherwise the issues, each on its form field.
+ *
+ * @param tables - the population tables the clinician can pick from
+ * @example
+ * formToOutcome({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
+ *   effect: { ...EMPTY_FORM_VALUES.effect, measure: 'RR', estimate: '1.5', lower: '1.2', upper: '1.9' } }, [])
+ * //=> { ok: true, value: { scenario: { baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', … } }, result: { … } } }
+ */
+export function formToOutcome(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormOutcome> {
+  const source = values.baselineSource;
+  const base = baselinePart(values, tables);
+  const { effect: e, wording: w } = values;
+  const effect = defined({
+    measure: e.measure === '' ? undefined : e.measure,
+    estimate: numberFromText(e.estimate),
+    lower: numberFromText(e.lower),
+    upper: numberFromText(e.upper),
+    level: e.level === '' ? undefined : Number(e.level),
+    design: e.design === '' ? undefined : e.design,
+    followUpYears: numberFromText(e.followUpYears),
+    adjusted: e.adjusted === '' ? undefined : e.adjusted === 'yes',
+  });
+  const wordingFields = defined({
+    outcome: optionalText(w.outcome),
+    exposure: optionalText(w.exposure),
+    comparison: optionalText(w.comparison),
+    population: optionalText(w.population),
+    citation: optionalText(w.citation),
+  });
+  const horizonTyped = numberFromText(values.horizonYears);
+  const horizonYears = horizonTyped ?? (base.ok ? base.value.horizonFromTable : undefined);
+  const candidate = defined({
+    // A placeholder baseline keeps the other fields' checks running while the table is unfinished.
+    baseline: base.ok ? base.value.baseline : { risk: 0.5, years: 1 },
+    effect,
+    horizonYears,
+    denominator: values.denominator === 'auto' ? undefined : Number(values.denominator),
+    wording: Object.keys(wordingFields).length > 0 ? wordingFields : undefined,
+    person: base.ok ? base.value.person : undefined,
+    tableId: base.ok ? base.value.tableId : undefined,
+  });
+
+  const parsed = parseScenario(candidate);
+  const issues: Issue[] = [...(base.ok ? [] : remap(base.issues, source)), ...(parsed.ok ? [] : remap(parsed.issues, source))];
+  if (!base.ok || !parsed.ok) return fail(dedupe(issues));
+
+  const computed = computeScenario(parsed.value);
+  if (!computed.ok) {
+    // A degenerate baseline over the horizon: the horizon is the field most likely to fix it.
+    return fail(remap(computed.issues, source).map((issue) => (source === 'table' ? { ...issue, path: ['horizonYears'] } : issue)));
+  }
+  const { table, lookup } = base.value;
+  const scenario = parsed.value;
+  const result = computed.value;
+  const ageBand = table && lookup && tableNeeds(table).age ? { fromYears: lookup.stratum.ageFrom, toYears: lookup.stratum.ageTo } : undefined;
+  const people = describePeople({ person: scenario.person, ageBand, population: scenario.wording?.population });
+  const patient = patientText({ result, wording: scenario.wording, people: people.ok ? people.value : undefined, horizonYears: result.horizonYears });
+  if (!people.ok || !patient.ok) {
+    const textIssues = [...(people.ok ? [] : people.issues), ...(patient.ok ? [] : patient.issues)];
+    return fail(dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))));
+  }
+  return ok({
+    scenario,
+    result,
+    ...(table ? { table } : {}),
+    ...(lookup ? { lookup } : {}),
+    people: people.value,
+    patient: patient.value,
+  });
+}
+
+/**
+ * The sentences need the outcome in words and who the figures are about: without an age or sex
+ * the population wording names the group, so that is the field to fill.
+ */
+function textPathFor(path: readonly (string | number)[]): (string | number)[] {
+  if (path[0] === 'people') return ['wording', 'population'];
+  return [...path];
+}
+
+/** One message per field: the first, as the engine orders them. */
+function dedupe(issues: readonly Issue[]): Issue[] {
+  const seen = new Set<string>();
+  return issues.filter((issue) => {
+    const key = issue.path.join('.');
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}
+
+/**
+ * The zod schema for react-hook-form's resolver: raw values in, {@link FormOutcome} out, the
+ * engine's issues attached to the form's field paths.
+ */
+export function makeConsultationSchema(tables: readonly PopulationTable[]) {
+  return formInputSchema.transform((values, ctx) => {
+    const outcome = formToOutcome(values, tables);
+    if (outcome.ok) return outcome.value;
+    for (const issue of outcome.issues) {
+      ctx.addIssue({ code: 'custom', path: [...issue.path], message: issue.message, params: { code: issue.code } });
+    }
+    return z.NEVER;
+  });
+}
+
+function text(value: number | undefined): string {
+  return value === undefined ? '' : String(value);
+}
+
+/**
+ * A scenario (from a link) back into form values. A baseline that came from a known table, and
+ * that the same lookup gives again, reopens as that table; any other baseline reopens in its own
+ * typed-in form, keeping the person (who "people like you" are) but not the table.
+ */
+export function scenarioToFormValues(scenario: Scenario, tables: readonly PopulationTable[]): ConsultationFormValues {
+  const { baseline, effect, wording = {}, person = {} } = scenario;
+  const values: ConsultationFormValues = {
+    ...EMPTY_FORM_VALUES,
+    effect: {
+      measure: effect.measure,
+      estimate: text(effect.estimate),
+      lower: text(effect.lower),
+      upper: text(effect.upper),
+      level: effect.level === undefined ? '' : (String(effect.level) as ConsultationFormValues['effect']['level']),
+      design: effect.design ?? '',
+      followUpYears: text(effect.followUpYears),
+      adjusted: effect.adjusted === undefined ? '' : effect.adjusted ? 'yes' : 'no',
+    },
+    wording: {
+      outcome: wording.outcome ?? '',
+      exposure: wording.exposure ?? '',
+      comparison: wording.comparison ?? '',
+      population: wording.population ?? '',
+      citation: wording.citation ?? '',
+    },
+    horizonYears: text(scenario.horizonYears),
+    denominator: scenario.denominator === undefined ? 'auto' : scenario.denominator === 100 ? '100' : '1000',
+    person: { age: text(person.age), sex: person.sex ?? '' },
+  };
+  const table = scenario.tableId === undefined ? undefined : tables.find((t) => t.id === scenario.tableId);
+  if (table) {
+    const found = lookupStratum(table, person);
+    if (found.ok && JSON.stringify(found.value.baseline) === JSON.stringify(baseline)) {
+      return { ...values, baselineSource: 'table', tableId: table.id };
+    }
+  }
+  if ('rate' in baseline) {
+    return { ...values, baselineSource: 'rate', rateBaseline: { rate: text(baseline.rate), perPersonYears: text(baseline.perPersonYears) } };
+  }
+  if ('populationRisk' in baseline) {
+    return {
+      ...values,
+      baselineSource: 'population',
+      populationBaseline: {
+        populationRisk: text(baseline.populationRisk),
+        exposurePrevalence: text(baseline.exposurePrevalence),
+        years: text(baseline.years),
+      },
+    };
+  }
+  return { ...values, baselineSource: 'risk', riskBaseline: { risk: text(baseline.risk), years: text(baseline.years) } };
+}
+
+/** The effect and wording fields an evidence entry fills in when the clinician picks it. */
+export function evidenceToFormValues(entry: EvidenceEntry): Pick<ConsultationFormValues, 'effect' | 'wording'> {
+  const filled = scenarioToFormValues({ baseline: { risk: 0.5, years: 1 }, effect: entry.effect, wording: entry.wording }, []);
+  return { effect: filled.effect, wording: filled.wording };
+}
+
+export type TablePreview =
+  | { readonly ok: true; readonly group: string; readonly figure: string }
+  | { readonly ok: false; readonly message: string };
+
+/**
+ * What a table gives for the person typed so far, for the line under the table picker; shown
+ * while the rest of the form is still being filled in.
+ */
+export function tablePreview(table: PopulationTable, person: { age: string; sex: string }): TablePreview {
+  const needs = tableNeeds(table);
+  const age = needs.age ? numberFromText(person.age) : undefined;
+  const sex = needs.sex && (person.sex === 'female' || person.sex === 'male') ? person.sex : undefined;
+  const candidate: Person = defined({ age, sex });
+  const checked = checkedPerson(candidate);
+  if (!checked.ok) return { ok: false, message: checked.issues[0]?.message ?? 'Check the age' };
+  const found = lookupStratum(table, candidate);
+  if (!found.ok) {
+    const missing = found.issues.every((issue) => issue.code === 'required');
+    const wanted = [needs.age ? 'age' : undefined, needs.sex ? 'sex' : undefined].filter((w) => w !== undefined).join(' and ');
+    return { ok: false, message: missing ? `Enter the person’s ${wanted} to look up the risk.` : (found.issues[0]?.message ?? 'No group of the table fits') };
+  }
+  const { stratum, baseline } = found.value;
+  const ageBand = needs.age ? { fromYears: stratum.ageFrom, toYears: stratum.ageTo } : undefined;
+  const group = describePeople({ person: candidate, ageBand });
+  const figure =
+    'risk' in baseline
+      ? `a risk of ${formatPercent(baseline.risk)} over ${formatYears(baseline.years)} years`
+      : `${formatRate(baseline.rate)} events per ${formatCount(baseline.perPersonYears)} person-years${table.horizonYears !== undefined ? `; the suggested horizon is ${formatYears(table.horizonYears)} years` : ''}`;
+  return { ok: true, group: group.ok ? capitalise(group.value) : 'Everyone in the table', figure };
+}
+
+function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+function formatRate(rate: number): string {
+  return rate.toLocaleString('en', { maximumFractionDigits: 3 });
+}
