@@ -21,6 +21,10 @@ import type { Conversion } from './types';
  * exposedRisk('rate-ratio', 0.1, 2)      //=> 0.19 (1 − 0.9²)
  */
 export function exposedRisk(conversion: Conversion, referenceRisk: number, ratio: number): number {
+  // A ratio of 1 means no effect: P1 = P0 exactly under every formula (RR·P0, Zhang–Yu with
+  // OR = 1, 1 − (1 − P0)^1). Computed, −expm1(log1p(−P0)) misses P0 by an ulp for some P0
+  // (0.061 gives 0.06099999999999999), which would turn "no difference" into a number needed of 10^17.
+  if (ratio === 1) return referenceRisk;
   switch (conversion) {
     case 'risk-ratio':
       return ratio * referenceRisk;

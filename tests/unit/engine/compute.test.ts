@@ -84,6 +84,24 @@ describe('computeScenario', () => {
     expect(result.issues[0]).toMatchObject({ code: 'baseline-degenerate', path: ['baseline'] });
   });
 
+  it('gives no difference, not a vast number needed, for a ratio of exactly 1', () => {
+    // Definition: a ratio of 1 gives P1 = P0, so RD = 0 and the number needed is infinite.
+    // Before the exact identity, HR 1 at P0 = 0.061 gave RD = −6.9e-18 and "NNTB 144115188075855870".
+    const r = value({ baseline: { risk: 0.061, years: 10 }, effect: { measure: 'HR', estimate: 1, lower: 0.8, upper: 1.25 } });
+    expect(r.riskDifference.estimate).toBe(0);
+    expect(r.numberNeeded).toMatchObject({ direction: 'none', estimate: null, display: null, crossesNull: true });
+  });
+
+  it('passes the number-needed interval through infinity when a limit is exactly 1', () => {
+    // Altman 1998, BMJ 317:1309: a limit of no effect is an infinite number needed. Before the fix,
+    // HR 1.3 (1.0–1.7) at P0 = 0.118 gave RD lower = +1.4e-17, so the interval did not cross the null.
+    const r = value({ baseline: { risk: 0.118, years: 10 }, effect: { measure: 'HR', estimate: 1.3, lower: 1, upper: 1.7 } });
+    expect(r.riskDifference.lower).toBe(0);
+    expect(r.numberNeeded.crossesNull).toBe(true);
+    expect(r.numberNeeded.interval.from).toEqual({ direction: 'none', value: null, display: null });
+    expect(r.numberNeeded.text).toMatch(/^NNTH \d+ \(95% CI: ∞ to NNTH \d+\)$/);
+  });
+
   it('defaults the horizon to the baseline period', () => {
     expect(resolveHorizonYears({ baseline: { risk: 0.1, years: 7 }, effect: { measure: 'RR', estimate: 1, lower: 0.9, upper: 1.1 } })).toBe(7);
   });

@@ -77,6 +77,16 @@ describe('exposedRisk: risk ratio', () => {
   });
 });
 
+describe('exposedRisk: a ratio of 1 (no effect)', () => {
+  it.each(['risk-ratio', 'risk-odds-ratio', 'rate-ratio'] as const)('gives back P0 exactly for %s', (conversion) => {
+    // Definition: RR·P0, P0/(1 − P0 + P0) and 1 − (1 − P0)^1 are all P0. Computed through
+    // expm1/log1p, 1 − (1 − 0.061)^1 is 0.06099999999999999 (measured), so exactness is tested.
+    for (const p0 of [0.061, 0.116, 0.118, 0.123, 1e-7, 0.5, 0.999]) {
+      expect(exposedRisk(conversion, p0, 1)).toBe(p0);
+    }
+  });
+});
+
 describe('ratioFromRisks inverts exposedRisk', () => {
   it.each([
     ['risk-ratio', 0.1, 1.7],
