@@ -102,6 +102,19 @@ describe('computeScenario', () => {
     expect(r.numberNeeded.text).toMatch(/^NNTH \d+ \(95% CI: ∞ to NNTH \d+\)$/);
   });
 
+  it('keeps the limits on either side of the estimate when they are ulps apart', () => {
+    // Found by a long fast-check run: Zhang–Yu at P0 = 0.5999642784883066 put the lower limit
+    // (OR 10.886858932020477) one ulp above the estimate (OR 10.886858932020479). Monotonicity
+    // (methods guide, "Confidence intervals") means lower ≤ estimate ≤ upper must hold exactly.
+    const r = value({
+      baseline: { risk: 0.5999642784883066, years: 1 },
+      effect: { measure: 'OR', estimate: 10.886858932020479, lower: 10.886858932020477, upper: 10.88794761791368 },
+    });
+    expect(r.exposedRisk.lower).toBeLessThanOrEqual(r.exposedRisk.estimate);
+    expect(r.exposedRisk.estimate).toBeLessThanOrEqual(r.exposedRisk.upper);
+    expect(r.riskDifference.lower).toBeLessThanOrEqual(r.riskDifference.estimate);
+  });
+
   it('defaults the horizon to the baseline period', () => {
     expect(resolveHorizonYears({ baseline: { risk: 0.1, years: 7 }, effect: { measure: 'RR', estimate: 1, lower: 0.9, upper: 1.1 } })).toBe(7);
   });
