@@ -43,6 +43,11 @@ const TOLERANCE = 1e-15;
 /**
  * Solves Ppop = (1 − pe)·P0 + pe·P1(P0) for P0.
  *
+ * The engine solves it once, at the ratio's point estimate, and holds that P0 fixed when it puts
+ * the interval's limits through the exposed-risk formula (./compute.ts; Cochrane Handbook
+ * §12.5.4.5). The limits therefore leave out both the uncertainty in Ppop and the way the
+ * solved P0 would itself move with the ratio; the clinician text says the baseline is held fixed.
+ *
  * @param populationAverageRisk - Ppop in (0, 1)
  * @param exposurePrevalence - pe in [0, 1)
  * @example
