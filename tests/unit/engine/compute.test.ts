@@ -73,7 +73,7 @@ describe('computeScenario', () => {
   });
 
   it('refuses a baseline that works out to certainty over the horizon', () => {
-    // 1e6 events per person-year over 100 years: 1 − e^(−1e8) is 1 in double precision.
+    // Hand-computed: 1e6 events per person-year over 100 years: 1 − e^(−1e8) is 1 in double precision.
     const result = computeScenario({
       baseline: { rate: 1e6, perPersonYears: 1 },
       horizonYears: 100,
@@ -116,12 +116,14 @@ describe('computeScenario', () => {
   });
 
   it('defaults the horizon to the baseline period', () => {
+    // Issue contract: H defaults to the baseline's years.
     expect(resolveHorizonYears({ baseline: { risk: 0.1, years: 7 }, effect: { measure: 'RR', estimate: 1, lower: 0.9, upper: 1.1 } })).toBe(7);
   });
 });
 
 describe('computeScenario: inconsistent population baseline', () => {
   it('refuses a population risk that no reference risk can produce', () => {
+    // Hand-computed: RR 0.05, pe 0.95 → even P0 = 1 gives 0.05·1 + 0.95·0.05 = 0.0975 < 0.2.
     const result = computeScenario({
       baseline: { populationRisk: 0.2, exposurePrevalence: 0.95, years: 10 },
       effect: { measure: 'RR', estimate: 0.05, lower: 0.03, upper: 0.08 },

@@ -67,11 +67,12 @@ describe('exposedRisk: rate ratio (proportional hazards)', () => {
 
 describe('exposedRisk: risk ratio', () => {
   it('multiplies the baseline (definition)', () => {
+    // Hand-computed: 1.5·0.08 = 0.12.
     expect(exposedRisk('risk-ratio', 0.08, 1.5)).toBeCloseTo(0.12, 15);
   });
 
   it('is capped at certainty when RR·P0 ≥ 1', () => {
-    // Definition: a risk cannot exceed 1.
+    // Definition: a risk cannot exceed 1. Hand-computed: 2·0.6 = 1.2, capped at 1.
     expect(exposedRisk('risk-ratio', 0.6, 2)).toBeCloseTo(1.2, 15);
     expect(exposedRiskCapped('risk-ratio', 0.6, 2)).toBe(1);
   });

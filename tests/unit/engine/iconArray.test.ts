@@ -35,6 +35,7 @@ describe('iconArrayCounts (risk-communication guide: one denominator, counts = r
   });
 
   it('keeps a denominator the clinician chose', () => {
+    // Hand-computed: 0.08·1000 = 80, 0.12·1000 = 120.
     const counts = iconArrayCounts(0.08, { estimate: 0.12, lower: 0.1, upper: 0.15 }, 1000);
     expect(counts).toMatchObject({ denominator: 1000, automatic: false, referenceEvents: 80, exposedEvents: 120 });
   });
@@ -53,6 +54,7 @@ describe('layouts (Ancker et al. 2011; Zikmund-Fisher et al. 2008)', () => {
   const harm = iconArrayCounts(0.08, { estimate: 0.12, lower: 0.096, upper: 0.152 });
 
   it('draws every icon and fills the reference array from the first corner', () => {
+    // Ancker et al. 2011 (grouped, from one corner); hand-computed: 8 events, 100 − 8 = 92 without.
     const layout = referenceLayout(harm);
     expect(layout.cells).toHaveLength(100);
     expect(layout.columns).toBe(10);
@@ -62,6 +64,7 @@ describe('layouts (Ancker et al. 2011; Zikmund-Fisher et al. 2008)', () => {
   });
 
   it('puts added events right after the baseline events and marks the interval as uncertain', () => {
+    // Zikmund-Fisher et al. 2008 (added right after baseline); hand-computed: 12 − 8 = 4 added, 100 − 12 = 88 without.
     const layout = exposedLayout(harm);
     expect(layout.tally).toEqual({ event: 8, added: 4, avoided: 0, none: 88, uncertain: 5 });
     expect(layout.cells.map((c) => c.kind).slice(0, 13).join(',')).toBe(
@@ -72,6 +75,8 @@ describe('layouts (Ancker et al. 2011; Zikmund-Fisher et al. 2008)', () => {
   });
 
   it('shows avoided events after the exposed events when the effect is protective', () => {
+    // Hand-computed: 0.12·100 = 12 reference, 0.08·100 = 8 exposed, so 12 − 8 = 4 avoided;
+    // limits 0.06 → 6 and 0.11 → 11, so 11 − 6 = 5 uncertain icons.
     const counts = iconArrayCounts(0.12, { estimate: 0.08, lower: 0.06, upper: 0.11 });
     const layout = exposedLayout(counts);
     expect(layout.tally).toEqual({ event: 8, added: 0, avoided: 4, none: 88, uncertain: 5 });
@@ -81,6 +86,7 @@ describe('layouts (Ancker et al. 2011; Zikmund-Fisher et al. 2008)', () => {
   });
 
   it('uses 25 columns for 1,000 icons', () => {
+    // Our layout convention (lib/engine/iconArray.ts): 40 rows of 25 for 1,000; 10 rows of 10 for 100.
     const counts = iconArrayCounts(0.004, { estimate: 0.006, lower: 0.005, upper: 0.008 });
     const layout = exposedLayout(counts);
     expect(layout.columns).toBe(25);

@@ -30,14 +30,17 @@ describe('logSymmetry', () => {
   it('accepts a rounded published interval', () => {
     // Hand-computed: √(1.2·1.9) = 1.510; 1.5 is within rounding of the geometric mean.
     expect(logSymmetry(1.5, 1.2, 1.9).symmetric).toBe(true);
-    // Hand-computed: 1.10 (1.00–1.20): offset = 0.0953 − 0.0912 = 0.0041, rounding allows ~0.05.
+    // Hand-computed: 1.10 (1.00–1.20): offset = ln 1.1 − (ln 1 + ln 1.2)/2 = 0.0953 − 0.0912 = 0.0041.
+    // 1.00 reaches the engine as 1 (no decimals), so rounding allows 0.05/1.1 + (0.5/1 + 0.05/1.2)/2
+    // + 0.05·0.0912 = 0.0455 + 0.2708 + 0.0046 = 0.321.
     expect(logSymmetry(1.1, 1.0, 1.2).symmetric).toBe(true);
   });
 
   it('flags a slipped digit', () => {
-    // 1.91 typed as 9.1: √(1.2·9.1) = 3.30, far from 1.5.
+    // Hand-computed: 1.91 typed as 9.1: √(1.2·9.1) = 3.30, far from 1.5 (offset −0.790, tolerance 0.108).
     expect(logSymmetry(1.5, 1.2, 9.1).symmetric).toBe(false);
-    // 1.25 (1.2–1.9): offset = 0.2231 − 0.4121 = −0.189; rounding of two-decimal figures allows ~0.016.
+    // Hand-computed: 1.25 (1.2–1.9): offset = ln 1.25 − (ln 1.2 + ln 1.9)/2 = 0.2231 − 0.4121 = −0.189;
+    // rounding allows 0.005/1.25 + (0.05/1.2 + 0.05/1.9)/2 + 0.05·0.2298 = 0.0040 + 0.0340 + 0.0115 = 0.0495.
     expect(logSymmetry(1.25, 1.2, 1.9).symmetric).toBe(false);
   });
 
