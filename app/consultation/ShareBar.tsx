@@ -28,7 +28,7 @@ export function ShareBar({ scenario }: { scenario: Scenario }) {
         <button type="button" className="button" onClick={copy} data-testid="copy-link">
           Copy link
         </button>
-        <a className="button button--secondary" href={`/handout?${scenarioQuery(scenario)}`} data-testid="prepare-handout">
+        <a className="button button--secondary" href={`/handout${scenarioQuery(scenario)}`} data-testid="prepare-handout">
           Prepare handout
         </a>
       </div>

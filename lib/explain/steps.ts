@@ -110,7 +110,8 @@ function baselineStep({ scenario, result, table, stratum }: ExplainInput): Expla
 
 function tableSource(table: NonNullable<ExplainInput['table']>, stratum: Stratum | undefined): string {
   const group = stratum ? `; group: ${stratum.sex === 'any' ? 'both sexes' : stratum.sex}, ages ${stratum.ageFrom} to ${stratum.ageTo >= 120 ? 'and over' : stratum.ageTo}` : '';
-  const note = table.illustrative ? ' — illustrative numbers, not from a real population' : '';
+  const said = /illustrative numbers, not from a real population/i.test(table.source);
+  const note = table.illustrative && !said ? ' — illustrative numbers, not from a real population' : '';
   return `Table “${table.title}”: ${table.source} (${table.year})${group}${note}`;
 }
 

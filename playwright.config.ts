@@ -1,0 +1,59 @@
+/**
+ * Browser tests of the consultation screen (tests/e2e/), run against a production build.
+ *
+ * Playwright cannot download its own browser on this machine, so the tests drive Debian's
+ * Chromium at /usr/bin/chromium (shared/guides/toolchain.md). Without it the run stops at once
+ * with one line saying how to install it.
+ */
+import { existsSync } from 'node:fs';
+import { defineConfig, devices } from '@playwright/test';
+
+export const CHROMIUM_PATH = '/usr/bin/chromium';
+export const E2E_PORT = 3100;
+
+if (!existsSync(CHROMIUM_PATH)) {
+  process.stderr.write(`Chromium is missing at ${CHROMIUM_PATH}: install it with \`apt-get install chromium\` (Debian), then run the tests again.\n`);
+  process.exit(1);
+}
+
+/** Launch flags that work with Debian's Chromium here (toolchain guide). */
+export const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--headless',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+  '--disable-quic',
+];
+
+export default defineConfig({
+  testDir: 'tests/e2e',
+  outputDir: 'test-results/e2e',
+  fullyParallel: true,
+  workers: 2,
+  forbidOnly: true,
+  retries: 0,
+  timeout: 30_000,
+  expect: { timeout: 5_000 },
+  reporter: [['list']],
+  use: {
+    baseURL: `http://127.0.0.1:${E2E_PORT}`,
+    browserName: 'chromium',
+    launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS },
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+  },
+  projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'], launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS } } }],
+  webServer: {
+    // A production build, so the tests see the real bundle and the production CSP.
+    command: `npx next build && npx next start -p ${E2E_PORT} -H 127.0.0.1`,
+    url: `http://127.0.0.1:${E2E_PORT}/`,
+    timeout: 180_000,
+    reuseExistingServer: !process.env.CI,
+    env: { NEXT_TELEMETRY_DISABLED: '1' },
+    stdout: 'ignore',
+    stderr: 'pipe',
+  },
+});

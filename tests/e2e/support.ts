@@ -1,0 +1,79 @@
+/**
+ * Shared steps for the browser tests: fill the consultation form like a clinician would, and
+ * work out what the screen must show from the engine itself (lib/), never from the page.
+ */
+import { expect, type Locator, type Page } from '@playwright/test';
+import { computeScenario } from '../../lib/engine/compute';
+import { exposedLayout, referenceLayout } from '../../lib/engine/iconArray';
+import type { ComputeResult } from '../../lib/engine/types';
+import type { Scenario } from '../../lib/scenario/schema';
+import { clinicianText, type ClinicianText } from '../../lib/wording/clinician';
+
+/** A typed-in scenario: a 10-year risk of 0.08 and a risk ratio of 1.5 (1.2 to 1.9). Invented. */
+export const TYPED_SCENARIO: Scenario = {
+  baseline: { risk: 0.08, years: 10 },
+  effect: { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9, design: 'cohort' },
+  wording: { outcome: 'a first stroke', exposure: 'raised blood pressure', comparison: 'normal blood pressure' },
+  person: { age: 62, sex: 'female' },
+};
+
+export function expected(scenario: Scenario): { result: ComputeResult; clinician: ClinicianText } {
+  const computed = computeScenario(scenario);
+  if (!computed.ok) throw new Error(`the test scenario must compute: ${JSON.stringify(computed.issues)}`);
+  return { result: computed.value, clinician: clinicianText(computed.value, scenario.wording) };
+}
+
+/** The control of a form field, by its name in the form (ids are derived from names). */
+export function field(page: Page, name: string): Locator {
+  return page.locator(`#field-${name.replace(/\./g, '-')}`);
+}
+
+/** Types a scenario with a typed-in risk baseline through the form, field by field. */
+export async function fillTypedScenario(page: Page, scenario: Scenario = TYPED_SCENARIO): Promise<void> {
+  const { baseline, effect, wording = {}, person = {} } = scenario;
+  if (!('risk' in baseline)) throw new Error('fillTypedScenario types a risk baseline');
+  await page.getByLabel('Enter a risk over a period', { exact: true }).check();
+  await field(page, 'riskBaseline.risk').fill(String(baseline.risk));
+  await field(page, 'riskBaseline.years').fill(String(baseline.years));
+  if (person.age !== undefined) await field(page, 'person.age').fill(String(person.age));
+  if (person.sex !== undefined) await field(page, 'person.sex').selectOption(person.sex);
+  await page.getByLabel(effect.measure === 'RR' ? 'Risk ratio (RR)' : effect.measure === 'OR' ? 'Odds ratio (OR)' : 'Hazard ratio (HR)', { exact: true }).check();
+  await field(page, 'effect.estimate').fill(String(effect.estimate));
+  await field(page, 'effect.lower').fill(String(effect.lower));
+  await field(page, 'effect.upper').fill(String(effect.upper));
+  if (effect.design === 'cohort') await page.getByLabel('Cohort', { exact: true }).check();
+  if (wording.outcome) await field(page, 'wording.outcome').fill(wording.outcome);
+  if (wording.exposure) await field(page, 'wording.exposure').fill(wording.exposure);
+  if (wording.comparison) await field(page, 'wording.comparison').fill(wording.comparison);
+}
+
+/** Counts the icons of one kind drawn in an array ("reference" or "exposed"). */
+export async function iconCount(page: Page, array: 'reference' | 'exposed', kind: string, uncertain?: boolean): Promise<number> {
+  const selector = `[data-testid="array-${array}"] svg use[data-kind="${kind}"]${uncertain ? '[data-uncertain="true"]' : ''}`;
+  return page.locator(selector).count();
+}
+
+/** Checks that the screen shows exactly the engine's figures for the scenario. */
+export async function expectScreenShows(page: Page, scenario: Scenario): Promise<void> {
+  const { result, clinician } = expected(scenario);
+  const shown = page.getByTestId('result');
+  await expect(shown).toBeVisible();
+  await expect(page.getByTestId('clinician-absolute')).toHaveText(clinician.absoluteRisks);
+  await expect(page.getByTestId('clinician-risk-ratio')).toHaveText(clinician.riskRatio);
+  await expect(page.getByTestId('clinician-risk-difference')).toHaveText(clinician.riskDifference);
+  await expect(page.getByTestId('clinician-number-needed')).toHaveText(clinician.numberNeeded);
+  await expect(page.getByTestId('clinician-number-needed')).toContainText(result.numberNeeded.text);
+
+  const counts = result.iconArray;
+  const reference = referenceLayout(counts).tally;
+  const exposed = exposedLayout(counts).tally;
+  expect(await page.locator('[data-testid="array-reference"] svg use').count()).toBe(counts.denominator);
+  expect(await page.locator('[data-testid="array-exposed"] svg use').count()).toBe(counts.denominator);
+  expect(await iconCount(page, 'reference', 'event')).toBe(counts.referenceEvents);
+  expect(await iconCount(page, 'reference', 'none')).toBe(reference.none);
+  expect(await iconCount(page, 'exposed', 'event')).toBe(exposed.event);
+  expect(await iconCount(page, 'exposed', 'added')).toBe(exposed.added);
+  expect(await iconCount(page, 'exposed', 'avoided')).toBe(exposed.avoided);
+  expect(exposed.event + exposed.added).toBe(counts.exposedEvents);
+  expect(await page.locator('[data-testid="array-exposed"] svg use[data-uncertain="true"]').count()).toBe(counts.exposedUpper - counts.exposedLower);
+}
