@@ -103,7 +103,19 @@ describe('explainSteps', () => {
     const list = steps({ baseline: { risk: 0.006, years: 10 }, effect: rr.effect, tableId: DEMO_HEART_FAILURE_10Y.id }, { table: DEMO_HEART_FAILURE_10Y, stratum });
     expect(step(list, 'baseline').source).toContain(DEMO_HEART_FAILURE_10Y.title);
     expect(step(list, 'baseline').source).toContain('ages 40 to 49');
-    expect(step(list, 'baseline').source).toContain('illustrative numbers, not from a real population');
+    expect(step(list, 'baseline').source).toMatch(/illustrative numbers, not from a real population/i);
+    // The demo table's source already says so: the note is not repeated.
+    expect(step(list, 'baseline').source.match(/illustrative numbers, not from a real population/gi)).toHaveLength(1);
+  });
+
+  it('adds the illustrative note when an illustrative table’s source does not say so, and none for a real one', () => {
+    const stratum = DEMO_HEART_FAILURE_10Y.strata[0];
+    const base = { baseline: { risk: 0.002, years: 10 }, effect: rr.effect };
+    const flagged = steps(base, { table: { ...DEMO_HEART_FAILURE_10Y, source: 'Invented for a workshop' }, stratum });
+    expect(step(flagged, 'baseline').source).toContain('Invented for a workshop (2024)');
+    expect(step(flagged, 'baseline').source).toMatch(/— illustrative numbers, not from a real population$/);
+    const real = steps(base, { table: { ...DEMO_HEART_FAILURE_10Y, source: 'A regional registry report', illustrative: false }, stratum });
+    expect(step(real, 'baseline').source).not.toMatch(/illustrative/i);
   });
 
   it('says when a risk ratio was capped at certainty', () => {
