@@ -17,6 +17,9 @@ function codeFor(issue: ZodIssue): IssueCode {
     case 'too_big':
       return issue.origin === 'string' ? 'too-long' : 'out-of-range';
     case 'invalid_value':
+      // A choice given nothing is a missing field, like any other (needs reportInput: true).
+      if ('input' in issue && issue.input === undefined) return 'required';
+      return 'invalid-choice';
     case 'invalid_union':
       return 'invalid-choice';
     case 'unrecognized_keys':

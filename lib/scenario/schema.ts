@@ -104,7 +104,9 @@ export const BASELINE_FORM_KEYS = ['risk', 'rate', 'populationRisk'] as const;
 
 export const effectSchema = z
   .strictObject({
-    measure: z.enum(EFFECT_MEASURES, { error: 'The measure must be one of OR, RR or HR' }),
+    measure: z.enum(EFFECT_MEASURES, {
+      error: (iss) => (iss.input === undefined ? 'The measure is required: OR, RR or HR' : 'The measure must be one of OR, RR or HR'),
+    }),
     estimate: ratio('The estimate'),
     lower: ratio('The lower limit'),
     upper: ratio('The upper limit'),
