@@ -6,6 +6,7 @@ import { categoryLabel } from '@/lib/glycaemia/format';
 
 describe('classifyCheckup: which test decides, discordance', () => {
   it('takes the higher range and names the test that gave it (ADA: either test suffices, §2, from memory)', () => {
+    // ADA thresholds (methods guide table): 5.7 ≤ 6.1 % < 6.5 is prediabetes; 92 < 100 mg/dL is normal.
     const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 92, unit: 'mg/dL' } }, 'ADA');
     expect(c.category).toBe('prediabetes');
     expect(c.decidedBy).toBe('hba1c');
@@ -14,16 +15,19 @@ describe('classifyCheckup: which test decides, discordance', () => {
   });
 
   it('says "both" when the two tests agree', () => {
+    // NICE PH38 (methods guide table): 42 ≤ 44 < 48 mmol/mol and 5.5 ≤ 5.9 < 7.0 mmol/L, both prediabetes.
     const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 44, unit: 'mmol/mol' }, fpg: { value: 5.9, unit: 'mmol/L' } }, 'NICE');
     expect(c).toMatchObject({ category: 'prediabetes', decidedBy: 'both', discordant: false, notes: [] });
   });
 
   it('lets the fasting glucose decide when it is the higher', () => {
+    // ADA: 5.4 % < 5.7 is normal; 130 ≥ 126 mg/dL is the diabetes range.
     const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 5.4, unit: '%' }, fpg: { value: 130, unit: 'mg/dL' } }, 'ADA');
     expect(c).toMatchObject({ category: 'diabetes-range', decidedBy: 'fpg', discordant: true });
   });
 
   it('uses a single test alone, without discordance', () => {
+    // WHO 2006: 6.1 ≤ 6.3 < 7.0 mmol/L is impaired fasting glucose.
     const c = classifyCheckup({ date: '2023-03-01', fpg: { value: 6.3, unit: 'mmol/L' } }, 'WHO');
     expect(c).toMatchObject({ category: 'prediabetes', decidedBy: 'fpg', discordant: false, hba1c: null, hba1cPercent: null, hba1cMmolMol: null });
   });
@@ -41,10 +45,12 @@ describe('classifyCheckup: which test decides, discordance', () => {
       expect(c).toMatchObject({ category: 'prediabetes', decidedBy: 'fpg', discordant: false });
     });
     it('flags discordance when the fasting glucose is in the diabetes range and the HbA1c is not', () => {
+      // WHO 2006: 7.4 ≥ 7.0 mmol/L is the diabetes range; WHO 2011: 6.2 % < 6.5 is below it.
       const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.2, unit: '%' }, fpg: { value: 7.4, unit: 'mmol/L' } }, 'WHO');
       expect(c).toMatchObject({ category: 'diabetes-range', decidedBy: 'fpg', discordant: true });
     });
     it('flags discordance when the HbA1c is in the diabetes range and the glucose is not', () => {
+      // WHO 2011: 6.7 ≥ 6.5 % is the diabetes range; WHO 2006: 5.0 < 6.1 mmol/L is normal.
       const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.7, unit: '%' }, fpg: { value: 5.0, unit: 'mmol/L' } }, 'WHO');
       expect(c).toMatchObject({ category: 'diabetes-range', decidedBy: 'hba1c', discordant: true });
     });

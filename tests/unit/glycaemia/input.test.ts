@@ -170,6 +170,21 @@ describe('parseGlucoseHistory: bad input becomes issues naming the checkup and f
     ]);
   });
 
+  it('refuses a missing date, a date that is not text, and a reading that is not an object', () => {
+    expect(issues(oneCheckup({ fpg: { value: 5, unit: 'mmol/L' } }))).toEqual([
+      expect.objectContaining({ code: 'required', path: ['checkups', 0, 'date'] }),
+    ]);
+    expect(issues(oneCheckup({ date: 20230301, fpg: { value: 5, unit: 'mmol/L' } }))).toEqual([
+      expect.objectContaining({ code: 'wrong-type', path: ['checkups', 0, 'date'] }),
+    ]);
+    expect(issues(oneCheckup({ date: '2023-03-01', hba1c: 6.1 }))).toEqual([
+      expect.objectContaining({ code: 'wrong-type', path: ['checkups', 0, 'hba1c'] }),
+    ]);
+    expect(issues(oneCheckup({ date: '2023-03-01', fpg: { value: Number.NaN, unit: 'mg/dL' } }))).toEqual([
+      expect.objectContaining({ code: 'not-a-number', path: ['checkups', 0, 'fpg', 'value'] }),
+    ]);
+  });
+
   it('says which day "today" is in a future-date message', () => {
     expect(issues(oneCheckup({ date: '2024-07-01', fpg: { value: 5, unit: 'mmol/L' } }))[0]?.message).toBe(
       'The date 2024-07-01 is after today (2024-06-30): a checkup cannot be in the future',
