@@ -3,8 +3,11 @@
  * what any other consumer can take as JSON. Missing values are null, never absent.
  *
  * Numbers: a value as entered is printed exactly; a converted value is rounded to 4 decimals
- * (enough to see which side of any threshold it lies on, without floating-point noise); `years`
- * to 2 decimals. Categories were decided on unrounded values (./classify.ts).
+ * (without floating-point noise; for values as labs print them — 0.1 %, whole mmol/mol, 0.1
+ * mmol/L, whole mg/dL — the rounded value stays on the same side of every threshold, checked by
+ * enumeration over the plausible ranges; a value typed with more decimals can land on a
+ * threshold once rounded); `years` to 2 decimals. Categories were decided on unrounded values
+ * (./classify.ts), and each test's `text` keeps enough decimals to stay on its side.
  */
 import type { Warning } from '../result';
 import { classifyHistory, type ClassifiedCheckup, type TestClassification } from './classify';

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { classifyCheckup } from '@/lib/glycaemia/classify';
+import { categoryFor, classifyCheckup } from '@/lib/glycaemia/classify';
+import { CRITERIA } from '@/lib/glycaemia/criteria';
+import { roundTo } from '@/lib/glycaemia/format';
+import { glucoseIn } from '@/lib/glycaemia/glucose';
+import { hba1cIn } from '@/lib/glycaemia/hba1c';
+import { OUTPUT_DECIMALS } from '@/lib/glycaemia/report';
 import type { CriteriaSet, GlycaemicCategory } from '@/lib/glycaemia/exposure';
 import type { Checkup } from '@/lib/glycaemia/schema';
 
@@ -137,5 +142,29 @@ describe('results as labs print them, against the bodies\' quoted equivalents', 
   it('adds no conversion note to a value entered in the body\'s own unit, or far from a threshold', () => {
     expect(classifyCheckup(checkupWith('hba1c', 6.5, '%'), 'ADA').notes).toEqual([]);
     expect(classifyCheckup(checkupWith('hba1c', 44, 'mmol/mol'), 'ADA').notes).toEqual([]); // 6.18 %, far from 5.7 and 6.5
+  });
+});
+
+describe('the report\'s rounded conversions stay on the side of every threshold', () => {
+  it('for every value as labs print it, over the plausible ranges (enumeration)', () => {
+    // Reporting steps, common practice: 0.1 %, whole mmol/mol, 0.1 mmol/L, whole mg/dL. Ranges from
+    // lib/glycaemia/schema.ts. A converted value rounded to OUTPUT_DECIMALS must fall in the range its
+    // unrounded value falls in, under each body's thresholds (so the JSON never contradicts its category).
+    const tenths = (from: number, to: number) => Array.from({ length: Math.round((to - from) * 10) + 1 }, (_, i) => Number((from + i / 10).toFixed(1)));
+    const wholes = (from: number, to: number) => Array.from({ length: to - from + 1 }, (_, i) => from + i);
+    const crossings: string[] = [];
+    for (const body of Object.values(CRITERIA)) {
+      const hbFrom = body.hba1c.unit === '%' ? 'mmol/mol' : '%';
+      for (const value of hbFrom === '%' ? tenths(3, 20) : wholes(9, 195)) {
+        const v = hba1cIn(body.hba1c.unit, { value, unit: hbFrom });
+        if (categoryFor(v, body.hba1c) !== categoryFor(roundTo(v, OUTPUT_DECIMALS), body.hba1c)) crossings.push(`${body.id} ${value} ${hbFrom}`);
+      }
+      const gFrom = body.fpg.unit === 'mg/dL' ? 'mmol/L' : 'mg/dL';
+      for (const value of gFrom === 'mmol/L' ? tenths(1, 50) : wholes(18, 900)) {
+        const v = glucoseIn(body.fpg.unit, { value, unit: gFrom });
+        if (categoryFor(v, body.fpg) !== categoryFor(roundTo(v, OUTPUT_DECIMALS), body.fpg)) crossings.push(`${body.id} ${value} ${gFrom}`);
+      }
+    }
+    expect(crossings).toEqual([]);
   });
 });
