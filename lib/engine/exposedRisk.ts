@@ -42,7 +42,8 @@ export function exposedRiskCapped(conversion: Conversion, referenceRisk: number,
 }
 
 /**
- * dP1/dP0 at a fixed ratio, for the Newton step of the population correction.
+ * dP1/dP0 at a fixed ratio, for the Newton step of the population correction (each the
+ * derivative of the formula above, hand-derived; tested against a central difference).
  * - risk ratio: RR
  * - risk odds ratio: OR / (1 − P0 + OR·P0)²   (differentiating Zhang–Yu)
  * - rate ratio: HR·(1 − P0)^(HR − 1)
@@ -61,7 +62,8 @@ export function exposedRiskSlope(conversion: Conversion, referenceRisk: number, 
 }
 
 /**
- * The inverse at a fixed P0: the ratio that turns P0 into P1.
+ * The inverse at a fixed P0: the ratio that turns P0 into P1 (each the algebraic inverse of the
+ * formula above: the risk ratio's definition, the odds ratio's definition, and ln S1 = HR·ln S0).
  * - risk ratio: P1/P0
  * - odds ratio: P1(1 − P0) / (P0(1 − P1))
  * - rate ratio: ln(1 − P1) / ln(1 − P0)

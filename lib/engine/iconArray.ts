@@ -19,8 +19,8 @@ import type { Denominator } from '../scenario/schema';
 import type { Estimate, IconArrayCounts } from './types';
 
 /**
- * Rounds half up, forgiving floating-point noise: 0.145·100 computes as 14.499999999999998 and
- * must count as 15 people, as the sentence "14.5%" would be read.
+ * Rounds half up (common practice), forgiving floating-point noise: 0.145·100 computes as
+ * 14.499999999999998 and must count as 15 people, as the sentence "14.5%" would be read.
  */
 export function roundPeople(value: number): number {
   return Math.floor(value + 0.5 + 1e-9);
