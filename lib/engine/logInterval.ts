@@ -21,6 +21,16 @@ export function standardErrorFromInterval(lower: number, upper: number, level: I
  * Used to bound rounding error; exponent notation counts its effective places.
  */
 export function decimalPlaces(value: number): number {
+  // Fast path for the numbers people type (up to 10 places, magnitude below 1e15): the fewest
+  // places k with round(v·10^k)/10^k === v, which is what String(v) would print.
+  const magnitude = Math.abs(value);
+  if (magnitude >= 1e-6 && magnitude < 1e15) {
+    let scale = 1;
+    for (let k = 0; k <= 10; k += 1) {
+      if (Math.round(value * scale) / scale === value) return k;
+      scale *= 10;
+    }
+  }
   const text = String(value);
   const [mantissa = '', exponent] = text.toLowerCase().split('e');
   const fraction = mantissa.split('.')[1] ?? '';
@@ -58,4 +68,17 @@ export function logSymmetry(estimate: number, lower: number, upper: number): Log
   const rounding = (v: number) => (0.5 * 10 ** -decimalPlaces(v)) / v;
   const tolerance = rounding(estimate) + (rounding(lower) + rounding(upper)) / 2 + SYMMETRY_SLACK * halfWidth;
   return { offset, tolerance, symmetric: Math.abs(offset) <= tolerance };
+}
+
+/**
+ * The same verdict as {@link logSymmetry}(…).symmetric, without building the report: an offset
+ * within the slack alone is symmetric whatever the rounding, so the rounding bound is only
+ * worked out when needed (the engine calls this on every evaluation).
+ */
+export function isLogSymmetric(estimate: number, lower: number, upper: number): boolean {
+  const logLower = Math.log(lower);
+  const logUpper = Math.log(upper);
+  const offset = Math.abs(Math.log(estimate) - (logLower + logUpper) / 2);
+  if (offset <= SYMMETRY_SLACK * ((logUpper - logLower) / 2)) return true;
+  return logSymmetry(estimate, lower, upper).symmetric;
 }

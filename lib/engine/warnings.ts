@@ -5,7 +5,7 @@
 import type { Warning } from '../result';
 import type { Effect } from '../scenario/schema';
 import type { Conversion } from './types';
-import { logSymmetry } from './logInterval';
+import { isLogSymmetric } from './logInterval';
 
 export const WARNING_CODES = [
   'interval-asymmetric',
@@ -39,7 +39,7 @@ export function scenarioWarnings({ effect, conversion, referenceRisk, horizonYea
   const { estimate, lower, upper } = effect;
   const design = effect.design ?? 'cohort';
 
-  if (!logSymmetry(estimate, lower, upper).symmetric) {
+  if (!isLogSymmetric(estimate, lower, upper)) {
     out.push({
       code: 'interval-asymmetric',
       message: `The estimate ${estimate} is far from the middle of its interval (${lower} to ${upper}); on the ratio scale the middle is about ${fmt(Math.sqrt(lower * upper))}. Check the numbers against the paper for a typing slip.`,

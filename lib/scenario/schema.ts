@@ -160,34 +160,50 @@ export const personSchema = z.strictObject({
   sex: z.enum(['female', 'male'], { error: 'The sex must be female or male' }).optional(),
 });
 
-export const scenarioSchema = z
-  .strictObject({
-    baseline: baselineSchema,
-    effect: effectSchema,
-    horizonYears: years('The horizon').optional(),
-    /** Icon-array denominator chosen by the clinician; absent means the engine's automatic rule. */
-    denominator: z
-      .union(DENOMINATORS.map((d) => z.literal(d)), { error: 'The denominator must be 100 or 1000' })
-      .optional(),
-    wording: wordingSchema.optional(),
-    person: personSchema.optional(),
-    /** Id of the population table the baseline was looked up in, when it was. */
-    tableId: z
-      .string({ error: 'The table id must be text' })
-      .min(1, { error: 'The table id must not be empty' })
-      .max(100, { error: 'The table id must be at most 100 characters' })
-      .optional(),
-  })
-  .superRefine((scenario, ctx) => {
-    if ('rate' in scenario.baseline && scenario.horizonYears === undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['horizonYears'],
-        params: { code: 'horizon-required' },
-        message: 'The horizon is required when the baseline is a rate: say over how many years to give the risk',
-      });
-    }
-  });
+/** Everything in a scenario but its baseline. */
+const scenarioShape = {
+  effect: effectSchema,
+  horizonYears: years('The horizon').optional(),
+  /** Icon-array denominator chosen by the clinician; absent means the engine's automatic rule. */
+  denominator: z
+    .union(DENOMINATORS.map((d) => z.literal(d)), { error: 'The denominator must be 100 or 1000' })
+    .optional(),
+  wording: wordingSchema.optional(),
+  person: personSchema.optional(),
+  /** Id of the population table the baseline was looked up in, when it was. */
+  tableId: z
+    .string({ error: 'The table id must be text' })
+    .min(1, { error: 'The table id must not be empty' })
+    .max(100, { error: 'The table id must be at most 100 characters' })
+    .optional(),
+};
+
+function requireHorizonForRate(
+  scenario: { readonly baseline: object; readonly horizonYears?: number | undefined },
+  ctx: z.RefinementCtx,
+): void {
+  if ('rate' in scenario.baseline && scenario.horizonYears === undefined) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['horizonYears'],
+      params: { code: 'horizon-required' },
+      message: 'The horizon is required when the baseline is a rate: say over how many years to give the risk',
+    });
+  }
+}
+
+export const scenarioSchema = z.strictObject({ baseline: baselineSchema, ...scenarioShape }).superRefine(requireHorizonForRate);
+
+/**
+ * One scenario schema per baseline form, keyed by the key that selects the form. parseScenario
+ * checks a scenario whose baseline form is evident against that form alone: faster than the
+ * union, and with that form's own messages.
+ */
+export const scenarioSchemaByForm = {
+  risk: z.strictObject({ baseline: riskBaselineSchema, ...scenarioShape }).superRefine(requireHorizonForRate),
+  rate: z.strictObject({ baseline: rateBaselineSchema, ...scenarioShape }).superRefine(requireHorizonForRate),
+  populationRisk: z.strictObject({ baseline: populationBaselineSchema, ...scenarioShape }).superRefine(requireHorizonForRate),
+} as const;
 
 export type RiskBaseline = z.infer<typeof riskBaselineSchema>;
 export type RateBaseline = z.infer<typeof rateBaselineSchema>;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { decimalPlaces, logSymmetry, standardErrorFromInterval } from '@/lib/engine/logInterval';
+import fc from 'fast-check';
+import { decimalPlaces, isLogSymmetric, logSymmetry, standardErrorFromInterval } from '@/lib/engine/logInterval';
 
 describe('standardErrorFromInterval: SE = (ln U − ln L) / (2·z) (Cochrane Handbook §7.7.7.3)', () => {
   it('gives 0.117230 for a 95% interval of 1.2 to 1.9', () => {
@@ -50,5 +51,35 @@ describe('logSymmetry', () => {
     const se = 0.2;
     const result = logSymmetry(x, x * Math.exp(-1.96 * se), x * Math.exp(1.96 * se));
     expect(Math.abs(result.offset)).toBeLessThan(1e-15);
+  });
+});
+
+describe('decimalPlaces agrees with the printed form', () => {
+  it('matches String(v) for 1000 random typed numbers (fast path vs definition)', () => {
+    // Definition: the places String(v) prints (shortest round-trip form, ECMA-262 Number::toString).
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 10_000_000 }), fc.integer({ min: 0, max: 8 }), (n, k) => {
+        const v = n / 10 ** k;
+        const printed = String(v);
+        const expected = printed.includes('e') ? decimalPlaces(v) : (printed.split('.')[1] ?? '').length;
+        expect(decimalPlaces(v)).toBe(expected);
+      }),
+      { numRuns: 1000 },
+    );
+  });
+});
+
+describe('isLogSymmetric', () => {
+  it('gives the same verdict as logSymmetry (1000 runs)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0.05, max: 20, noNaN: true }), fc.double({ min: 1.001, max: 5, noNaN: true }), fc.double({ min: 1.001, max: 5, noNaN: true }), (x, a, b) => {
+        const lower = Number((x / a).toFixed(2)) || 0.01;
+        const upper = Number((x * b).toFixed(2));
+        const estimate = Number(x.toFixed(2)) || 0.01;
+        fc.pre(lower < upper);
+        expect(isLogSymmetric(estimate, lower, upper)).toBe(logSymmetry(estimate, lower, upper).symmetric);
+      }),
+      { numRuns: 1000 },
+    );
   });
 });
