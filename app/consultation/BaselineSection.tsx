@@ -1,18 +1,20 @@
 'use client';
+import { lazy, Suspense } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { tableNeeds } from '@/lib/tables/lookup';
 import { BASELINE_SOURCE_CHOICES, SEX_CHOICES_FOR_FORM } from './choices';
 import { RadioField, SelectField, TextField } from './fields';
-import { tablePreview, type ConsultationFormValues } from './formModel';
-import { LookupSummary } from './LookupSummary';
+import type { ConsultationFormValues } from './formModel';
+
+/** Loaded once a table is chosen. */
+const LookupSummary = lazy(() => import('./LookupSummary'));
 
 export function BaselineSection({ tables }: { tables: readonly PopulationTable[] }) {
   const { control } = useFormContext<ConsultationFormValues>();
   const [source, tableId, age, sex] = useWatch({ control, name: ['baselineSource', 'tableId', 'person.age', 'person.sex'] });
   const table = source === 'table' ? tables.find((t) => t.id === tableId) : undefined;
   const needs = table ? tableNeeds(table) : undefined;
-  const preview = table ? tablePreview(table, { age, sex }) : undefined;
 
   return (
     <fieldset className="section">
@@ -34,7 +36,11 @@ export function BaselineSection({ tables }: { tables: readonly PopulationTable[]
               {needs.sex ? <SelectField name="person.sex" label="Sex" choices={SEX_CHOICES_FOR_FORM} hint="The table gives women and men separately." /> : null}
             </div>
           ) : null}
-          {table && preview ? <LookupSummary table={table} preview={preview} /> : null}
+          {table ? (
+            <Suspense fallback={<p className="lookup lookup__pending">Looking up the table…</p>}>
+              <LookupSummary table={table} person={{ age, sex }} />
+            </Suspense>
+          ) : null}
         </div>
       ) : (
         <div className="subsection">

@@ -9,25 +9,20 @@
  *   exactly that screen, and reloading keeps it. Nothing is sent anywhere while typing.
  */
 import { zodResolver } from '@hookform/resolvers/zod';
-import { memo, useEffect, useMemo, useState } from 'react';
-import { FormProvider, useForm, useWatch, type Control } from 'react-hook-form';
+import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { flushSync } from 'react-dom';
+import { FormProvider, useForm, useWatch, type Control, type Resolver } from 'react-hook-form';
 import type { z } from 'zod';
 import { DEMO_EVIDENCE, DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import { fail, type Issue } from '@/lib/result';
+import type { HistoryMatch } from '@/lib/glycaemia/match';
+import { fail, type Issue, type Warning } from '@/lib/result';
 import { DEMO_HEART_FAILURE_10Y, DEMO_TABLES } from '@/lib/tables/demo';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { BaselineSection } from './BaselineSection';
 import { EvidenceSection } from './EvidenceSection';
-import {
-  EMPTY_FORM_VALUES,
-  evidenceToFormValues,
-  formInputSchema,
-  formToOutcome,
-  makeConsultationSchema,
-  scenarioToFormValues,
-  type ConsultationFormValues,
-} from './formModel';
+import { EMPTY_FORM_VALUES, formInputSchema, formToOutcome, makeConsultationSchema, type ConsultationFormValues } from './formModel';
+import { GlucoseSection, LibrarySection } from './OptionalSections';
 import { preloadFigures, ResultPanel } from './ResultPanel';
 import { SettingsSection } from './SettingsSection';
 
@@ -48,7 +43,8 @@ const Evidence = memo(EvidenceSection);
 const Settings = memo(SettingsSection);
 
 /** An example the clinician can load with one click: demo table and demo evidence, both invented. */
-export function exampleValues(): ConsultationFormValues {
+export async function exampleValues(): Promise<ConsultationFormValues> {
+  const { evidenceToFormValues } = await import('./fromScenario');
   return {
     ...EMPTY_FORM_VALUES,
     baselineSource: 'table',
@@ -59,13 +55,23 @@ export function exampleValues(): ConsultationFormValues {
   };
 }
 
-function LiveResult({ control, tables }: { control: Control<z.input<Schema>, unknown, z.output<Schema>>; tables: readonly PopulationTable[] }) {
+interface LiveResultProps {
+  readonly control: Control<z.input<Schema>, unknown, z.output<Schema>>;
+  readonly tables: readonly PopulationTable[];
+  /** Cautions from outside the engine (the glucose history's match), shown with the engine's. */
+  readonly extraWarnings: readonly Warning[];
+}
+
+function LiveResult({ control, tables, extraWarnings }: LiveResultProps) {
   const values = useWatch({ control });
+  // The form re-announces its values after every validation; the result is rebuilt only when
+  // they differ, so the screen below redraws once per change.
+  const key = JSON.stringify(values);
   const outcome = useMemo(() => {
-    const shaped = formInputSchema.safeParse(values);
+    const shaped = formInputSchema.safeParse(JSON.parse(key));
     if (!shaped.success) return fail<never>([{ code: 'invalid', path: [], message: 'The form is incomplete' }]);
     return formToOutcome(shaped.data, tables);
-  }, [values, tables]);
+  }, [key, tables]);
 
   useEffect(() => {
     if (!outcome.ok) return;
@@ -80,7 +86,7 @@ function LiveResult({ control, tables }: { control: Control<z.input<Schema>, unk
     };
   }, [outcome]);
 
-  return <ResultPanel outcome={outcome} />;
+  return <ResultPanel outcome={outcome} extraWarnings={extraWarnings} />;
 }
 
 export function ConsultationScreen({
@@ -90,15 +96,60 @@ export function ConsultationScreen({
   tables?: readonly PopulationTable[];
   entries?: readonly EvidenceEntry[];
 }) {
-  const schema = useMemo(() => makeConsultationSchema(tables), [tables]);
+  // Tables and entries the clinician takes from the clinic library join the bundled ones.
+  const [libraryTables, setLibraryTables] = useState<readonly PopulationTable[]>([]);
+  const [libraryEntries, setLibraryEntries] = useState<readonly EvidenceEntry[]>([]);
+  const [match, setMatch] = useState<HistoryMatch | null>(null);
+  const allTables = useMemo(() => [...tables, ...libraryTables.filter((t) => !tables.some((d) => d.id === t.id))], [tables, libraryTables]);
+  const allEntries = useMemo(() => [...entries, ...libraryEntries.filter((e) => !entries.some((d) => d.id === e.id))], [entries, libraryEntries]);
+  const tablesRef = useRef(allTables);
+  useEffect(() => {
+    tablesRef.current = allTables;
+  }, [allTables]);
+  // The resolver reads the current tables when it runs (never during render), keeping one
+  // schema per list of tables.
+  const resolverCache = useRef<{ tables: readonly PopulationTable[]; resolve: Resolver<z.input<Schema>, unknown, z.output<Schema>> } | null>(null);
+  const resolver = useCallback<Resolver<z.input<Schema>, unknown, z.output<Schema>>>((values, context, options) => {
+    const current = tablesRef.current;
+    if (resolverCache.current?.tables !== current) {
+      resolverCache.current = { tables: current, resolve: zodResolver(makeConsultationSchema(current)) };
+    }
+    return resolverCache.current.resolve(values, context, options);
+  }, []);
+  const extraWarnings = useMemo(() => [match?.diabetesRangeNote, match?.warning].filter((w): w is Warning => w !== undefined), [match]);
   const methods = useForm<z.input<Schema>, unknown, z.output<Schema>>({
-    resolver: zodResolver(schema),
+    resolver,
     defaultValues: EMPTY_FORM_VALUES,
     mode: 'onChange',
     delayError: 350,
   });
   const [linkIssues, setLinkIssues] = useState<readonly Issue[]>([]);
-  const { reset } = methods;
+  const { reset, setValue } = methods;
+
+  const takeLibraryTable = useCallback(
+    (table: PopulationTable) => {
+      // The new option must be in the list before the select can take it.
+      flushSync(() => setLibraryTables((list) => [...list.filter((t) => t.id !== table.id), table]));
+      tablesRef.current = [...tablesRef.current.filter((t) => t.id !== table.id), table];
+      const options = { shouldValidate: true, shouldDirty: true, shouldTouch: true } as const;
+      setValue('baselineSource', 'table', options);
+      setValue('tableId', table.id, options);
+    },
+    [setValue],
+  );
+
+  const takeLibraryEntry = useCallback(
+    async (entry: EvidenceEntry) => {
+      flushSync(() => setLibraryEntries((list) => [...list.filter((e) => e.id !== entry.id), entry]));
+      const { evidenceToFormValues } = await import('./fromScenario');
+      const filled = evidenceToFormValues(entry);
+      const options = { shouldValidate: true, shouldDirty: true, shouldTouch: true } as const;
+      setValue('evidenceId', entry.id, options);
+      setValue('effect', filled.effect, options);
+      setValue('wording', filled.wording, options);
+    },
+    [setValue],
+  );
 
   // The result's drawing code is fetched once the page is idle, before any result is due.
   useEffect(() => {
@@ -106,6 +157,7 @@ export function ConsultationScreen({
     idle(() => {
       preloadFigures();
       void loadLinkCodec();
+      void import('./fromScenario');
     });
   }, []);
 
@@ -114,12 +166,12 @@ export function ConsultationScreen({
     // The address is outside React and is read once, after hydration (the page is static).
     const query = window.location.search.replace(/^\?/, '');
     if (query === '') return;
-    void loadLinkCodec().then(({ decodeScenarioQuery }) => {
+    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(([{ decodeScenarioQuery }, { scenarioToFormValues }]) => {
       const decoded = decodeScenarioQuery(query);
-      if (decoded.ok) reset(scenarioToFormValues(decoded.value, tables));
+      if (decoded.ok) reset(scenarioToFormValues(decoded.value, tablesRef.current));
       else setLinkIssues(decoded.issues);
     });
-  }, [reset, tables]);
+  }, [reset]);
 
   return (
     <FormProvider {...methods}>
@@ -132,7 +184,7 @@ export function ConsultationScreen({
               updates as you type. Nothing you type is sent anywhere: the scenario stays in this page and its address.
             </p>
             <div className="intro__actions">
-              <button type="button" className="button button--secondary" onClick={() => reset(exampleValues())} data-testid="load-example">
+              <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((values) => reset(values))} data-testid="load-example">
                 Fill in an example (illustrative numbers)
               </button>
               <button type="button" className="button button--quiet" onClick={() => { reset(EMPTY_FORM_VALUES); window.history.replaceState(null, '', '/'); }}>
@@ -151,13 +203,15 @@ export function ConsultationScreen({
             ) : null}
           </div>
           <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
-            <Baseline tables={tables} />
-            <Evidence entries={entries} />
+            <Baseline tables={allTables} />
+            <Evidence entries={allEntries} />
             <Settings />
           </form>
+          <GlucoseSection entries={allEntries} onMatchChange={setMatch} />
+          <LibrarySection tables={allTables} entries={allEntries} onUseTable={takeLibraryTable} onUseEvidence={(entry) => void takeLibraryEntry(entry)} />
         </div>
         <div className="screen__result">
-          <LiveResult control={methods.control} tables={tables} />
+          <LiveResult control={methods.control} tables={allTables} extraWarnings={extraWarnings} />
         </div>
       </div>
     </FormProvider>

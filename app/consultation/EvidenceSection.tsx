@@ -3,16 +3,17 @@ import { useFormContext } from 'react-hook-form';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from './choices';
 import { RadioField, SelectField, TextField, type FieldName } from './fields';
-import { evidenceToFormValues, type ConsultationFormValues } from './formModel';
+import type { ConsultationFormValues } from './formModel';
 
 const LIMITS: FieldName[] = ['effect.estimate', 'effect.lower', 'effect.upper'];
 
 export function EvidenceSection({ entries, children }: { entries: readonly EvidenceEntry[]; children?: React.ReactNode }) {
   const { setValue } = useFormContext<ConsultationFormValues>();
 
-  function fillFrom(id: string) {
+  async function fillFrom(id: string) {
     const entry = entries.find((e) => e.id === id);
     if (!entry) return;
+    const { evidenceToFormValues } = await import('./fromScenario');
     const filled = evidenceToFormValues(entry);
     const options = { shouldValidate: true, shouldDirty: true, shouldTouch: true } as const;
     setValue('effect', filled.effect, options);
@@ -29,7 +30,7 @@ export function EvidenceSection({ entries, children }: { entries: readonly Evide
         label="Start from a saved entry (optional)"
         hint="Fills in the fields below; you can still change any of them."
         choices={[{ value: '', label: 'None: type the figures in' }, ...entries.map((e) => ({ value: e.id, label: e.illustrative ? `${e.title} — illustrative, not a real study` : e.title }))]}
-        onChosen={fillFrom}
+        onChosen={(id) => void fillFrom(id)}
       />
       <RadioField name="effect.measure" legend="Measure reported" choices={MEASURE_CHOICES} />
       <div className="field-row">

@@ -1,8 +1,9 @@
 import type { PopulationTable } from '@/lib/tables/schema';
-import type { TablePreview } from './formModel';
+import { tablePreview } from './tablePreview';
 
 /** What the table gives for this person: the stratum's risk or rate, the horizon and the source. */
-export function LookupSummary({ table, preview }: { table: PopulationTable; preview: TablePreview }) {
+export function LookupSummary({ table, person }: { table: PopulationTable; person: { age: string; sex: string } }) {
+  const preview = tablePreview(table, person);
   return (
     <div className="lookup" aria-live="polite" data-testid="lookup">
       {preview.ok ? (
@@ -19,3 +20,5 @@ export function LookupSummary({ table, preview }: { table: PopulationTable; prev
     </div>
   );
 }
+
+export default LookupSummary;

@@ -4,8 +4,9 @@
  * clinician's figures and warnings, the charts and how it was all worked out. Shown only for a
  * complete, valid scenario; otherwise a list of what is still needed, never an old result.
  */
-import { lazy, Suspense, useEffect, useState } from 'react';
-import type { Issue, Result } from '@/lib/result';
+import { lazy, memo, Suspense, useEffect, useState } from 'react';
+import type { Issue, Result, Warning } from '@/lib/result';
+import { formatCount, overTheNext } from '@/lib/wording/format';
 import { fieldDomId, type FieldName } from './fields';
 import type { FormOutcome } from './formModel';
 
@@ -34,6 +35,7 @@ function useQuietAnnouncement(text: string): string {
 }
 
 const SHOWN_ISSUES = 8;
+const NO_WARNINGS: readonly Warning[] = [];
 
 function Pending({ issues }: { issues: readonly Issue[] }) {
   const shown = issues.slice(0, SHOWN_ISSUES);
@@ -57,9 +59,9 @@ function Pending({ issues }: { issues: readonly Issue[] }) {
   );
 }
 
-export function ResultPanel({ outcome }: { outcome: Result<FormOutcome> }) {
+function ResultPanelView({ outcome, extraWarnings = NO_WARNINGS }: { outcome: Result<FormOutcome>; extraWarnings?: readonly Warning[] }) {
   const summary = outcome.ok
-    ? `Result updated. ${outcome.value.patient.referenceSentence} ${outcome.value.patient.exposedSentence} ${outcome.value.patient.differenceSentence}`
+    ? `Result updated: figures for ${outcome.value.people}, ${overTheNext(outcome.value.result.horizonYears)}, out of ${formatCount(outcome.value.result.iconArray.denominator)} people.`
     : 'No result: some inputs are missing or need correcting.';
   const announced = useQuietAnnouncement(summary);
   return (
@@ -70,7 +72,7 @@ export function ResultPanel({ outcome }: { outcome: Result<FormOutcome> }) {
       </p>
       {outcome.ok ? (
         <Suspense fallback={<p className="charts__loading">Preparing the result…</p>}>
-          <Figures outcome={outcome.value} />
+          <Figures outcome={outcome.value} extraWarnings={extraWarnings} />
         </Suspense>
       ) : (
         <Pending issues={outcome.issues} />
@@ -78,3 +80,6 @@ export function ResultPanel({ outcome }: { outcome: Result<FormOutcome> }) {
     </section>
   );
 }
+
+/** Redraws only when the outcome or the extra warnings change. */
+export const ResultPanel = memo(ResultPanelView);

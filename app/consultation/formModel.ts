@@ -12,15 +12,12 @@
 import { z } from 'zod';
 import { computeScenario } from '@/lib/engine/compute';
 import type { ComputeResult } from '@/lib/engine/types';
-import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { fail, ok, type Issue, type Result } from '@/lib/result';
 import { parseScenario } from '@/lib/scenario/parse';
 import { toIssues } from '@/lib/scenario/issues';
-import { EFFECT_MEASURES, personSchema, STUDY_DESIGNS, type Person, type Scenario } from '@/lib/scenario/schema';
+import { EFFECT_MEASURES, personSchema, STUDY_DESIGNS, type Scenario } from '@/lib/scenario/schema';
 import { lookupStratum, tableNeeds, type StratumLookup } from '@/lib/tables/lookup';
 import type { PopulationTable } from '@/lib/tables/schema';
-import { patientText, type PatientText } from '@/lib/wording/patient';
-import { formatCount, formatPercent, formatYears } from '@/lib/wording/format';
 import { describePeople } from '@/lib/wording/people';
 
 /** Where the baseline comes from: a bundled table, or one of the engine's three forms typed in. */
@@ -82,7 +79,16 @@ export interface FormOutcome {
   readonly lookup?: StratumLookup;
   /** Who "people like you" are, e.g. "women aged 40 to 49". */
   readonly people: string;
-  readonly patient: PatientText;
+}
+
+/**
+ * The sentences (lib/wording/patient.ts) refuse a result without these two, with the same
+ * codes; checking them here keeps the form from offering a result the sentences would refuse.
+ */
+export const OUTCOME_REQUIRED_MESSAGE = 'The outcome is required in plain words, e.g. "heart failure needing hospital care"';
+
+function wordingText(text: string | undefined): string {
+  return (text ?? '').trim().replace(/[.\s]+$/, '');
 }
 
 /** A plain decimal as people type it: "0.08", ".08", "12", "1e-3"; a decimal comma is accepted. */
@@ -106,7 +112,7 @@ function optionalText(text: string): string | undefined {
 }
 
 /** Drops the keys whose value is undefined, so optional scenario fields stay absent. */
-function defined<T extends Record<string, unknown>>(object: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
+export function defined<T extends Record<string, unknown>>(object: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
   const out: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(object)) if (value !== undefined) out[key] = value;
   return out as { [K in keyof T]?: Exclude<T[K], undefined> };
@@ -145,7 +151,7 @@ type BaselinePart = {
   horizonFromTable?: number;
 };
 
-function checkedPerson(person: Scenario['person'] & object): Result<Scenario['person']> {
+export function checkedPerson(person: Scenario['person'] & object): Result<Scenario['person']> {
   const checked = personSchema.safeParse(person, { reportInput: true });
   if (checked.success) return ok(checked.data);
   return fail(toIssues(checked.error.issues).map((issue) => ({ ...issue, path: ['person', ...issue.path] })));
@@ -265,9 +271,11 @@ export function formToOutcome(values: ConsultationFormValues, tables: readonly P
   const result = computed.value;
   const ageBand = table && lookup && tableNeeds(table).age ? { fromYears: lookup.stratum.ageFrom, toYears: lookup.stratum.ageTo } : undefined;
   const people = describePeople({ person: scenario.person, ageBand, population: scenario.wording?.population });
-  const patient = patientText({ result, wording: scenario.wording, people: people.ok ? people.value : undefined, horizonYears: result.horizonYears });
-  if (!people.ok || !patient.ok) {
-    const textIssues = [...(people.ok ? [] : people.issues), ...(patient.ok ? [] : patient.issues)];
+  const textIssues: Issue[] = people.ok ? [] : [...people.issues];
+  if (wordingText(scenario.wording?.outcome) === '') {
+    textIssues.push({ code: 'outcome-required', path: ['wording', 'outcome'], message: OUTCOME_REQUIRED_MESSAGE });
+  }
+  if (!people.ok || textIssues.length > 0) {
     return fail(dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))));
   }
   return ok({
@@ -276,7 +284,6 @@ export function formToOutcome(values: ConsultationFormValues, tables: readonly P
     ...(table ? { table } : {}),
     ...(lookup ? { lookup } : {}),
     people: people.value,
-    patient: patient.value,
   });
 }
 
@@ -303,117 +310,17 @@ function dedupe(issues: readonly Issue[]): Issue[] {
 /**
  * The zod schema for react-hook-form's resolver: raw values in, {@link FormOutcome} out, the
  * engine's issues attached to the form's field paths.
+ *
+ * @param tables - the tables to pick from, or a function giving them when a clinic's own tables
+ *   are added during the consultation
  */
-export function makeConsultationSchema(tables: readonly PopulationTable[]) {
+export function makeConsultationSchema(tables: readonly PopulationTable[] | (() => readonly PopulationTable[])) {
   return formInputSchema.transform((values, ctx) => {
-    const outcome = formToOutcome(values, tables);
+    const outcome = formToOutcome(values, typeof tables === 'function' ? tables() : tables);
     if (outcome.ok) return outcome.value;
     for (const issue of outcome.issues) {
       ctx.addIssue({ code: 'custom', path: [...issue.path], message: issue.message, params: { code: issue.code } });
     }
     return z.NEVER;
   });
-}
-
-function text(value: number | undefined): string {
-  return value === undefined ? '' : String(value);
-}
-
-/**
- * A scenario (from a link) back into form values. A baseline that came from a known table, and
- * that the same lookup gives again, reopens as that table; any other baseline reopens in its own
- * typed-in form, keeping the person (who "people like you" are) but not the table.
- */
-export function scenarioToFormValues(scenario: Scenario, tables: readonly PopulationTable[]): ConsultationFormValues {
-  const { baseline, effect, wording = {}, person = {} } = scenario;
-  const values: ConsultationFormValues = {
-    ...EMPTY_FORM_VALUES,
-    effect: {
-      measure: effect.measure,
-      estimate: text(effect.estimate),
-      lower: text(effect.lower),
-      upper: text(effect.upper),
-      level: effect.level === undefined ? '' : (String(effect.level) as ConsultationFormValues['effect']['level']),
-      design: effect.design ?? '',
-      followUpYears: text(effect.followUpYears),
-      adjusted: effect.adjusted === undefined ? '' : effect.adjusted ? 'yes' : 'no',
-    },
-    wording: {
-      outcome: wording.outcome ?? '',
-      exposure: wording.exposure ?? '',
-      comparison: wording.comparison ?? '',
-      population: wording.population ?? '',
-      citation: wording.citation ?? '',
-    },
-    horizonYears: text(scenario.horizonYears),
-    denominator: scenario.denominator === undefined ? 'auto' : scenario.denominator === 100 ? '100' : '1000',
-    person: { age: text(person.age), sex: person.sex ?? '' },
-  };
-  const table = scenario.tableId === undefined ? undefined : tables.find((t) => t.id === scenario.tableId);
-  if (table) {
-    const found = lookupStratum(table, person);
-    if (found.ok && JSON.stringify(found.value.baseline) === JSON.stringify(baseline)) {
-      return { ...values, baselineSource: 'table', tableId: table.id };
-    }
-  }
-  if ('rate' in baseline) {
-    return { ...values, baselineSource: 'rate', rateBaseline: { rate: text(baseline.rate), perPersonYears: text(baseline.perPersonYears) } };
-  }
-  if ('populationRisk' in baseline) {
-    return {
-      ...values,
-      baselineSource: 'population',
-      populationBaseline: {
-        populationRisk: text(baseline.populationRisk),
-        exposurePrevalence: text(baseline.exposurePrevalence),
-        years: text(baseline.years),
-      },
-    };
-  }
-  return { ...values, baselineSource: 'risk', riskBaseline: { risk: text(baseline.risk), years: text(baseline.years) } };
-}
-
-/** The effect and wording fields an evidence entry fills in when the clinician picks it. */
-export function evidenceToFormValues(entry: EvidenceEntry): Pick<ConsultationFormValues, 'effect' | 'wording'> {
-  const filled = scenarioToFormValues({ baseline: { risk: 0.5, years: 1 }, effect: entry.effect, wording: entry.wording }, []);
-  return { effect: filled.effect, wording: filled.wording };
-}
-
-export type TablePreview =
-  | { readonly ok: true; readonly group: string; readonly figure: string }
-  | { readonly ok: false; readonly message: string };
-
-/**
- * What a table gives for the person typed so far, for the line under the table picker; shown
- * while the rest of the form is still being filled in.
- */
-export function tablePreview(table: PopulationTable, person: { age: string; sex: string }): TablePreview {
-  const needs = tableNeeds(table);
-  const age = needs.age ? numberFromText(person.age) : undefined;
-  const sex = needs.sex && (person.sex === 'female' || person.sex === 'male') ? person.sex : undefined;
-  const candidate: Person = defined({ age, sex });
-  const checked = checkedPerson(candidate);
-  if (!checked.ok) return { ok: false, message: checked.issues[0]?.message ?? 'Check the age' };
-  const found = lookupStratum(table, candidate);
-  if (!found.ok) {
-    const missing = found.issues.every((issue) => issue.code === 'required');
-    const wanted = [needs.age ? 'age' : undefined, needs.sex ? 'sex' : undefined].filter((w) => w !== undefined).join(' and ');
-    return { ok: false, message: missing ? `Enter the person’s ${wanted} to look up the risk.` : (found.issues[0]?.message ?? 'No group of the table fits') };
-  }
-  const { stratum, baseline } = found.value;
-  const ageBand = needs.age ? { fromYears: stratum.ageFrom, toYears: stratum.ageTo } : undefined;
-  const group = describePeople({ person: candidate, ageBand });
-  const figure =
-    'risk' in baseline
-      ? `a risk of ${formatPercent(baseline.risk)} over ${formatYears(baseline.years)} years`
-      : `${formatRate(baseline.rate)} events per ${formatCount(baseline.perPersonYears)} person-years${table.horizonYears !== undefined ? `; the suggested horizon is ${formatYears(table.horizonYears)} years` : ''}`;
-  return { ok: true, group: group.ok ? capitalise(group.value) : 'Everyone in the table', figure };
-}
-
-function capitalise(text: string): string {
-  return text.charAt(0).toUpperCase() + text.slice(1);
-}
-
-function formatRate(rate: number): string {
-  return rate.toLocaleString('en', { maximumFractionDigits: 3 });
 }

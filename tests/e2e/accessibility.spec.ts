@@ -37,6 +37,7 @@ for (const width of [1280, 320]) {
       await fillTypedScenario(page);
       await expect(page.getByTestId('result')).toBeVisible();
       await expect(page.getByTestId('chart-absolute')).toBeVisible();
+      await expect(page.getByTestId('settling')).toHaveAttribute('aria-busy', 'false');
       await page.getByText('Show each step').click();
       await expectNoViolations(page);
     });

@@ -1,17 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  EMPTY_FORM_VALUES,
-  evidenceToFormValues,
-  formToOutcome,
-  makeConsultationSchema,
-  numberFromText,
-  scenarioToFormValues,
-  type ConsultationFormValues,
-} from '@/app/consultation/formModel';
+import { EMPTY_FORM_VALUES, formToOutcome, makeConsultationSchema, numberFromText, type ConsultationFormValues } from '@/app/consultation/formModel';
+import { evidenceToFormValues, scenarioToFormValues } from '@/app/consultation/fromScenario';
 import { computeScenario } from '@/lib/engine/compute';
 import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
 import { DEMO_CORONARY_RATE, DEMO_HEART_FAILURE_10Y, DEMO_STROKE_5Y, DEMO_TABLES } from '@/lib/tables/demo';
+import { patientText } from '@/lib/wording/patient';
 import { scenarioArb } from '../support/arbitraries';
 
 const typed: ConsultationFormValues = {
@@ -46,7 +40,9 @@ describe('formToOutcome', () => {
     if (!outcome.ok) return;
     expect(outcome.value.scenario).toEqual({ baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9 }, wording: typedWording });
     expect(outcome.value.people).toBe('adults at a workplace health check');
-    expect(outcome.value.patient.reference.layout.tally.event).toBe(outcome.value.result.iconArray.referenceEvents);
+    // What the sentences need is there: lib/wording accepts this outcome and group.
+    const text = patientText({ result: outcome.value.result, wording: outcome.value.scenario.wording, people: outcome.value.people, horizonYears: outcome.value.result.horizonYears });
+    expect(text.ok).toBe(true);
     const direct = computeScenario(outcome.value.scenario);
     expect(direct.ok && direct.value).toEqual(outcome.value.result);
   });
@@ -122,9 +118,26 @@ describe('formToOutcome', () => {
       ['population-required', 'wording.population'],
       ['outcome-required', 'wording.outcome'],
     ]);
+    // An outcome of only dots or spaces is no outcome, as the sentences see it.
+    const dots = formToOutcome({ ...typed, wording: { ...typed.wording, outcome: ' ... ' } }, DEMO_TABLES);
+    expect(!dots.ok && dots.issues.map((i) => i.code)).toEqual(['outcome-required']);
     // An age or a sex names the group instead of the population text.
     const withAge = formToOutcome({ ...typed, person: { age: '53', sex: '' }, wording: { ...EMPTY_FORM_VALUES.wording, outcome: 'a stroke' } }, DEMO_TABLES);
     expect(withAge.ok && withAge.value.people).toBe('people aged 53');
+  });
+
+  it('never offers a result the sentences would refuse (1000 runs)', () => {
+    const words = fc.oneof(fc.constant(''), fc.constant(' . '), fc.constant('...'), fc.string({ maxLength: 30 }), fc.constant('a first stroke'));
+    fc.assert(
+      fc.property(words, words, fc.constantFrom('', '53'), fc.constantFrom('', 'female'), (outcome, population, age, sex) => {
+        const values = { ...typed, person: { age, sex }, wording: { ...EMPTY_FORM_VALUES.wording, outcome, population } } as ConsultationFormValues;
+        const outcomeResult = formToOutcome(values, DEMO_TABLES);
+        if (!outcomeResult.ok) return;
+        const { result, scenario, people } = outcomeResult.value;
+        expect(patientText({ result, wording: scenario.wording, people, horizonYears: result.horizonYears }).ok).toBe(true);
+      }),
+      { numRuns: 1000 },
+    );
   });
 
   it('requires a horizon with a typed rate, on the horizon field', () => {
