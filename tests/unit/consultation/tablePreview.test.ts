@@ -1,11 +1,18 @@
 import { describe, expect, it } from 'vitest';
 import { tablePreview } from '@/app/consultation/tablePreview';
 import { DEMO_CORONARY_RATE, DEMO_HEART_FAILURE_10Y, DEMO_STROKE_5Y } from '@/lib/tables/demo';
+import { formatPercent } from '@/lib/wording/format';
+
+// Percentages are written by lib/wording's formatPercent, whose own tests fix their format.
 
 describe('tablePreview: what the chosen table gives for the person so far', () => {
   it('names the group and its risk for a risk table', () => {
-    // lib/tables/demo.ts (invented): female 40–49, 0.006 over 10 years → "0.6%".
-    expect(tablePreview(DEMO_HEART_FAILURE_10Y, { age: '45', sex: 'female' })).toEqual({ ok: true, group: 'Women aged 40 to 49', figure: 'a risk of 0.6% over 10 years' });
+    // lib/tables/demo.ts (invented): female 40–49, 0.006 over 10 years.
+    expect(tablePreview(DEMO_HEART_FAILURE_10Y, { age: '45', sex: 'female' })).toEqual({
+      ok: true,
+      group: 'Women aged 40 to 49',
+      figure: `a risk of ${formatPercent(0.006)} over 10 years`,
+    });
   });
 
   it('gives the rate and the suggested horizon for a rate table', () => {
@@ -21,7 +28,8 @@ describe('tablePreview: what the chosen table gives for the person so far', () =
     expect(tablePreview(DEMO_HEART_FAILURE_10Y, { age: '', sex: '' })).toEqual({ ok: false, message: 'Enter the person’s age and sex to look up the risk.' });
     expect(tablePreview(DEMO_STROKE_5Y, { age: '', sex: 'male' })).toEqual({ ok: false, message: 'Enter the person’s age to look up the risk.' });
     // The stroke table is for both sexes together: the sex is not used.
-    expect(tablePreview(DEMO_STROKE_5Y, { age: '85', sex: 'male' })).toEqual({ ok: true, group: 'People aged 80 and over', figure: 'a risk of 12.0% over 5 years' });
+    // lib/tables/demo.ts (invented): 80 and over, 0.12 over 5 years.
+    expect(tablePreview(DEMO_STROKE_5Y, { age: '85', sex: 'male' })).toEqual({ ok: true, group: 'People aged 80 and over', figure: `a risk of ${formatPercent(0.12)} over 5 years` });
   });
 
   it('passes on the engine’s message for an age outside the table or not a whole number', () => {
