@@ -175,6 +175,9 @@ export function ConsultationScreen({
 
   return (
     <FormProvider {...methods}>
+      <a className="skip-link" href="#result">
+        Skip to the result
+      </a>
       <div className="screen">
         <div className="screen__form">
           <div className="intro">
