@@ -12,6 +12,7 @@ export type IssueCode =
   | 'invalid-json'
   | 'required'
   | 'not-a-number'
+  | 'not-a-whole-number'
   | 'wrong-type'
   | 'out-of-range'
   | 'invalid-choice'

@@ -54,8 +54,15 @@ export interface LogSymmetry {
 export const SYMMETRY_SLACK = 0.05;
 
 /**
+ * Ratios are published to at least one decimal (common practice): a limit that arrives as 1 was
+ * almost always printed "1.0", so it is taken to carry one decimal place, not none; otherwise a
+ * whole-number limit would loosen the check enough to hide a slip such as 1.5 (1–4).
+ */
+export const MIN_PRINTED_PLACES = 1;
+
+/**
  * Checks that X lies near √(L·U). Each printed number may be off by half a unit in its last
- * place, δ = 0.5·10^(−places); on the log scale that moves ln v by at most about δ/v, so
+ * place, δ = 0.5·10^(−places) with places ≥ {@link MIN_PRINTED_PLACES}; on the log scale that moves ln v by at most about δ/v, so
  * rounding explains an offset up to δX/X + (δL/L + δU/U)/2 (first-order bound, hand-derived).
  *
  * @example
@@ -65,7 +72,7 @@ export const SYMMETRY_SLACK = 0.05;
 export function logSymmetry(estimate: number, lower: number, upper: number): LogSymmetry {
   const offset = Math.log(estimate) - (Math.log(lower) + Math.log(upper)) / 2;
   const halfWidth = (Math.log(upper) - Math.log(lower)) / 2;
-  const rounding = (v: number) => (0.5 * 10 ** -decimalPlaces(v)) / v;
+  const rounding = (v: number) => (0.5 * 10 ** -Math.max(MIN_PRINTED_PLACES, decimalPlaces(v))) / v;
   const tolerance = rounding(estimate) + (rounding(lower) + rounding(upper)) / 2 + SYMMETRY_SLACK * halfWidth;
   return { offset, tolerance, symmetric: Math.abs(offset) <= tolerance };
 }

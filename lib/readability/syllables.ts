@@ -16,7 +16,7 @@
  * 6. Vowel groups over a, e, i, o, u and y; "y" is a consonant at the start of a word and after
  *    a vowel ("year" 1, "player" 2), a vowel after a consonant ("party" 2, "studying" 3).
  * 7. Some vowel pairs are two syllables: "ia" (not after c, t, g, s: "dial" 2, "social" 2),
- *    "io" (not after c, t, s, x, g: "period" 3, "nation" 2), "eo" ("video" 3), "ua" (not
+ *    "io" (not after c, t, s, x, g: "period" 3, "nation" 2), "eo" ("rodeo" 3), "ua" (not
  *    after q, g: "usual" 3, "equal" 2), "iu" ("medium" 3), final "-ier"/"-iest" ("earlier" 3).
  * 8. A contraction "n't" after a consonant adds one ("didn't" 2, "don't" 1).
  * 9. Every word has at least one syllable; accents are ignored, except that a final "é" is

@@ -12,6 +12,7 @@ function codeFor(issue: ZodIssue): IssueCode {
   switch (issue.code) {
     case 'invalid_type':
       if (!('input' in issue) || issue.input === undefined) return 'required';
+      if (issue.expected === 'int') return 'not-a-whole-number';
       return issue.expected === 'number' ? 'not-a-number' : 'wrong-type';
     case 'too_small':
     case 'too_big':

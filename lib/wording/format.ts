@@ -68,24 +68,31 @@ export function overTheNext(horizonYears: number): string {
 }
 
 /**
- * A percentage for the clinician view, one decimal: 0.08 → "8.0%".
+ * A percentage for the clinician view: one decimal from 1% up (0.0825 → "8.3%"); below 1%, two
+ * significant figures (0.0003 → "0.030%"), so that a small risk never reads as "0.0%".
  * @example
  * formatPercent(0.0825) //=> "8.3%"
+ * formatPercent(0.0003) //=> "0.030%"
  */
 export function formatPercent(fraction: number): string {
-  return `${(fraction * 100).toLocaleString(TEXT_LOCALE, { minimumFractionDigits: 1, maximumFractionDigits: 1 })}%`;
+  const percent = fraction * 100;
+  if (percent !== 0 && Math.abs(percent) < 1) {
+    return `${percent.toLocaleString(TEXT_LOCALE, { minimumSignificantDigits: 2, maximumSignificantDigits: 2 })}%`;
+  }
+  return `${percent.toLocaleString(TEXT_LOCALE, { minimumFractionDigits: 1, maximumFractionDigits: 1 })}%`;
 }
 
 /**
- * A signed number of percentage points for the clinician view, one decimal: 0.04 → "+4.0".
+ * A signed number of percentage points for the clinician view, rounded like
+ * {@link formatPercent} (by magnitude, so +x and −x mirror each other): 0.04 → "+4.0".
  * @example
- * formatPercentagePoints(-0.031) //=> "−3.1"
+ * formatPercentagePoints(-0.0315) //=> "−3.2"
  */
 export function formatPercentagePoints(fraction: number): string {
-  const value = Math.round(fraction * 1000) / 10;
-  const magnitude = Math.abs(value).toLocaleString(TEXT_LOCALE, { minimumFractionDigits: 1, maximumFractionDigits: 1 });
-  if (value > 0) return `+${magnitude}`;
-  if (value < 0) return `\u2212${magnitude}`;
+  const magnitude = formatPercent(Math.abs(fraction)).slice(0, -1);
+  if (/^[0.,]+$/.test(magnitude)) return magnitude;
+  if (fraction > 0) return `+${magnitude}`;
+  if (fraction < 0) return `\u2212${magnitude}`;
   return magnitude;
 }
 

@@ -32,9 +32,19 @@ describe('logSymmetry', () => {
     // Hand-computed: √(1.2·1.9) = 1.510; 1.5 is within rounding of the geometric mean.
     expect(logSymmetry(1.5, 1.2, 1.9).symmetric).toBe(true);
     // Hand-computed: 1.10 (1.00–1.20): offset = ln 1.1 − (ln 1 + ln 1.2)/2 = 0.0953 − 0.0912 = 0.0041.
-    // 1.00 reaches the engine as 1 (no decimals), so rounding allows 0.05/1.1 + (0.5/1 + 0.05/1.2)/2
-    // + 0.05·0.0912 = 0.0455 + 0.2708 + 0.0046 = 0.321.
+    // 1.00 reaches the engine as 1, taken as printed to one decimal, so rounding allows
+    // 0.05/1.1 + (0.05/1 + 0.05/1.2)/2 + 0.05·0.0912 = 0.0455 + 0.0458 + 0.0046 = 0.0959.
     expect(logSymmetry(1.1, 1.0, 1.2).symmetric).toBe(true);
+  });
+
+  it('does not let whole-number limits hide a slip', () => {
+    // Hand-computed: 1.5 (1–4): offset = 0.4055 − (0 + 1.3863)/2 = −0.2877. With limits taken to one
+    // decimal, rounding allows 0.05/1.5 + (0.05/1 + 0.05/4)/2 + 0.05·0.6931 = 0.0333 + 0.0313 + 0.0347
+    // = 0.0992, so it is flagged (read as whole numbers it would have allowed 0.380 and passed).
+    const result = logSymmetry(1.5, 1, 4);
+    expect(result.offset).toBeCloseTo(-0.2877, 4);
+    expect(result.tolerance).toBeCloseTo(0.0992, 4);
+    expect(result.symmetric).toBe(false);
   });
 
   it('flags a slipped digit', () => {

@@ -38,7 +38,7 @@ const WORDS: readonly (readonly [string, number, string])[] = [
   ['Australian', 4, 'ia split'],
   ['period', 3, 'io split'],
   ['nation', 2, 'tio is one'],
-  ['video', 3, 'eo split'],
+  ['rodeo', 3, 'eo split'],
   ['usual', 3, 'ua split'],
   ['equal', 2, 'qua is one'],
   ['medium', 3, 'iu split'],

@@ -114,7 +114,7 @@ describe('parseScenario refuses, naming the field', () => {
     ['horizon NaN', { ...valid, horizonYears: Number.NaN }, 'not-a-number', ['horizonYears']],
     ['horizon as a string', { ...valid, horizonYears: '10' }, 'not-a-number', ['horizonYears']],
     ['unknown top-level field', { ...valid, horizon: 10 }, 'unknown-field', ['horizon']],
-    ['age with a fraction', { ...valid, person: { age: 45.5 } }, 'wrong-type', ['person', 'age']],
+    ['age with a fraction', { ...valid, person: { age: 45.5 } }, 'not-a-whole-number', ['person', 'age']],
     ['unknown sex', { ...valid, person: { sex: 'f' } }, 'invalid-choice', ['person', 'sex']],
   ] as const)('%s', (_label, input, code, path) => {
     const issue = firstIssue(input);

@@ -35,3 +35,16 @@ describe('parseScenario picks the baseline form by its key', () => {
     });
   });
 });
+
+describe('whole-number fields', () => {
+  it('calls a fractional age "not-a-whole-number"', () => {
+    const result = parseScenario({
+      baseline: { risk: 0.1, years: 10 },
+      effect: { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9 },
+      person: { age: 45.5 },
+    });
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.issues[0]).toMatchObject({ code: 'not-a-whole-number', path: ['person', 'age'], message: 'The age must be a whole number of years' });
+  });
+});

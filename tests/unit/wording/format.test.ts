@@ -26,4 +26,16 @@ describe('formatting for locale en (common practice)', () => {
     expect(formatPercentagePoints(0)).toBe('0.0');
     expect(formatRatio(1.4567)).toBe('1.46');
   });
+  it('never shows a small risk as 0.0% (two significant figures below 1%)', () => {
+    // Hand-computed: 0.3 per 1,000 person-years over 1 year ≈ 0.0003 → 0.030%.
+    expect(formatPercent(0.0003)).toBe('0.030%');
+    expect(formatPercent(0.0049)).toBe('0.49%');
+    expect(formatPercent(0)).toBe('0.0%');
+    expect(formatPercentagePoints(0.004)).toBe('+0.40');
+  });
+  it('rounds percentage points by magnitude, so +x and −x mirror each other', () => {
+    // Hand-computed: ±0.0315 → ±3.15 points → 3.2 either way (half away from zero, as toLocaleString rounds).
+    expect(formatPercentagePoints(0.0315)).toBe('+3.2');
+    expect(formatPercentagePoints(-0.0315)).toBe('\u22123.2');
+  });
 });
