@@ -8,8 +8,10 @@
 import { existsSync } from 'node:fs';
 import { defineConfig, devices } from '@playwright/test';
 
-export const CHROMIUM_PATH = '/usr/bin/chromium';
-export const E2E_PORT = 3100;
+/** Debian's Chromium; PLAYWRIGHT_CHROMIUM_PATH points elsewhere (e.g. to check the message below). */
+export const CHROMIUM_PATH = process.env.PLAYWRIGHT_CHROMIUM_PATH ?? '/usr/bin/chromium';
+/** The port the built app is served on for the tests; E2E_PORT overrides it (e.g. to run two checkouts at once). */
+export const E2E_PORT = Number(process.env.E2E_PORT ?? 3100);
 
 if (!existsSync(CHROMIUM_PATH)) {
   process.stderr.write(`Chromium is missing at ${CHROMIUM_PATH}: install it with \`apt-get install chromium\` (Debian), then run the tests again.\n`);
