@@ -37,7 +37,12 @@ export function EvidenceSection({ entries, children }: { entries: readonly Evide
         <TextField name="effect.estimate" label="Estimate" deps={LIMITS.filter((n) => n !== 'effect.estimate')} />
         <TextField name="effect.lower" label="Lower limit" deps={LIMITS.filter((n) => n !== 'effect.lower')} />
         <TextField name="effect.upper" label="Upper limit" deps={LIMITS.filter((n) => n !== 'effect.upper')} />
-        <SelectField name="effect.level" label="Interval level" choices={LEVEL_CHOICES_FOR_FORM} />
+        <SelectField
+          name="effect.level"
+          label="Interval level"
+          hint="How sure the paper’s interval is meant to be; most papers give 95%."
+          choices={LEVEL_CHOICES_FOR_FORM}
+        />
       </div>
       <RadioField name="effect.design" legend="Study design" choices={DESIGN_CHOICES} />
       <div className="field-row">

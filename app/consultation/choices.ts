@@ -66,6 +66,6 @@ export const SEX_CHOICES_FOR_FORM: readonly Choice[] = [
 
 export const DENOMINATOR_CHOICES_FOR_FORM: readonly Choice[] = [
   { value: 'auto', label: 'Automatic', explanation: '100 people when every count is a whole person, otherwise 1,000.' },
-  { value: '100', label: '100 people' },
-  { value: '1000', label: '1,000 people' },
+  { value: '100', label: '100 people', explanation: 'Easiest to take in; a risk below half a person in 100 then shows as no one.' },
+  { value: '1000', label: '1,000 people', explanation: 'Shows small risks and small differences, at the cost of a busier picture.' },
 ];
