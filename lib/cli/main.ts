@@ -14,7 +14,8 @@ export const USAGE = `Usage: hundredfold <command> [options]
 Commands:
   compute [--input FILE] [--ndjson]   one scenario as JSON (stdin or FILE) -> one result as JSON
   link [--input FILE]                 print the path and query that open the scenario in the app
-  glycaemia [--input FILE] [--fhir]   classify serial HbA1c / fasting glucose results
+  glycaemia [--input FILE] [--fhir] [--criteria ADA|WHO|NICE]
+                                      classify serial HbA1c / fasting glucose results
   table check FILE                    validate a population-table CSV file
 
 Exit codes: 0 done, 1 some --ndjson lines failed, 2 bad input or usage.`;
