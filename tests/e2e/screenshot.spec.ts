@@ -15,6 +15,7 @@ for (const [name, width, height] of [
     await page.getByTestId('load-example').click();
     await expect(page.getByTestId('result')).toBeVisible();
     await expect(page.getByTestId('chart-horizon')).toBeVisible();
+    await expect(page.getByTestId('settling')).toHaveAttribute('aria-busy', 'false');
     await page.screenshot({ path: `test-results/screens/result-${name}.png`, fullPage: true });
   });
 }
