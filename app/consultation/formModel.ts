@@ -311,12 +311,11 @@ function dedupe(issues: readonly Issue[]): Issue[] {
  * The zod schema for react-hook-form's resolver: raw values in, {@link FormOutcome} out, the
  * engine's issues attached to the form's field paths.
  *
- * @param tables - the tables to pick from, or a function giving them when a clinic's own tables
- *   are added during the consultation
+ * @param tables - the tables the clinician can pick from (bundled and from the clinic library)
  */
-export function makeConsultationSchema(tables: readonly PopulationTable[] | (() => readonly PopulationTable[])) {
+export function makeConsultationSchema(tables: readonly PopulationTable[]) {
   return formInputSchema.transform((values, ctx) => {
-    const outcome = formToOutcome(values, typeof tables === 'function' ? tables() : tables);
+    const outcome = formToOutcome(values, tables);
     if (outcome.ok) return outcome.value;
     for (const issue of outcome.issues) {
       ctx.addIssue({ code: 'custom', path: [...issue.path], message: issue.message, params: { code: issue.code } });
