@@ -93,7 +93,7 @@ function baselineStep({ scenario, result, table, stratum }: ExplainInput): Expla
       id: 'baseline',
       title: 'Baseline: the comparison group’s risk inside a population average',
       formula: 'Ppop = (1 − pe)·P0 + pe·P1(P0), solved for P0, with P1 from the conversion below at the estimate',
-      numbers: `${sig(baseline.populationRisk)} = (1 − ${sig(baseline.exposurePrevalence)})·P0 + ${sig(baseline.exposurePrevalence)}·P1(P0), ratio ${sig(scenario.effect.estimate)}`,
+      numbers: `${sig(baseline.populationRisk)} = (1 − ${sig(baseline.exposurePrevalence)})·P0 + ${sig(baseline.exposurePrevalence)}·P1(P0), ratio ${sig(scenario.effect.estimate)} (solved at the estimate; P0 is then held fixed for the interval's limits)`,
       result: `P0 = ${sig(p0)} (${pct(p0)}) over ${sig(baseline.years)} years`,
       source: `${SOURCES.population}; the population risk and prevalence were entered by the clinician`,
     };
