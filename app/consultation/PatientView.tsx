@@ -8,6 +8,7 @@ import { IconArray } from '@/app/components/IconArray';
 import { IconLegend, legendEntriesFrom } from '@/app/components/IconLegend';
 import type { ArrayText, PatientText } from '@/lib/wording/patient';
 import { formatCount } from '@/lib/wording/format';
+import { GroupsTable } from '@/app/components/GroupsTable';
 
 function ArrayBlock({ text, idPrefix }: { text: ArrayText; idPrefix: string }) {
   return (
@@ -43,25 +44,7 @@ function PatientViewInner({ text }: { text: PatientText }) {
         <ArrayBlock text={text.reference} idPrefix="array-reference" />
         <ArrayBlock text={text.exposed} idPrefix="array-exposed" />
       </div>
-      <table className="data-table" data-testid="groups-table">
-        <caption>{text.dataTable.caption}</caption>
-        <thead>
-          <tr>
-            <th scope="col">Group</th>
-            <th scope="col">Will have {text.outcome}</th>
-            <th scope="col">Will not</th>
-          </tr>
-        </thead>
-        <tbody>
-          {text.dataTable.rows.map((row) => (
-            <tr key={row.group}>
-              <th scope="row">{row.group}</th>
-              <td>{row.willHave}</td>
-              <td>{row.willNotHave}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <GroupsTable text={text} className="data-table" testId="groups-table" />
       <div className="meaning">
         <div>
           <h4>What these numbers mean</h4>

@@ -9,6 +9,7 @@ import { IconLegend, type IconLegendEntry } from '@/app/components/IconLegend';
 import type { Clinic, HandoutBlocks, HandoutContent } from '@/lib/handout';
 import type { LegendItem } from '@/lib/wording';
 import { CAUTION_HEADING } from '@/lib/wording';
+import { GroupsTable } from '@/app/components/GroupsTable';
 
 export interface HandoutSheetProps {
   readonly content: HandoutContent;
@@ -70,25 +71,7 @@ export function HandoutSheet({ content, blocks, clinic }: HandoutSheetProps) {
           <IconArray layout={text.exposed.layout} title={text.exposed.title} description={text.exposed.caption} idPrefix="handout-exposed" />
         </div>
         <IconLegend entries={legendEntries(text.reference.legend, text.exposed.legend)} idPrefix="handout-legend" heading="Key to the pictures" />
-        <table className="sheet__table">
-          <caption>{text.dataTable.caption}</caption>
-          <thead>
-            <tr>
-              <th scope="col">Group</th>
-              <th scope="col">Will have {text.outcome}</th>
-              <th scope="col">Will not</th>
-            </tr>
-          </thead>
-          <tbody>
-            {text.dataTable.rows.map((row) => (
-              <tr key={row.group}>
-                <th scope="row">{row.group}</th>
-                <td>{row.willHave}</td>
-                <td>{row.willNotHave}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <GroupsTable text={text} className="sheet__table" />
       </section>
 
       <div className="sheet__columns">
