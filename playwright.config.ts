@@ -2,9 +2,11 @@
  * Browser tests of the consultation screen (tests/e2e/), run against a production build.
  *
  * Playwright cannot download its own browser on this machine, so the tests drive Debian's
- * Chromium at /usr/bin/chromium (shared/guides/toolchain.md). Without it the run stops at once
- * with one line saying how to install it.
+ * Chromium at /usr/bin/chromium (shared/guides/toolchain.md). Without it, or without
+ * poppler-utils for the handout's PDF checks, the run stops at once with one line saying how to
+ * install what is missing.
  */
+import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { defineConfig, devices } from '@playwright/test';
 
@@ -15,6 +17,20 @@ export const E2E_PORT = Number(process.env.E2E_PORT ?? 3100);
 
 if (!existsSync(CHROMIUM_PATH)) {
   process.stderr.write(`Chromium is missing at ${CHROMIUM_PATH}: install it with \`apt-get install chromium\` (Debian), then run the tests again.\n`);
+  process.exit(1);
+}
+
+/** The handout's PDF checks read the printed page with poppler-utils' pdftotext and pdftoppm. */
+function hasCommand(name: string): boolean {
+  try {
+    execFileSync(name, ['-v'], { stdio: 'ignore' });
+    return true;
+  } catch {
+    return false;
+  }
+}
+if (!hasCommand('pdftotext') || !hasCommand('pdftoppm')) {
+  process.stderr.write('pdftotext and pdftoppm are missing: install them with `apt-get install poppler-utils` (Debian), then run the tests again.\n');
   process.exit(1);
 }
 
