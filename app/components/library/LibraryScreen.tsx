@@ -41,7 +41,7 @@ function LibraryPanels({ onUseTable, onUseEvidence, selectedTableId, selectedEvi
       <LibraryStatus />
       <section aria-labelledby="library-tables">
         <H id="library-tables">Population tables</H>
-        <TableImport onSaved={onUseTable ? (t) => onUseTable(t.table.id) : undefined} />
+        <TableImport onSaved={onUseTable ? (t) => onUseTable(t.table.id) : undefined} headingLevel={headingLevel === 2 ? 3 : 4} />
         <TableList onUse={onUseTable} selectedId={selectedTableId} />
       </section>
       <section aria-labelledby="library-evidence">

@@ -5,7 +5,8 @@
  * clinician confirms a file without problems. A file with any problem saves nothing.
  *
  * Props:
- * - onSaved(table): called after the table is saved (e.g. to select it on the consultation screen).
+ * - onSaved(table): called after the table is saved (e.g. to select it on the consultation screen);
+ * - headingLevel: 3 (default) or 4, one below the heading it sits under.
  *
  * Needs a {@link LibraryProvider} above it.
  */
@@ -20,6 +21,7 @@ import './library.css';
 
 export interface TableImportProps {
   readonly onSaved?: ((table: StoredTable) => void) | undefined;
+  readonly headingLevel?: 3 | 4;
 }
 
 type Phase =
@@ -31,7 +33,8 @@ type Phase =
 /** Lets the page paint and answer input between blocks. */
 const yieldToPage = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
-export function TableImport({ onSaved }: TableImportProps) {
+export function TableImport({ onSaved, headingLevel = 3 }: TableImportProps) {
+  const H = headingLevel === 3 ? 'h3' : 'h4';
   const id = useId();
   const { library, changed, status } = useLibrary();
   const [phase, setPhase] = useState<Phase>({ kind: 'idle' });
@@ -107,7 +110,7 @@ export function TableImport({ onSaved }: TableImportProps) {
 
   return (
     <section className="library__panel" aria-labelledby={`${id}-title`}>
-      <h3 id={`${id}-title`}>Import a table from a CSV file</h3>
+      <H id={`${id}-title`}>Import a table from a CSV file</H>
       <p className="field__hint" id={`${id}-hint`}>
         A spreadsheet saved as CSV: details lines such as <code># title: …</code>, then columns sex, age_from, age_to and risk (or rate and
         person_years). The whole file is checked before anything is saved. At most {MAX_TABLE_FILE_BYTES / 1024 / 1024} MB.
