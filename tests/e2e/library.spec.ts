@@ -1,0 +1,240 @@
+/**
+ * The clinic library end to end, as a clinician uses it on the consultation screen: import a
+ * population table from a CSV file (docs/table-format.md), check its preview, save it, use it
+ * for the baseline, and find it again after a reload; a file with a problem shows each problem
+ * with its row and column and saves nothing; an evidence entry saved to the library survives a
+ * reload. The expected figures and problems come from the engine (lib/), never from the page.
+ *
+ * Every test starts in a fresh browser context, so each has its own empty IndexedDB.
+ * The tables and the evidence here are invented: illustrative numbers, not from a real
+ * population or study.
+ */
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test, type Locator, type Page } from '@playwright/test';
+import type { Effect, Scenario, Wording } from '../../lib/scenario/schema';
+import { parseTableCsv } from '../../lib/tables/csv';
+import { lookupStratum } from '../../lib/tables/lookup';
+import type { PopulationTable } from '../../lib/tables/schema';
+import { expectScreenShows, field, fillTypedScenario, TYPED_SCENARIO } from './support';
+
+const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+
+/** The details block, lines 1 to 7 of each file; the header row is line 8. */
+function details(title: string): string {
+  return [
+    `# title: ${title}`,
+    '# outcome: a first stroke',
+    '# horizon_years: 10',
+    '# population: Adults aged 40 and over in an invented test district',
+    '# source: Invented for the browser test (illustrative numbers, not from a real population)',
+    '# year: 2024',
+    '# illustrative: true',
+  ].join('\n');
+}
+
+const TABLE_TITLE = 'Stroke within 10 years, test district';
+
+/** A small valid table: two sexes, two age bands each (rows 9 to 12). Invented numbers. */
+const GOOD_CSV = `${details(TABLE_TITLE)}
+sex,age_from,age_to,risk
+female,40,59,0.03
+female,60,120,0.07
+male,40,59,0.04
+male,60,120,0.09
+`;
+
+/** Row 10 overlaps row 9 (55 to 120 against 40 to 59) and row 11 has a risk of 1.5. */
+const BAD_CSV = `${details('Broken test table')}
+sex,age_from,age_to,risk
+female,40,59,0.03
+female,55,120,0.07
+male,40,59,1.5
+male,60,120,0.09
+`;
+
+/** The table the engine reads from the good file: what the screen must use. */
+function goodTable(): PopulationTable {
+  const parsed = parseTableCsv(GOOD_CSV);
+  if (!parsed.ok) throw new Error(`the test table must be valid: ${JSON.stringify(parsed.issues)}`);
+  return parsed.value;
+}
+
+/** The evidence typed in for the table scenario: a hazard ratio of 1.4 (1.1 to 1.8). Invented. */
+const EFFECT: Effect = { measure: 'HR', estimate: 1.4, lower: 1.1, upper: 1.8, design: 'cohort' };
+const WORDING: Wording = { outcome: 'a first stroke', exposure: 'current smoking', comparison: 'never smoking' };
+
+/** The scenario the screen must compute with the table for this person. */
+function tableScenario(table: PopulationTable, person: { age: number; sex: 'female' | 'male' }): Scenario {
+  const found = lookupStratum(table, person);
+  if (!found.ok) throw new Error(`the test table covers ${JSON.stringify(person)}`);
+  return { baseline: found.value.baseline, effect: EFFECT, wording: WORDING, person, tableId: table.id };
+}
+
+async function openLibrary(page: Page): Promise<Locator> {
+  await page.getByRole('button', { name: 'Open the library' }).click();
+  const library = page.getByTestId('library-section');
+  // The file input is enabled once the library has opened its database.
+  await expect(library.getByLabel('Table file (.csv)')).toBeEnabled();
+  return library;
+}
+
+async function chooseCsv(library: Locator, name: string, text: string): Promise<void> {
+  await library.getByLabel('Table file (.csv)').setInputFiles({ name, mimeType: 'text/csv', buffer: Buffer.from(text, 'utf8') });
+}
+
+/** The saved tables, as listed (one article each). */
+function savedTables(library: Locator): Locator {
+  return library.getByRole('region', { name: 'Population tables' }).locator('.library__items > li > article');
+}
+
+/** What the list says about each saved table: title, details and coverage, without the "(in use)" mark. */
+async function listedTables(library: Locator): Promise<string[]> {
+  return (await savedTables(library).allInnerTexts()).map((text) => text.replace(' (in use)', ''));
+}
+
+async function fillEvidence(page: Page): Promise<void> {
+  await page.getByLabel('Hazard ratio (HR)', { exact: true }).check();
+  await field(page, 'effect.estimate').fill(String(EFFECT.estimate));
+  await field(page, 'effect.lower').fill(String(EFFECT.lower));
+  await field(page, 'effect.upper').fill(String(EFFECT.upper));
+  await page.getByLabel('Cohort', { exact: true }).check();
+  await field(page, 'wording.outcome').fill(WORDING.outcome ?? '');
+  await field(page, 'wording.exposure').fill(WORDING.exposure ?? '');
+  await field(page, 'wording.comparison').fill(WORDING.comparison ?? '');
+}
+
+test('the import preview shows the file’s details and rows, saves nothing until confirmed, and passes axe', async ({ page }) => {
+  await page.goto('/');
+  const library = await openLibrary(page);
+  await expect(library).toContainText('No tables saved yet');
+  // Under "Population tables" (level 3 on this screen), one level down.
+  await expect(library.getByRole('heading', { name: 'Import a table from a CSV file', level: 4 })).toBeVisible();
+
+  await chooseCsv(library, 'test-district.csv', GOOD_CSV);
+  await expect(library).toContainText('test-district.csv: no problems found. Check the preview, then save.');
+  const preview = library.locator('.library__preview');
+  await expect(preview.locator('dl')).toContainText(TABLE_TITLE);
+  await expect(preview.locator('dl')).toContainText('a first stroke');
+  await expect(preview.getByRole('table')).toContainText('First 4 of 4 rows');
+  // Each row of the file, numbered as a spreadsheet numbers it (the header is row 8).
+  const rows = preview.locator('tbody tr');
+  await expect(rows).toHaveCount(4);
+  await expect(rows.nth(0)).toHaveText(['9', 'female', '40', '59', '0.03'].join(''));
+  await expect(rows.nth(3)).toHaveText(['12', 'male', '60', '120', '0.09'].join(''));
+  await expect(library.getByRole('button', { name: 'Save table' })).toBeEnabled();
+  // Nothing is saved before the clinician confirms.
+  await expect(savedTables(library)).toHaveCount(0);
+
+  await library.scrollIntoViewIfNeeded();
+  await library.screenshot({ path: 'test-results/screens/library-import-preview.png' });
+  const report = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();
+  expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join('; ')}`)).toEqual([]);
+});
+
+test('a CSV table imported and saved is used for the baseline, and after a reload it is still listed and usable', async ({ page }) => {
+  const table = goodTable();
+  await page.goto('/');
+  const library = await openLibrary(page);
+  await chooseCsv(library, 'test-district.csv', GOOD_CSV);
+  await expect(library).toContainText('test-district.csv: no problems found. Check the preview, then save.');
+  await expect(library.locator('.library__preview tbody tr')).toHaveCount(4);
+
+  await library.getByRole('button', { name: 'Save table' }).click();
+  await expect(library).toContainText(`Saved “${TABLE_TITLE}” (4 strata) as ${table.id}.`);
+  await expect(savedTables(library)).toHaveCount(1);
+  const item = library.getByRole('article', { name: TABLE_TITLE });
+  await expect(item).toContainText('4 strata: female and male, ages 40 and over; risks over 10 years');
+  await expect(item).toContainText('(in use)');
+
+  // Saving picks the table for this consultation; it needs the age and sex.
+  await expect(field(page, 'tableId')).toHaveValue(table.id);
+  await field(page, 'person.age').fill('64');
+  await field(page, 'person.sex').selectOption('female');
+  await expect(page.getByTestId('lookup')).toContainText(`${table.population}. Source: ${table.source} (${table.year}).`);
+  await expect(page.getByTestId('lookup')).toContainText('Illustrative numbers, not from a real population');
+  await fillEvidence(page);
+  await expectScreenShows(page, tableScenario(table, { age: 64, sex: 'female' }));
+
+  await page.reload();
+  const reopened = await openLibrary(page);
+  await expect(savedTables(reopened)).toHaveCount(1);
+  const kept = reopened.getByRole('article', { name: TABLE_TITLE });
+  await expect(kept).toContainText('4 strata: female and male, ages 40 and over; risks over 10 years');
+  await kept.getByRole('button', { name: 'View strata' }).click();
+  await expect(kept.getByRole('table')).toContainText('60 and over');
+  await kept.getByRole('button', { name: 'Use this table' }).click();
+  await expect(field(page, 'tableId')).toHaveValue(table.id);
+  await expect(kept).toContainText('(in use)');
+  // Another person, so the figures come from the stored table and not from the address.
+  await field(page, 'person.age').fill('45');
+  await field(page, 'person.sex').selectOption('male');
+  await expectScreenShows(page, tableScenario(table, { age: 45, sex: 'male' }));
+});
+
+test('a CSV with an overlapping age band and a risk of 1.5 shows each problem with its row and column and saves nothing', async ({ page }) => {
+  const checked = parseTableCsv(BAD_CSV);
+  if (checked.ok) throw new Error('the bad test table must be refused');
+  const codes = checked.issues.map((i) => `${i.code} row ${i.line} ${i.column}`);
+  expect(codes).toEqual(['overlapping-age-bands row 10 age_from', 'out-of-range row 11 risk']);
+
+  await page.goto('/');
+  const library = await openLibrary(page);
+  await chooseCsv(library, 'test-district.csv', GOOD_CSV);
+  await library.getByRole('button', { name: 'Save table' }).click();
+  await expect(savedTables(library)).toHaveCount(1);
+  const before = await listedTables(library);
+
+  await chooseCsv(library, 'broken.csv', BAD_CSV);
+  const problems = library.getByRole('alert').filter({ hasText: 'nothing was saved' });
+  await expect(problems).toContainText('2 problems in broken.csv — nothing was saved. Correct the file and choose it again.');
+  await expect(problems.locator('li')).toHaveText(checked.issues.map((i) => i.message));
+  await expect(problems.locator('li').nth(0)).toContainText('Row 10, column age_from:');
+  await expect(problems.locator('li').nth(1)).toContainText('Row 11, column risk:');
+  // The preview still shows what was read, but there is nothing to save.
+  await expect(library.locator('.library__preview tbody tr')).toHaveCount(4);
+  await expect(library.getByRole('button', { name: 'Save table' })).toHaveCount(0);
+  expect(await listedTables(library)).toEqual(before);
+
+  // Nothing reached the browser's storage either.
+  await page.reload();
+  const reopened = await openLibrary(page);
+  await expect(savedTables(reopened)).toHaveCount(1);
+  expect(await listedTables(reopened)).toEqual(before);
+  await expect(reopened.getByRole('article', { name: 'Broken test table' })).toHaveCount(0);
+});
+
+test('evidence saved to the library survives a reload and fills the evidence again', async ({ page }) => {
+  const title = 'Raised blood pressure and a first stroke (test entry)';
+  await page.goto('/');
+  await fillTypedScenario(page);
+  await expectScreenShows(page, TYPED_SCENARIO);
+
+  const library = await openLibrary(page);
+  const save = library.getByRole('form', { name: 'Save this evidence to the library' });
+  await save.getByLabel('Title in the library').fill(title);
+  await save.getByRole('button', { name: 'Save this evidence' }).click();
+  await expect(save).toContainText(`Saved as “${title}”.`);
+  await expect(library.getByRole('article', { name: title })).toContainText('RR 1.5 (CI 1.2 to 1.9), cohort.');
+
+  await page.reload();
+  // Start from an empty form, so the evidence can only come from the library.
+  await page.getByRole('button', { name: 'Clear the form' }).click();
+  await expect(page.getByTestId('no-result')).toBeVisible();
+  const reopened = await openLibrary(page);
+  await reopened.getByLabel('Find by words').fill('blood pressure');
+  await expect(reopened).toContainText('1 of 1 entries shown');
+  const entry = reopened.getByRole('article', { name: title });
+  await expect(entry).toContainText('raised blood pressure vs normal blood pressure; outcome: a first stroke.');
+
+  const { baseline, person = {} } = TYPED_SCENARIO;
+  if (!('risk' in baseline)) throw new Error('the typed scenario has a risk baseline');
+  await page.getByLabel('Enter a risk over a period', { exact: true }).check();
+  await field(page, 'riskBaseline.risk').fill(String(baseline.risk));
+  await field(page, 'riskBaseline.years').fill(String(baseline.years));
+  await field(page, 'person.age').fill(String(person.age));
+  if (person.sex !== undefined) await field(page, 'person.sex').selectOption(person.sex);
+  await entry.getByRole('button', { name: 'Use this evidence' }).click();
+  await expect(field(page, 'evidenceId').locator('option:checked')).toHaveText(title);
+  await expect(field(page, 'effect.estimate')).toHaveValue('1.5');
+  await expectScreenShows(page, TYPED_SCENARIO);
+});
