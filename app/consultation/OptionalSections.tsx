@@ -87,7 +87,8 @@ export function LibrarySection(props: LibrarySectionProps) {
       <h2 id="library-heading" className="section__title">
         Clinic library
       </h2>
-      <p className="field__hint">Population tables and evidence entries saved in this browser only; nothing is sent anywhere.</p>
+      {/* Once open, the library says this itself, with more detail. */}
+      {open ? null : <p className="field__hint">Population tables and evidence entries saved in this browser only; nothing is sent anywhere.</p>}
       <button type="button" className="button button--secondary" aria-expanded={open} onClick={() => setOpen(!open)}>
         {open ? 'Close the library' : 'Open the library'}
       </button>
