@@ -154,7 +154,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
           const errors = view.rowErrors[index] ?? {};
           const label = view.rowLabels[index] ?? '';
           const field = (f: DraftField, text: string, extra: { hint?: string; inputMode?: 'decimal' } = {}) => (
-            <div className={`field glucose__field${errors[f] ? ' field--invalid' : ''}`}>
+            <div className={`field glucose__field glucose__field--${f}${errors[f] ? ' field--invalid' : ''}`}>
               <label className="field__label" htmlFor={fieldId(row.key, f)}>
                 {text}
               </label>
@@ -329,32 +329,34 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
       </div>
 
       {view.checkups.length > 0 ? (
-        <table className="data-table glucose__table">
-          <caption>Each checkup under {view.criteriaName}</caption>
-          <thead>
-            <tr>
-              <th scope="col">Date</th>
-              <th scope="col">HbA1c ({CRITERIA[criteria].hba1c.unit})</th>
-              <th scope="col">Fasting glucose ({CRITERIA[criteria].fpg.unit})</th>
-              <th scope="col">Range</th>
-              <th scope="col">Decided by</th>
-            </tr>
-          </thead>
-          <tbody>
-            {view.checkups.map((c) => (
-              <tr key={c.date}>
-                <th scope="row">{c.date}</th>
-                <td>{c.hba1cText ?? '—'}</td>
-                <td>{c.fpgText ?? '—'}</td>
-                <td>
-                  {c.label}
-                  {c.discordant ? <span className="glucose__flag"> (tests disagree)</span> : null}
-                </td>
-                <td>{c.decidedBy ?? '—'}</td>
+        <div className="glucose__scroll" role="region" aria-labelledby={`${id}-table-caption`} tabIndex={0}>
+          <table className="data-table glucose__table">
+            <caption id={`${id}-table-caption`}>Each checkup under {view.criteriaName}</caption>
+            <thead>
+              <tr>
+                <th scope="col">Date</th>
+                <th scope="col">HbA1c ({CRITERIA[criteria].hba1c.unit})</th>
+                <th scope="col">Fasting glucose ({CRITERIA[criteria].fpg.unit})</th>
+                <th scope="col">Range</th>
+                <th scope="col">Decided by</th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {view.checkups.map((c) => (
+                <tr key={c.date}>
+                  <th scope="row">{c.date}</th>
+                  <td>{c.hba1cText ?? '—'}</td>
+                  <td>{c.fpgText ?? '—'}</td>
+                  <td>
+                    {c.label}
+                    {c.discordant ? <span className="glucose__flag"> (tests disagree)</span> : null}
+                  </td>
+                  <td>{c.decidedBy ?? '—'}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       ) : null}
       {view.checkups.length > 0 ? (
         <ul className="glucose__sentences">
