@@ -27,9 +27,15 @@ export function roundTo(value: number, decimals: number): number {
   return (Math.sign(value) * Math.round(Math.abs(value) * factor)) / factor;
 }
 
-/** A value with its unit: "6.1%", "48 mmol/mol", "5.6 mmol/L", "101 mg/dL". */
+/**
+ * A value with its unit, with at least the decimals labs and the bodies write (so 6 reads
+ * "6.0%", as a lab prints it) and every decimal that was entered: "6.1%", "48 mmol/mol",
+ * "5.6 mmol/L", "101 mg/dL".
+ */
 export function withUnit(value: number, unit: ValueUnit): string {
-  return unit === '%' ? `${value}%` : `${value} ${unit}`;
+  const entered = (String(value).split('.')[1] ?? '').length;
+  const text = /e/i.test(String(value)) ? String(value) : value.toFixed(Math.max(THRESHOLD_DECIMALS[unit], entered));
+  return unit === '%' ? `${text}%` : `${text} ${unit}`;
 }
 
 /** Decimals the bodies write their thresholds with: 5.7 %, 48 mmol/mol, 7.0 mmol/L, 126 mg/dL. */

@@ -22,7 +22,7 @@ describe('describeCheckup', () => {
   });
   it('says "both tests" when they agree, and words WHO\'s unclassified HbA1c', () => {
     expect(describeCheckup(classifyCheckup({ date: '2023-03-01', hba1c: { value: 45, unit: 'mmol/mol' }, fpg: { value: 6.0, unit: 'mmol/L' } }, 'NICE'))).toBe(
-      '2023-03-01: prediabetes range (NICE: non-diabetic hyperglycaemia), from both tests (HbA1c 45 mmol/mol; fasting glucose 6 mmol/L).',
+      '2023-03-01: prediabetes range (NICE: non-diabetic hyperglycaemia), from both tests (HbA1c 45 mmol/mol; fasting glucose 6.0 mmol/L).',
     );
     expect(describeCheckup(classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.0, unit: '%' } }, 'WHO'))).toBe(
       '2023-03-01: not classified (WHO). Under WHO an HbA1c below 6.5% alone does not place a result in a range; a fasting glucose is needed.',

@@ -44,7 +44,7 @@ describe('glucoseTimeline', () => {
   it('draws only the WHO diabetes-range line for HbA1c, and says everything in its text alternative', () => {
     const t = glucoseTimeline(classifyHistory([{ date: '2022-03-01', hba1c: { value: 6.0, unit: '%' } }], 'WHO'), 'WHO');
     expect(t?.series[0]?.thresholds).toEqual([{ value: 6.5, label: 'diabetes range from 6.5%' }]);
-    expect(t?.series[0]?.summary).toBe('HbA1c (%) under WHO: 2022-03-01 6%, not classified (WHO). Lines mark the diabetes range from 6.5%.');
+    expect(t?.series[0]?.summary).toBe('HbA1c (%) under WHO: 2022-03-01 6.0%, not classified (WHO). Lines mark the diabetes range from 6.5%.');
   });
 
   it('is null for no checkups', () => {
@@ -95,7 +95,7 @@ describe('glucoseHistoryView', () => {
     expect(v.statusText).toBe('2 checkups, classified under ADA.');
     expect(v.exposureText).toBe("The study's exposure: 3 yearly results in a row in the prediabetes range (ADA).");
     expect(v.checkups.map((c) => [c.date, c.label, c.hba1cText, c.fpgText, c.discordant])).toEqual([
-      ['2022-03-01', 'prediabetes range (ADA)', '6%', null, false],
+      ['2022-03-01', 'prediabetes range (ADA)', '6.0%', null, false],
       ['2023-03-01', 'prediabetes range (ADA)', '6.2%', '99 mg/dL', true],
     ]);
     expect(v.runText).toMatch(/^The last 2 yearly results, from 2022-03-01 to 2023-03-01/);
