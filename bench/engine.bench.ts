@@ -15,19 +15,14 @@
  * file, esbuild's keepNames wraps every closure in a call that renames it each time it is made,
  * a cost no shipped build pays; one figure shows the engine under tsx too, for comparison.
  */
-import { rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { build } from 'esbuild';
 import { computeScenario as computeUnderTsx } from '@/lib/engine/compute';
 import type { computeScenario } from '@/lib/engine/compute';
 import type { parseScenario } from '@/lib/scenario/parse';
 import type { Scenario } from '@/lib/scenario/schema';
+import { importBundled } from './bundle';
 import { median, type Figure } from './figure';
 import { BASELINE_FORMS, mixedScenarios } from './scenarios';
 
-const ROOT = fileURLToPath(new URL('..', import.meta.url));
 
 interface Engine {
   readonly computeScenario: typeof computeScenario;
@@ -35,28 +30,11 @@ interface Engine {
 }
 
 /** The engine and the scenario parser, bundled as a production build would bundle them. */
-async function bundledEngine(): Promise<Engine> {
-  const result = await build({
-    stdin: {
-      contents: "export { computeScenario } from './lib/engine/compute'; export { parseScenario } from './lib/scenario/parse';",
-      resolveDir: ROOT,
-      loader: 'ts',
-    },
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    target: 'node20',
-    tsconfig: join(ROOT, 'tsconfig.json'),
-    write: false,
-    logLevel: 'silent',
-  });
-  const file = join(tmpdir(), `hundredfold-bench-engine-${process.pid}.mjs`);
-  await writeFile(file, result.outputFiles[0]?.contents ?? '');
-  try {
-    return (await import(pathToFileURL(file).href)) as Engine;
-  } finally {
-    await rm(file, { force: true });
-  }
+function bundledEngine(): Promise<Engine> {
+  return importBundled<Engine>(
+    "export { computeScenario } from './lib/engine/compute'; export { parseScenario } from './lib/scenario/parse';",
+    'engine',
+  );
 }
 
 const SET_SIZE = 3000;

@@ -14,37 +14,17 @@
  *
  * Run alone: `npx tsx bench/table-import.bench.ts`.
  */
-import { rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { build } from 'esbuild';
+import { pathToFileURL } from 'node:url';
 import type * as Csv from '@/lib/tables/csv';
 import type { PopulationTable, Stratum } from '@/lib/tables/schema';
 import { LIBRARY_IMPORT_CHUNK_CHARS } from '@/lib/tables/chunking';
+import { importBundled } from './bundle';
 import { median, type Figure } from './figure';
 
-const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const ROUNDS = 5;
 
-async function bundledCsv(): Promise<typeof Csv> {
-  const result = await build({
-    stdin: { contents: "export * from './lib/tables/csv';", resolveDir: ROOT, loader: 'ts' },
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    target: 'node20',
-    tsconfig: join(ROOT, 'tsconfig.json'),
-    write: false,
-    logLevel: 'silent',
-  });
-  const file = join(tmpdir(), `hundredfold-bench-csv-${process.pid}.mjs`);
-  await writeFile(file, result.outputFiles[0]?.contents ?? '');
-  try {
-    return (await import(pathToFileURL(file).href)) as typeof Csv;
-  } finally {
-    await rm(file, { force: true });
-  }
+function bundledCsv(): Promise<typeof Csv> {
+  return importBundled<typeof Csv>("export * from './lib/tables/csv';", 'csv');
 }
 
 /** A valid table of invented numbers (illustrative, not from a real population). */
