@@ -11,13 +11,14 @@
  *
  * Needs a {@link LibraryProvider} above it.
  */
-import { useEffect, useId, useMemo, useState, type ChangeEvent } from 'react';
+import { useId, useMemo, useState, type ChangeEvent } from 'react';
 import type { Issue } from '@/lib/result';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { searchEvidence } from '@/lib/evidence/search';
 import { MAX_EVIDENCE_FILE_CHARS } from '@/lib/evidence/file';
-import type { StoredEvidence } from '@/lib/storage/records';
+import type { Library } from '@/app/storage/library';
 import { useLibrary } from './LibraryContext';
+import { useLibraryListing } from './useLibraryListing';
 import { countProblems, ProblemList } from './ProblemList';
 import { EvidenceForm } from './EvidenceForm';
 import { downloadText } from './download';
@@ -28,31 +29,18 @@ export interface EvidenceLibraryProps {
   readonly selectedId?: string | undefined;
 }
 
+const readEvidence = (library: Library) => library.listEvidence();
+
 export function EvidenceLibrary({ onUse, selectedId }: EvidenceLibraryProps) {
   const id = useId();
-  const { library, revision, status, changed } = useLibrary();
-  const [stored, setStored] = useState<readonly StoredEvidence[] | undefined>(undefined);
-  const [problems, setProblems] = useState<readonly Issue[]>([]);
+  const { library, status, changed } = useLibrary();
+  const { items: stored, problems } = useLibraryListing(readEvidence);
   const [query, setQuery] = useState('');
   const [importIssues, setImportIssues] = useState<readonly Issue[]>([]);
   const [importNote, setImportNote] = useState('');
   const [pendingFile, setPendingFile] = useState<{ name: string; text: string } | undefined>(undefined);
   const [exportIssues, setExportIssues] = useState<readonly Issue[]>([]);
 
-  useEffect(() => {
-    if (!library) return;
-    let live = true;
-    void library.listEvidence().then((r) => {
-      if (!live) return;
-      if (r.ok) {
-        setStored(r.value.items);
-        setProblems(r.value.problems);
-      } else setProblems(r.issues);
-    });
-    return () => {
-      live = false;
-    };
-  }, [library, revision]);
 
   const entries = useMemo(() => (stored ?? []).map((s) => s.entry), [stored]);
   const found = useMemo(() => searchEvidence(entries, query), [entries, query]);

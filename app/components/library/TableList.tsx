@@ -11,10 +11,12 @@
  *
  * Needs a {@link LibraryProvider} above it.
  */
-import { useEffect, useId, useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import type { Issue } from '@/lib/result';
 import type { StoredTable, TableSummary } from '@/lib/storage/records';
+import type { Library } from '@/app/storage/library';
 import { useLibrary } from './LibraryContext';
+import { useLibraryListing } from './useLibraryListing';
 import { ProblemList } from './ProblemList';
 import { downloadText, fileNameFor } from './download';
 import './library.css';
@@ -27,25 +29,11 @@ export interface TableListProps {
 /** Most strata drawn when viewing a table; the rest are counted. */
 const VIEW_ROWS = 200;
 
-export function TableList({ onUse, selectedId }: TableListProps) {
-  const { library, revision, status } = useLibrary();
-  const [tables, setTables] = useState<readonly TableSummary[] | undefined>(undefined);
-  const [problems, setProblems] = useState<readonly Issue[]>([]);
+const readTables = (library: Library) => library.listTables();
 
-  useEffect(() => {
-    if (!library) return;
-    let live = true;
-    void library.listTables().then((r) => {
-      if (!live) return;
-      if (r.ok) {
-        setTables(r.value.items);
-        setProblems(r.value.problems);
-      } else setProblems(r.issues);
-    });
-    return () => {
-      live = false;
-    };
-  }, [library, revision]);
+export function TableList({ onUse, selectedId }: TableListProps) {
+  const { status } = useLibrary();
+  const { items: tables, problems } = useLibraryListing(readTables);
 
   if (status !== 'ready') return null;
   return (
