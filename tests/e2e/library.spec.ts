@@ -169,6 +169,11 @@ test('a CSV table imported and saved is used for the baseline, and after a reloa
   await field(page, 'person.age').fill('45');
   await field(page, 'person.sex').selectOption('male');
   await expectScreenShows(page, tableScenario(table, { age: 45, sex: 'male' }));
+
+  // The handout for the same scenario names the clinic's table as the baseline's source.
+  await page.getByRole('link', { name: 'Prepare handout' }).click();
+  await expect(page).toHaveURL(/\/handout\?/);
+  await expect(page.locator('.sheet')).toContainText(`Risk for people like you: ${table.title}. Source: ${table.source} (${table.year}).`);
 });
 
 test('a CSV with an overlapping age band and a risk of 1.5 shows each problem with its row and column and saves nothing', async ({ page }) => {

@@ -27,6 +27,7 @@ import { MAX_GRADE, readability } from '@/lib/readability';
 import type { Issue } from '@/lib/result';
 import { formatPath } from '@/lib/result';
 import { findDemoTable } from '@/lib/tables/demo';
+import type { PopulationTable } from '@/lib/tables/schema';
 import { patientProse } from '@/lib/wording';
 import { BlockEditor } from './BlockEditor';
 import { HandoutSheet } from './HandoutSheet';
@@ -69,6 +70,29 @@ function IssueList({ issues }: { issues: readonly Issue[] }) {
   );
 }
 
+/**
+ * A population table the clinic saved in this browser, looked up by id when the scenario names
+ * one that is not a demo table, so the handout can say where the baseline came from. Undefined
+ * while it loads or when there is none; the handout's numbers never depend on it.
+ */
+function useLibraryTable(tableId: string | undefined): PopulationTable | undefined {
+  const [found, setFound] = useState<{ id: string; table: PopulationTable } | undefined>(undefined);
+  useEffect(() => {
+    if (tableId === undefined || findDemoTable(tableId) !== undefined) return;
+    let live = true;
+    void import('@/app/storage/library').then(async ({ openLibrary }) => {
+      const opened = await openLibrary();
+      if (!opened.ok || !live) return;
+      const got = await opened.value.getTable(tableId);
+      if (got.ok && live) setFound({ id: tableId, table: got.value.table });
+    });
+    return () => {
+      live = false;
+    };
+  }, [tableId]);
+  return found !== undefined && found.id === tableId ? found.table : undefined;
+}
+
 export function HandoutScreen({ query }: HandoutScreenProps) {
   const [blocks, setBlocks] = useState<HandoutBlocks>(DEFAULT_BLOCKS);
   const [clinic, setClinic] = useState<Clinic>({});
@@ -78,11 +102,13 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
   const [today] = useState(() => new Date());
 
   const decoded = useMemo(() => decodeScenarioQuery(query), [query]);
+  const tableId = decoded.ok ? decoded.value.tableId : undefined;
+  const libraryTable = useLibraryTable(tableId);
   const content = useMemo(() => {
     if (!decoded.ok) return decoded;
-    const table = decoded.value.tableId ? findDemoTable(decoded.value.tableId) : undefined;
+    const table = decoded.value.tableId ? (findDemoTable(decoded.value.tableId) ?? libraryTable) : undefined;
     return buildHandout(decoded.value, { table, date: today });
-  }, [decoded, today]);
+  }, [decoded, today, libraryTable]);
   const scores = useMemo(() => blockReadability(blocks), [blocks]);
   const wholeGrade = useMemo(() => {
     if (!content.ok) return undefined;
