@@ -282,7 +282,11 @@ class TableCsvReader {
   private readonly layoutReport = (path: (string | number)[], code: string, message: string) => {
     const index = Number(path[0]);
     const field = String(path[1]);
-    this.problems.add(issueAt(code, this.rows[index]?.line, FIELD_COLUMN[field] ?? field, message, ['strata', index, field]));
+    const line = this.rows[index]?.line;
+    // The location prefix already names this row: "Row 10, column age_from: This row (…) overlaps row 9".
+    const own = `Row ${line} `;
+    const text = message.startsWith(own) ? `This row ${message.slice(own.length)}` : message;
+    this.problems.add(issueAt(code, line, FIELD_COLUMN[field] ?? field, text, ['strata', index, field]));
   };
 
   constructor(readonly text: string) {}

@@ -183,7 +183,7 @@ describe('parseTableCsv: every bad-input case names its row and column and yield
   it('overlapping age bands', () => {
     const issue = only(`${DETAILS}sex,age_from,age_to,risk\nfemale,30,40,0.1\nfemale,40,49,0.2\n`);
     expect(issue).toMatchObject({ code: 'overlapping-age-bands', line: 9, column: 'age_from' });
-    expect(issue.message).toBe('Row 9, column age_from: Row 9 (female, ages 40 to 49) overlaps row 8 (ages 30 to 40); both ends of a band are included, so the next band starts at 41');
+    expect(issue.message).toBe('Row 9, column age_from: This row (female, ages 40 to 49) overlaps row 8 (ages 30 to 40); both ends of a band are included, so the next band starts at 41');
   });
 
   it('missing age bands (a gap)', () => {
