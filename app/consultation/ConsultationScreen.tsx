@@ -124,7 +124,7 @@ export function ConsultationScreen({
     delayError: 350,
   });
   const [linkIssues, setLinkIssues] = useState<readonly Issue[]>([]);
-  const { reset, setValue } = methods;
+  const { reset, setValue, getValues } = methods;
 
   const takeLibraryTable = useCallback(
     (table: PopulationTable) => {
@@ -166,12 +166,30 @@ export function ConsultationScreen({
     // The address is outside React and is read once, after hydration (the page is static).
     const query = window.location.search.replace(/^\?/, '');
     if (query === '') return;
-    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(([{ decodeScenarioQuery }, { scenarioToFormValues }]) => {
+    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(async ([{ decodeScenarioQuery }, { scenarioToFormValues }]) => {
       const decoded = decodeScenarioQuery(query);
-      if (decoded.ok) reset(scenarioToFormValues(decoded.value, tablesRef.current));
-      else setLinkIssues(decoded.issues);
+      if (!decoded.ok) {
+        setLinkIssues(decoded.issues);
+        return;
+      }
+      const first = scenarioToFormValues(decoded.value, tablesRef.current);
+      reset(first);
+      // A table from this browser's clinic library: once it is read, the form names it as the
+      // baseline's source again (only if its stratum still gives the same baseline, which
+      // scenarioToFormValues checks, and only if the clinician has not started typing).
+      const tableId = decoded.value.tableId;
+      if (tableId === undefined || tablesRef.current.some((t) => t.id === tableId)) return;
+      const { openLibrary } = await import('@/app/storage/library');
+      const opened = await openLibrary();
+      if (!opened.ok) return;
+      const got = await opened.value.getTable(tableId);
+      if (!got.ok || JSON.stringify(getValues()) !== JSON.stringify(first)) return;
+      const table = got.value.table;
+      flushSync(() => setLibraryTables((list) => [...list.filter((t) => t.id !== table.id), table]));
+      tablesRef.current = [...tablesRef.current.filter((t) => t.id !== table.id), table];
+      reset(scenarioToFormValues(decoded.value, tablesRef.current));
     });
-  }, [reset]);
+  }, [reset, getValues]);
 
   return (
     <FormProvider {...methods}>

@@ -156,6 +156,9 @@ test('a CSV table imported and saved is used for the baseline, and after a reloa
   await expectScreenShows(page, tableScenario(table, { age: 64, sex: 'female' }));
 
   await page.reload();
+  // The address names the library table, and the reloaded form takes it again as the baseline's source.
+  await expect(field(page, 'tableId')).toHaveValue(table.id);
+  await expectScreenShows(page, tableScenario(table, { age: 64, sex: 'female' }));
   const reopened = await openLibrary(page);
   await expect(savedTables(reopened)).toHaveCount(1);
   const kept = reopened.getByRole('article', { name: TABLE_TITLE });
