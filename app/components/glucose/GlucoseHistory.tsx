@@ -251,18 +251,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
           <button type="button" className="button button--secondary glucose__paste-button" onClick={addPasted} disabled={pasteText.trim() === ''}>
             Add pasted rows
           </button>
-          {pasteReport ? (
-            <div id={`${id}-paste-report`} className="glucose__report" role="status">
-              <p>{pasteReport.summary}</p>
-              {pasteReport.lines.length > 0 ? (
-                <ul className="warnings">
-                  {pasteReport.lines.map((line) => (
-                    <li key={line}>{line}</li>
-                  ))}
-                </ul>
-              ) : null}
-            </div>
-          ) : null}
+          {pasteReport ? <ReadReport id={`${id}-paste-report`} report={pasteReport} /> : null}
         </div>
 
         <div className={`field${fhirReport?.error ? ' field--invalid' : ''}`}>
@@ -280,18 +269,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
             aria-describedby={describedBy(`${id}-fhir-hint`, fhirReport !== null && `${id}-fhir-report`)}
             aria-invalid={fhirReport?.error ? true : undefined}
           />
-          {fhirReport ? (
-            <div id={`${id}-fhir-report`} className={fhirReport.error ? 'field__error glucose__report' : 'glucose__report'} role="status">
-              <p>{fhirReport.summary}</p>
-              {fhirReport.lines.length > 0 ? (
-                <ul className="warnings">
-                  {fhirReport.lines.map((line) => (
-                    <li key={line}>{line}</li>
-                  ))}
-                </ul>
-              ) : null}
-            </div>
-          ) : null}
+          {fhirReport ? <ReadReport id={`${id}-fhir-report`} report={fhirReport} error={fhirReport.error} /> : null}
         </div>
       </div>
 
@@ -387,3 +365,19 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
 }
 
 export default GlucoseHistory;
+
+/** What reading pasted rows or a FHIR file found: a summary line and the lines it could not use. */
+function ReadReport({ id, report, error = false }: { id: string; report: { summary: string; lines: readonly string[] }; error?: boolean | undefined }) {
+  return (
+    <div id={id} className={error ? 'field__error glucose__report' : 'glucose__report'} role="status">
+      <p>{report.summary}</p>
+      {report.lines.length > 0 ? (
+        <ul className="warnings">
+          {report.lines.map((line) => (
+            <li key={line}>{line}</li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
