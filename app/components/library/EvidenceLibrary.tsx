@@ -19,6 +19,7 @@ import { MAX_EVIDENCE_FILE_CHARS } from '@/lib/evidence/file';
 import type { Library } from '@/app/storage/library';
 import { useLibrary } from './LibraryContext';
 import { useLibraryListing } from './useLibraryListing';
+import { ConfirmDelete } from './ConfirmDelete';
 import { countProblems, ProblemList } from './ProblemList';
 import { EvidenceForm } from './EvidenceForm';
 import { downloadText } from './download';
@@ -199,15 +200,7 @@ function EvidenceItem({ entry, onUse, selected }: { readonly entry: EvidenceEntr
           }}
         />
       ) : mode === 'confirm-delete' ? (
-        <div className="library__inline" role="group" aria-label={`Delete ${entry.title}?`}>
-          <p>Delete “{entry.title}” from this browser? Export it first to keep a copy.</p>
-          <button type="button" className="button button--danger" onClick={() => void remove()}>
-            Delete
-          </button>
-          <button type="button" className="button button--secondary" onClick={() => setMode('none')}>
-            Keep it
-          </button>
-        </div>
+        <ConfirmDelete title={entry.title} onDelete={() => void remove()} onKeep={() => setMode('none')} />
       ) : (
         <div className="library__buttons">
           {onUse && (

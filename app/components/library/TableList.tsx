@@ -17,6 +17,7 @@ import type { StoredTable, TableSummary } from '@/lib/storage/records';
 import type { Library } from '@/app/storage/library';
 import { useLibrary } from './LibraryContext';
 import { useLibraryListing } from './useLibraryListing';
+import { ConfirmDelete } from './ConfirmDelete';
 import { ProblemList } from './ProblemList';
 import { downloadText, fileNameFor } from './download';
 import './library.css';
@@ -139,15 +140,7 @@ function TableItem({ summary, onUse, selected }: { readonly summary: TableSummar
           </button>
         </form>
       ) : mode === 'confirm-delete' ? (
-        <div className="library__inline" role="group" aria-label={`Delete ${summary.title}?`}>
-          <p>Delete “{summary.title}” from this browser? This cannot be undone; export it first to keep a copy.</p>
-          <button type="button" className="button button--danger" onClick={() => void remove()}>
-            Delete
-          </button>
-          <button type="button" className="button button--secondary" onClick={() => setMode('none')}>
-            Keep it
-          </button>
-        </div>
+        <ConfirmDelete title={summary.title} onDelete={() => void remove()} onKeep={() => setMode('none')} />
       ) : (
         <div className="library__buttons">
           {onUse && (
