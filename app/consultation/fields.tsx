@@ -37,6 +37,37 @@ function ErrorText({ id, message }: { id: string; message: string | undefined })
   );
 }
 
+/** What every field derives from its name: the visible error, the control's id and its aria wiring. */
+function useFieldWiring(name: FieldName, hasHint: boolean) {
+  const error = useVisibleError(name);
+  const id = fieldDomId(name);
+  const hintId = `${id}-hint`;
+  const errorId = `${id}-error`;
+  return { error, id, hintId, errorId, describedBy: describedBy(hasHint ? hintId : undefined, error ? errorId : undefined) };
+}
+
+function Hint({ id, hint }: { id: string; hint: ReactNode }) {
+  return hint ? (
+    <p id={id} className="field__hint">
+      {hint}
+    </p>
+  ) : null;
+}
+
+/** A labelled single control (text box or select) with its hint and inline error. */
+function FieldFrame({ wiring, label, hint, size, children }: { wiring: ReturnType<typeof useFieldWiring>; label: string; hint: ReactNode; size: 'short' | 'long'; children: ReactNode }) {
+  return (
+    <div className={`field field--${size}${wiring.error ? ' field--invalid' : ''}`}>
+      <label htmlFor={wiring.id} className="field__label">
+        {label}
+      </label>
+      <Hint id={wiring.hintId} hint={hint} />
+      {children}
+      <ErrorText id={wiring.errorId} message={wiring.error} />
+    </div>
+  );
+}
+
 interface TextFieldProps {
   readonly name: FieldName;
   readonly label: string;
@@ -50,35 +81,23 @@ interface TextFieldProps {
 
 export function TextField({ name, label, hint, kind = 'decimal', size = 'short', deps, placeholder }: TextFieldProps) {
   const { register } = useFormContext<ConsultationFormValues>();
-  const error = useVisibleError(name);
-  const id = fieldDomId(name);
-  const hintId = `${id}-hint`;
-  const errorId = `${id}-error`;
+  const wiring = useFieldWiring(name, Boolean(hint));
   const options: RegisterOptions<ConsultationFormValues, FieldName> = deps ? { deps } : {};
   return (
-    <div className={`field field--${size}${error ? ' field--invalid' : ''}`}>
-      <label htmlFor={id} className="field__label">
-        {label}
-      </label>
-      {hint ? (
-        <p id={hintId} className="field__hint">
-          {hint}
-        </p>
-      ) : null}
+    <FieldFrame wiring={wiring} label={label} hint={hint} size={size}>
       <input
-        id={id}
+        id={wiring.id}
         type="text"
         inputMode={kind === 'text' ? 'text' : kind}
         autoComplete="off"
         spellCheck={kind === 'text'}
         className="field__input"
         placeholder={placeholder}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(hint ? hintId : undefined, error ? errorId : undefined)}
+        aria-invalid={wiring.error ? true : undefined}
+        aria-describedby={wiring.describedBy}
         {...register(name, options)}
       />
-      <ErrorText id={errorId} message={error} />
-    </div>
+    </FieldFrame>
   );
 }
 
@@ -99,36 +118,18 @@ interface SelectFieldProps {
 
 export function SelectField({ name, label, hint, choices, onChosen }: SelectFieldProps) {
   const { register } = useFormContext<ConsultationFormValues>();
-  const error = useVisibleError(name);
-  const id = fieldDomId(name);
-  const hintId = `${id}-hint`;
-  const errorId = `${id}-error`;
+  const wiring = useFieldWiring(name, Boolean(hint));
   const registered = register(name, onChosen ? { onChange: (event: { target: { value: string } }) => onChosen(event.target.value) } : {});
   return (
-    <div className={`field field--long${error ? ' field--invalid' : ''}`}>
-      <label htmlFor={id} className="field__label">
-        {label}
-      </label>
-      {hint ? (
-        <p id={hintId} className="field__hint">
-          {hint}
-        </p>
-      ) : null}
-      <select
-        id={id}
-        className="field__input"
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(hint ? hintId : undefined, error ? errorId : undefined)}
-        {...registered}
-      >
+    <FieldFrame wiring={wiring} label={label} hint={hint} size="long">
+      <select id={wiring.id} className="field__input" aria-invalid={wiring.error ? true : undefined} aria-describedby={wiring.describedBy} {...registered}>
         {choices.map((choice) => (
           <option key={choice.value} value={choice.value}>
             {choice.label}
           </option>
         ))}
       </select>
-      <ErrorText id={errorId} message={error} />
-    </div>
+    </FieldFrame>
   );
 }
 
@@ -143,23 +144,16 @@ interface RadioFieldProps {
 
 export function RadioField({ name, legend, hint, choices, layout = 'column', onChosen }: RadioFieldProps) {
   const { register } = useFormContext<ConsultationFormValues>();
-  const error = useVisibleError(name);
-  const base = fieldDomId(name);
+  const { error, id: base, hintId, errorId, describedBy: described } = useFieldWiring(name, Boolean(hint));
   const uid = useId();
-  const hintId = `${base}-hint`;
-  const errorId = `${base}-error`;
   const registered = register(name, onChosen ? { onChange: (event: { target: { value: string } }) => onChosen(event.target.value) } : {});
   return (
     <fieldset
       className={`field field--choices field--${layout}${error ? ' field--invalid' : ''}`}
-      aria-describedby={describedBy(hint ? hintId : undefined, error ? errorId : undefined)}
+      aria-describedby={described}
     >
       <legend className="field__label">{legend}</legend>
-      {hint ? (
-        <p id={hintId} className="field__hint">
-          {hint}
-        </p>
-      ) : null}
+      <Hint id={hintId} hint={hint} />
       <div className="choices">
         {choices.map((choice, i) => {
           const id = i === 0 ? base : `${base}-${i}`;
