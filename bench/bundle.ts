@@ -7,10 +7,10 @@
 import { rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { pathToFileURL } from 'node:url';
 import { build } from 'esbuild';
+import { NODE_BUNDLE_OPTIONS, ROOT } from '../scripts/build-cli.mjs';
 
-const ROOT = fileURLToPath(new URL('..', import.meta.url));
 
 /**
  * @param entrySource - an ES module that re-exports what to time, with paths from the repo root,
@@ -18,16 +18,7 @@ const ROOT = fileURLToPath(new URL('..', import.meta.url));
  * @param tag - names the temporary file
  */
 export async function importBundled<T>(entrySource: string, tag: string): Promise<T> {
-  const result = await build({
-    stdin: { contents: entrySource, resolveDir: ROOT, loader: 'ts' },
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    target: 'node20',
-    tsconfig: join(ROOT, 'tsconfig.json'),
-    write: false,
-    logLevel: 'silent',
-  });
+  const result = await build({ ...NODE_BUNDLE_OPTIONS, stdin: { contents: entrySource, resolveDir: ROOT, loader: 'ts' } });
   const file = join(tmpdir(), `hundredfold-bench-${tag}-${process.pid}.mjs`);
   await writeFile(file, result.outputFiles[0]?.contents ?? '');
   try {

@@ -6,3 +6,12 @@ export declare const SOURCES: readonly string[];
 export declare function newestMtimeMs(paths: readonly string[]): number;
 export declare function isStale(distFile?: string, sources?: readonly string[]): boolean;
 export declare function buildCli(options?: { entry?: string; outfile?: string }): Promise<string>;
+export declare const NODE_BUNDLE_OPTIONS: Readonly<{
+  bundle: true;
+  platform: 'node';
+  format: 'esm';
+  target: string;
+  tsconfig: string;
+  write: false;
+  logLevel: 'silent';
+}>;
