@@ -11,6 +11,7 @@ import { Area, Bar, CartesianGrid, Cell, ComposedChart, ErrorBar, Line, Responsi
 import { absoluteRiskBars } from '@/lib/chart/absoluteRisk';
 import { describeRiskByHorizon, formatPercentValue, type RiskAtHorizon } from '@/lib/chart/riskByHorizon';
 import type { ComputeResult } from '@/lib/engine/types';
+import { intervalLabel } from '@/lib/wording/format';
 
 const BLUE = '#1f4e8a';
 const ORANGE = '#c05a00';
@@ -44,7 +45,7 @@ function ChartsInner({ result, points, absoluteSentence, groups, names }: Charts
     whisker: bar.group === 'exposed' ? bar.whiskerPercent : undefined,
   }));
   const horizonSentence = describeRiskByHorizon(points, groups, result.level);
-  const ci = `${Math.round(result.level * 100)}% CI`;
+  const ci = intervalLabel(result.level);
   const tickStyle = { fill: INK, fontSize: 12 };
   return (
     <section className="charts" aria-labelledby="charts-heading">

@@ -14,6 +14,7 @@ import { computeScenario } from '../engine/compute';
 import { fail, ok, type Result } from '../result';
 import type { Scenario } from '../scenario/schema';
 import { MAX_YEARS } from '../scenario/schema';
+import { intervalLabel } from '../wording/format';
 
 export interface RiskAtHorizon {
   readonly horizonYears: number;
@@ -90,7 +91,7 @@ export function describeRiskByHorizon(points: readonly RiskAtHorizon[], groups: 
   const last = points[points.length - 1];
   if (!first || !last) return 'No horizon to show.';
   const years = (y: number) => (y === 1 ? '1 year' : `${y.toLocaleString('en', { maximumFractionDigits: 1 })} years`);
-  const ci = `${Math.round(level * 100)}% CI`;
+  const ci = intervalLabel(level);
   const at = (p: RiskAtHorizon, named: boolean) =>
     named
       ? `${formatPercentValue(p.exposedPercent)} ${groups.exposed} and ${formatPercentValue(p.referencePercent)} ${groups.comparison}`

@@ -11,7 +11,7 @@
 import type { ComputeResult } from '../engine/types';
 import type { Warning } from '../result';
 import type { Wording } from '../scenario/schema';
-import { formatCount, formatPercent, formatPercentagePoints, formatRatio, overTheNext } from './format';
+import { formatCount, formatPercent, formatPercentagePoints, formatRatio, intervalLabel, overTheNext } from './format';
 import { DEFAULT_EXPOSURE } from './patient';
 
 export interface ClinicianText {
@@ -37,7 +37,7 @@ function trimmed(text: string | undefined): string {
  * //=> "Risk difference over the next 10 years: +4.0 percentage points (95% CI +1.6 to +7.2); 12.0% with HbA1c in the prediabetes range vs 8.0% with normal HbA1c."
  */
 export function clinicianText(result: ComputeResult, wording?: Wording): ClinicianText {
-  const ci = `${Math.round(result.level * 100)}% CI`;
+  const ci = intervalLabel(result.level);
   const exposure = trimmed(wording?.exposure) || DEFAULT_EXPOSURE;
   const comparison = trimmed(wording?.comparison);
   const exposedGroup = `with ${exposure}`;

@@ -104,3 +104,12 @@ export function formatPercentagePoints(fraction: number): string {
 export function formatRatio(ratio: number): string {
   return ratio.toLocaleString(TEXT_LOCALE, { minimumFractionDigits: 2, maximumFractionDigits: 2 });
 }
+
+/**
+ * The interval's label: 0.95 → "95% CI".
+ * @example
+ * intervalLabel(0.9) //=> "90% CI"
+ */
+export function intervalLabel(level: number): string {
+  return `${Math.round(level * 100)}% CI`;
+}

@@ -24,6 +24,7 @@ import { countProblems, ProblemList } from './ProblemList';
 import { EvidenceForm } from './EvidenceForm';
 import { downloadText } from './download';
 import './library.css';
+import { intervalLabel } from '@/lib/wording/format';
 
 export interface EvidenceLibraryProps {
   readonly onUse?: ((entry: EvidenceEntry) => void) | undefined;
@@ -142,7 +143,7 @@ export function EvidenceLibrary({ onUse, selectedId }: EvidenceLibraryProps) {
 
 /** "HR 1.6 (95% CI 1.2 to 2.1)": the numbers as entered, no arithmetic. */
 export function describeEffect(e: EvidenceEntry): string {
-  const level = e.effect.level === undefined ? 'CI' : `${Math.round(e.effect.level * 100)}% CI`;
+  const level = e.effect.level === undefined ? 'CI' : intervalLabel(e.effect.level);
   return `${e.effect.measure} ${e.effect.estimate} (${level} ${e.effect.lower} to ${e.effect.upper})`;
 }
 

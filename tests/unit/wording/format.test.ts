@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatCount, formatPercent, formatPercentagePoints, formatRatio, formatYears, inTheNext, peopleCount, plural } from '@/lib/wording';
+import { formatCount, formatPercent, formatPercentagePoints, formatRatio, formatYears, inTheNext, intervalLabel, peopleCount, plural } from '@/lib/wording';
 
 describe('formatting for locale en (common practice)', () => {
   it('groups thousands', () => {
@@ -37,5 +37,16 @@ describe('formatting for locale en (common practice)', () => {
     // Hand-computed: ±0.0315 → ±3.15 points → 3.2 either way (half away from zero, as toLocaleString rounds).
     expect(formatPercentagePoints(0.0315)).toBe('+3.2');
     expect(formatPercentagePoints(-0.0315)).toBe('\u22123.2');
+  });
+});
+
+describe('intervalLabel', () => {
+  it.each([
+    [0.9, '90% CI'],
+    [0.95, '95% CI'],
+    [0.99, '99% CI'],
+  ])('%s → %s', (level, label) => {
+    // Common practice: the level written as a whole percentage before "CI".
+    expect(intervalLabel(level)).toBe(label);
   });
 });
