@@ -33,6 +33,8 @@ export interface RunCheckupsOptions {
   readonly format: CheckupFormat;
   /** Called with each worker's result, in order of first appearance. */
   readonly onWorker?: (result: WorkerResult) => void;
+  /** Called once the header is read, before the first worker (the columns, for a CSV writer or the screen). */
+  readonly onHeader?: (header: HeaderInfo) => void;
   /** Called with row problems as they are found. */
   readonly onProblems?: (problems: readonly RowProblem[]) => void;
   readonly onProgress?: (progress: CheckupsProgress) => void;
@@ -131,6 +133,7 @@ export async function runCheckups(chunks: AsyncIterable<string | { readonly file
     grouper.add(last.rows);
     counts = reader.counts();
     header = reader.header;
+    if (header) options.onHeader?.(header);
   }
   const empty = noUsableRows(counts);
   if (empty) return { ok: false, refusal: empty };
@@ -143,6 +146,7 @@ export async function runCheckups(chunks: AsyncIterable<string | { readonly file
 export async function runCheckupTable(table: readonly (readonly CellValue[])[], options: Omit<RunCheckupsOptions, 'format'>): Promise<CheckupsOutcome> {
   const read = readCheckupTable(table, options.reader);
   if (isRefusal(read)) return { ok: false, refusal: read };
+  options.onHeader?.(read.header);
   if (read.step.problems.length > 0) options.onProblems?.(read.step.problems);
   const empty = noUsableRows(read.counts);
   if (empty) return { ok: false, refusal: empty };

@@ -127,7 +127,8 @@ describe('evidence file: refusals name the entry and the field', () => {
     ['[]', 'wrong-type'],
     ['null', 'wrong-type'],
     ['{"format":"other","version":1,"entries":[]}', 'wrong-format'],
-    ['{"format":"hundredfold-evidence","version":2,"entries":[]}', 'newer-version'],
+    // Version 2 is read now (exposure definitions with test, gap and comparison); 3 is newer.
+    ['{"format":"hundredfold-evidence","version":3,"entries":[]}', 'newer-version'],
     ['{"format":"hundredfold-evidence","version":"1","entries":[]}', 'wrong-version'],
     ['{"format":"hundredfold-evidence","version":1}', 'required'],
     ['{"format":"hundredfold-evidence","version":1,"entries":{}}', 'wrong-type'],
