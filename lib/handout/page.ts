@@ -86,7 +86,7 @@ export function plainIssue(issue: Issue): string {
 }
 
 function isEmptyQuery(query: string): boolean {
-  const q = query.includes('?') ? query.slice(query.indexOf('?') + 1) : query;
+  const q = query.includes('?') ? query.slice(query.indexOf('?') + 1) : query.startsWith('/') ? '' : query;
   return [...new URLSearchParams(q).keys()].length === 0;
 }
 
