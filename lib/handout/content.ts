@@ -1,7 +1,7 @@
 /**
- * Everything the printed handout shows, from one scenario: the engine's result, the patient
- * sentences (lib/wording), where the numbers come from and the date. The page only lays this
- * out; it computes nothing.
+ * The handout's content from one scenario: the engine's result, the patient sentences
+ * (lib/wording) and where the numbers come from. {@link handoutSheet} (./sheet.ts) lays this
+ * out as one printable sheet; nothing here knows about paper or layout.
  *
  * Who "people like you" are: the person's sex and the age band of the table stratum the
  * baseline came from ("women aged 50 to 59"), else the person's age, else the scenario's
@@ -14,31 +14,24 @@ import { fail, ok, type Result, type Warning } from '../result';
 import type { Scenario } from '../scenario/schema';
 import { lookupStratum } from '../tables/lookup';
 import type { PopulationTable } from '../tables/schema';
-import { describePeople, patientText, TEXT_LOCALE, type AgeBand, type PatientText } from '../wording';
+import { describePeople, patientText, type AgeBand, type PatientText } from '../wording';
+
+export type HandoutAudience = 'person' | 'group';
 
 export interface HandoutContent {
   readonly result: ComputeResult;
   readonly text: PatientText;
   /** "Where the numbers come from": one line for the baseline, one for the study. */
   readonly sources: readonly string[];
-  /** "Prepared on 12 May 2025"-style line, locale en. */
-  readonly preparedOn: string;
   /** The engine's warnings, for the clinician's panel on screen (not printed). */
   readonly clinicianWarnings: readonly Warning[];
 }
 
-export interface HandoutOptions {
+export interface HandoutContentOptions {
   /** The population table the baseline was looked up in, when `scenario.tableId` names one. */
   readonly table?: PopulationTable | undefined;
-  /** The day the handout is prepared. */
-  readonly date: Date;
-}
-
-const dateFormat = new Intl.DateTimeFormat(TEXT_LOCALE, { year: 'numeric', month: 'long', day: 'numeric' });
-
-/** "Prepared on May 12, 2025." */
-export function preparedOnLine(date: Date): string {
-  return Number.isNaN(date.getTime()) ? 'Prepared today.' : `Prepared on ${dateFormat.format(date)}.`;
+  /** One person (default) or a class: a group session's sheet leaves out "like you". */
+  readonly audience?: HandoutAudience | undefined;
 }
 
 function ageBandFor(scenario: Scenario, table: PopulationTable | undefined): AgeBand | undefined {
@@ -50,13 +43,14 @@ function ageBandFor(scenario: Scenario, table: PopulationTable | undefined): Age
   return ageFrom === 0 && ageTo >= 120 ? undefined : { fromYears: ageFrom, toYears: ageTo };
 }
 
-/** The "where the numbers come from" lines. */
-export function sourceLines(scenario: Scenario, table: PopulationTable | undefined): string[] {
+/** The "where the numbers come from" lines; a group session's sheet says "this group", not "people like you". */
+export function sourceLines(scenario: Scenario, table: PopulationTable | undefined, audience: HandoutAudience = 'person'): string[] {
   const lines: string[] = [];
+  const whose = audience === 'group' ? 'Risk for this group' : 'Risk for people like you';
   if (table && table.id === scenario.tableId) {
-    lines.push(`Risk for people like you: ${table.title}. Source: ${table.source} (${table.year}).`);
+    lines.push(`${whose}: ${table.title}. Source: ${table.source} (${table.year}).`);
   } else {
-    lines.push('Risk for people like you: entered by your clinician.');
+    lines.push(`${whose}: entered by your clinician.`);
   }
   const citation = scenario.wording?.citation?.trim();
   lines.push(citation ? `Study: ${citation}.`.replace(/\.\.$/, '.') : 'Study: not named.');
@@ -66,10 +60,10 @@ export function sourceLines(scenario: Scenario, table: PopulationTable | undefin
 /**
  * @example
  * buildHandout({ baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9 },
- *   wording: { outcome: 'a stroke' }, person: { age: 55, sex: 'female' } }, { date: new Date('2025-05-12T12:00:00Z') })
- * //=> { ok: true, value: { text: { referenceSentence: "Think of 100 women aged 55 like you. …" }, preparedOn: "Prepared on May 12, 2025.", … } }
+ *   wording: { outcome: 'a stroke' }, person: { age: 55, sex: 'female' } }, {})
+ * //=> { ok: true, value: { text: { referenceSentence: "Think of 100 women aged 55 like you. …" }, sources: [...], … } }
  */
-export function buildHandout(scenario: Scenario, options: HandoutOptions): Result<HandoutContent> {
+export function buildHandout(scenario: Scenario, options: HandoutContentOptions): Result<HandoutContent> {
   const computed = computeScenario(scenario);
   if (!computed.ok) return computed;
   const result = computed.value;
@@ -79,13 +73,18 @@ export function buildHandout(scenario: Scenario, options: HandoutOptions): Resul
     population: scenario.wording?.population,
   });
   if (!people.ok) return fail(people.issues);
-  const text = patientText({ result, wording: scenario.wording, people: people.value, horizonYears: scenario.horizonYears ?? result.horizonYears });
+  const text = patientText({
+    result,
+    wording: scenario.wording,
+    people: people.value,
+    horizonYears: scenario.horizonYears ?? result.horizonYears,
+    audience: options.audience,
+  });
   if (!text.ok) return fail(text.issues);
   return ok({
     result,
     text: text.value,
-    sources: sourceLines(scenario, options.table),
-    preparedOn: preparedOnLine(options.date),
+    sources: sourceLines(scenario, options.table, options.audience),
     clinicianWarnings: result.warnings,
   });
 }
