@@ -198,7 +198,6 @@ async function loadEvidence(io: CommandIo, args: Args): Promise<EvidenceEntry | 
 
 /** Control characters (and line and bidirectional separators) written as \xNN / \uNNNN, so one problem stays one line. */
 export function escapeControl(text: string): string {
-  // eslint-disable-next-line no-control-regex
   return text.replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g, (c) => {
     const code = c.charCodeAt(0);
     return code < 0x100 ? `\\x${code.toString(16).padStart(2, '0')}` : `\\u${code.toString(16).padStart(4, '0')}`;
