@@ -19,12 +19,15 @@ function context(entry: EvidenceEntry = ENTRY, horizonYears?: number): CheckupsC
 }
 
 let line = 1;
-function row(worker: string, date: string, hba1c: number | null, extra: Partial<CheckupRow> = {}): CheckupRow {
+type Extra = { [K in keyof CheckupRow]?: CheckupRow[K] | undefined };
+function row(worker: string, date: string, hba1c: number | null, extra: Extra = {}): CheckupRow {
   line += 1;
-  return { line, worker, date, ...(hba1c !== null ? { hba1c: { value: hba1c, unit: '%' as const } } : {}), age: 52, sex: 'female', strata: { site: 'North' }, ...extra };
+  const merged: Record<string, unknown> = { line, worker, date, ...(hba1c !== null ? { hba1c: { value: hba1c, unit: '%' as const } } : {}), age: 52, sex: 'female', strata: { site: 'North' }, ...extra };
+  for (const key of Object.keys(merged)) if (merged[key] === undefined) delete merged[key];
+  return merged as unknown as CheckupRow;
 }
 
-function worker(id: string, values: readonly (readonly [string, number | null])[], extra: Partial<CheckupRow> = {}) {
+function worker(id: string, values: readonly (readonly [string, number | null])[], extra: Extra = {}) {
   return { worker: id, rows: values.map(([date, v]) => row(id, date, v, extra)) };
 }
 
