@@ -31,8 +31,7 @@ function worker(id: string, values: readonly (readonly [string, number | null])[
   return { worker: id, rows: values.map(([date, v]) => row(id, date, v, extra)) };
 }
 
-/** HR → risk over the same horizon: P1 = 1 − (1 − P0)^HR (Altman & Andersen 1999, as lib/engine). */
-const hr = (p0: number, ratio: number) => 1 - (1 - p0) ** ratio;
+// HR → risk over the same horizon: P1 = 1 − (1 − P0)^HR (Altman & Andersen 1999, as lib/engine); worked by hand below.
 
 describe('evaluateWorker: each status on hand-worked histories', () => {
   it('exposed: 3 yearly HbA1c 5.9–6.1% (ADA prediabetes 5.7–6.4%), female 52 → the engine\'s figures', () => {
