@@ -80,6 +80,12 @@ describe('the same workforce from CSV, XLSX and FHIR bulk NDJSON', () => {
     expect(isRefusal(refused) ? refused.message : '').toMatch(/cannot be read as an Excel workbook/);
   });
 
+  it('a FHIR export with Patients but no usable Observation is refused whole', async () => {
+    const patients = readFileSync(new URL('fhir/Patient.ndjson', DIR), 'utf8');
+    const outcome = await runCheckups([patients], { context: context(), reader: { today: TODAY }, format: 'fhir-ndjson' });
+    expect(outcome.ok ? '' : 'refusal' in outcome ? outcome.refusal.code : '').toBe('no-usable-rows');
+  });
+
   it('cancelling stops the run and says so', async () => {
     const text = readFileSync(new URL('checkups.csv', DIR), 'utf8');
     const controller = new AbortController();
