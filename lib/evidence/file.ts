@@ -8,8 +8,9 @@
  * - 1: entries whose exposure definition is `{category, criteria, minYears}`;
  * - 2: exposure definitions may also say which test decides, the longest gap and the comparison
  *   group's definition (lib/glycaemia/exposure.ts).
- * Both versions are read. A file is written with the lowest version that holds its entries, so a
- * library that uses no version-2 field still opens in a program that reads only version 1.
+ * Both versions are read (leniently: a version-1 file that carries version-2 fields is read too).
+ * A file is written with the lowest version that holds its entries, so a library that uses no
+ * version-2 field still opens in a program that reads only version 1.
  *
  * Reading validates every entry and refuses the whole file on any problem, naming the entry
  * and the field; nothing is half-imported.
@@ -105,14 +106,6 @@ export function parseEvidenceFile(input: unknown): Result<EvidenceEntry[]> {
   const firstIndexOf = new Map<string, number>();
   file.entries.forEach((raw, index) => {
     const parsed = evidenceEntrySchema.safeParse(raw, { reportInput: true });
-    if (parsed.success && file.version === 1 && needsVersion2(parsed.data)) {
-      issues.push({
-        code: 'newer-field',
-        path: ['entries', index, 'exposureDefinition'],
-        message: `${describeEntry(index, raw)}, exposureDefinition: the deciding test, the longest gap and the comparison group belong to version 2 files, but this file says version 1; set "version": 2`,
-      });
-      return;
-    }
     if (!parsed.success) {
       for (const issue of toIssues(parsed.error.issues)) {
         issues.push({ code: issue.code, path: ['entries', index, ...issue.path], message: `${describeEntry(index, raw)}${fieldName(issue.path)}: ${issue.message}` });

@@ -173,10 +173,12 @@ function matchResolved(
   definition: ResolvedExposureDefinition,
   options: MatchOptions,
   role: 'exposure' | 'comparison' = 'exposure',
+  /** The history classified and its run under this definition's criteria, test and gap, when already known. */
+  known?: { readonly classified: readonly ClassifiedCheckup[]; readonly run: Persistence },
 ): HistoryMatch {
   const body = CRITERIA[definition.criteria].id;
-  const classified = classifyForDefinition(checkups, definition);
-  const run = runForDefinition(classified, definition);
+  const classified = known?.classified ?? classifyForDefinition(checkups, definition);
+  const run = known?.run ?? runForDefinition(classified, definition);
   const sameCategory = run.category === definition.category;
   const count = sameCategory ? run.yearlyResults : 0;
   const matches = sameCategory && count >= definition.minYears;
@@ -280,9 +282,12 @@ function neitherReason(run: Persistence, definition: ResolvedExposureDefinition)
  */
 export function exposureStatus(checkups: readonly Checkup[], exposure: ExposureDefinition, options: MatchOptions = {}): ExposureStatusMatch {
   const definition = resolveExposureDefinition(exposure);
-  const exposed = matchResolved(checkups, exposure, definition, options);
+  // The comparison shares the criteria set, test and gap rule: classify and find the run once.
+  const classified = classifyForDefinition(checkups, definition);
+  const known = { classified, run: runForDefinition(classified, definition) };
+  const exposed = matchResolved(checkups, exposure, definition, options, 'exposure', known);
   const comparisonDefinition = definition.comparison ? { ...definition, category: definition.comparison.category, minYears: definition.comparison.minYears } : null;
-  const comparison = comparisonDefinition ? matchResolved(checkups, exposure, comparisonDefinition, options, 'comparison') : null;
+  const comparison = comparisonDefinition ? matchResolved(checkups, exposure, comparisonDefinition, options, 'comparison', known) : null;
   const run = exposed.persistence;
   if (exposed.matches) {
     return { status: 'exposed', neitherReason: null, exposure: exposed, comparison, run, reasons: ["Fits the study's exposure.", ...exposed.reasons] };

@@ -35,7 +35,11 @@ const SYNONYMS: Readonly<Record<Exclude<CheckupField, 'stratum' | 'ignore'>, rea
 };
 
 /** Headers taken as strata, by their normalised name. */
-const STRATUM_HEADERS = ['site', 'department', 'dept', 'location', 'plant', 'team', 'shift', 'division', 'workplace', 'occupation', 'job'];
+const STRATUM_HEADERS = ['site', 'department', 'dept', 'departement', 'departamento', 'abteilung', 'location', 'plant', 'team', 'shift', 'division', 'workplace', 'occupation', 'job'];
+/** Other spellings of the stratum "department". */
+const DEPARTMENT_SPELLINGS = ['dept', 'departement', 'departamento', 'abteilung'];
+/** A column with one of these headers right after a value column without a unit is that value's unit column. */
+const BARE_UNIT_HEADERS = ['unit', 'units', 'unite', 'einheit', 'unidad'];
 /** A column `group_<name>` is the stratum `<name>`. */
 const GROUP_PREFIX = 'group ';
 
@@ -116,7 +120,7 @@ export function guessColumn(header: string): Guess {
   if (normalised.startsWith(GROUP_PREFIX) && normalised.length > GROUP_PREFIX.length) {
     return { field: 'stratum', unit: null, stratum: normalised.slice(GROUP_PREFIX.length).replace(/ /g, '_'), identifying: false };
   }
-  if (STRATUM_HEADERS.includes(normalised)) return { field: 'stratum', unit: null, stratum: normalised === 'dept' ? 'department' : normalised, identifying: false };
+  if (STRATUM_HEADERS.includes(normalised)) return { field: 'stratum', unit: null, stratum: DEPARTMENT_SPELLINGS.includes(normalised) ? 'department' : normalised, identifying: false };
   const { base, unit } = headerUnit(normalised);
   for (const field of Object.keys(SYNONYMS) as (keyof typeof SYNONYMS)[]) {
     if (!SYNONYMS[field].includes(base)) continue;
@@ -227,6 +231,15 @@ export function proposeMapping(headers: readonly string[], overrides: MappingOve
   const columns: ColumnAssignment[] = trimmed.map((header, index) => {
     const guess = overrideByColumn.get(index) ?? guessColumn(header);
     return { index, header, field: guess.field, unit: guess.unit, stratum: guess.stratum, identifying: overrideByColumn.has(index) ? false : guess.identifying };
+  });
+
+  // "HbA1c, unit, FPG, unit": a bare unit column belongs to the value column just before it.
+  columns.forEach((column, i) => {
+    const before = columns[i - 1];
+    if (column.field !== null || overrideByColumn.has(i) || !BARE_UNIT_HEADERS.includes(normalised[i] ?? '')) return;
+    if (before && (before.field === 'hba1c' || before.field === 'fpg') && before.unit === null) {
+      columns[i] = { ...column, field: before.field === 'hba1c' ? 'hba1c-unit' : 'fpg-unit' };
+    }
   });
 
   const seenHeaders = new Map<string, number>();

@@ -60,9 +60,15 @@ function countBreaks(text: string): number {
 /** Splits text in chunks into rows of cells. Feed with {@link DelimitedSplitter.push}, finish with {@link DelimitedSplitter.end}. */
 export class DelimitedSplitter {
   private carry = '';
-  private nextLine = 1;
+  private nextLine: number;
 
-  constructor(readonly delimiter: Delimiter) {}
+  /** @param firstLine - the file line the first text pushed starts on (1 unless lines were read before) */
+  constructor(
+    readonly delimiter: Delimiter,
+    firstLine = 1,
+  ) {
+    this.nextLine = firstLine;
+  }
 
   /** The rows completed by this chunk. */
   push(chunk: string): CellLine[] {

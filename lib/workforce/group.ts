@@ -72,6 +72,28 @@ export class BloomFilter {
 }
 
 /**
+ * Whether worker ids arrive grouped (each worker's rows together), fed one id per row; for a
+ * quick first pass over a file that reads only the worker column.
+ */
+export class GroupingCheck {
+  private current: string | null = null;
+  private readonly done = new BloomFilter();
+  grouped = true;
+
+  /** Feeds the next row's worker id; false once a finished worker comes back. */
+  add(worker: string): boolean {
+    if (!this.grouped || worker === this.current) return this.grouped;
+    if (this.done.mightHave(worker)) {
+      this.grouped = false;
+      return false;
+    }
+    if (this.current !== null) this.done.add(this.current);
+    this.current = worker;
+    return true;
+  }
+}
+
+/**
  * Hands over each worker once the next worker's row arrives.
  *
  * @example

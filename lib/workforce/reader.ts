@@ -142,36 +142,34 @@ export function createCheckupTextReader(options: CheckupReaderOptions): CheckupT
   let headerCells: CellLine | null = null;
   const pending: CellLine[] = [];
   const counter = new Counter();
+  let sawText = false;
 
-  /** Before the delimiter is known: collect text until the header line is complete. */
-  function findHeader(text: string, final: boolean): CellLine[] {
-    preamble += text;
+  /**
+   * Before the delimiter is known: collect text until the header line (the first that is not
+   * blank and not a "#" note) is complete, then split everything from it on.
+   */
+  function findHeader(final: boolean): CellLine[] {
     let start = 0;
     let line = 1;
     for (;;) {
-      const m = /\r\n|\n|\r/.exec(preamble.slice(start));
-      if (!m && !final) return [];
-      const end = m ? start + m.index : preamble.length;
-      const content = preamble.slice(start, end);
+      const rest = preamble.slice(start);
+      const m = /\r\n|\n|\r/.exec(rest);
+      if (!final && (!m || (m[0] === '\r' && m.index === rest.length - 1))) return [];
+      const content = m ? rest.slice(0, m.index) : rest;
       const trimmed = content.trim();
       if (trimmed !== '' && !trimmed.startsWith('#') && !/^[,;\t\s]*$/.test(trimmed)) {
-        splitter = new DelimitedSplitter(guessDelimiter(content));
-        // Re-split from the header line on, keeping the file's line numbers.
-        const rest = preamble.slice(start);
+        splitter = new DelimitedSplitter(guessDelimiter(content), line);
         preamble = '';
-        const lines = [...splitter.push(rest), ...(final ? splitter.end() : [])];
-        return lines.map((l) => ({ line: l.line + line - 1, cells: l.cells }));
+        return [...splitter.push(rest), ...(final ? splitter.end() : [])];
       }
       if (!m) {
         preamble = '';
         return [];
       }
-      start = end + m[0].length;
+      start += m.index + m[0].length;
       line++;
     }
   }
-
-  let lineOffset = 0;
 
   function settleHeader(final: boolean): ReadOutcome | null {
     if (!headerCells || !splitter) return null;
@@ -214,31 +212,24 @@ export function createCheckupTextReader(options: CheckupReaderOptions): CheckupT
     push(chunk: string): ReadOutcome {
       if (refusal) return refusal;
       if (!splitter) {
-        const first = findHeader(chunk.charCodeAt(0) === 0xfeff && preamble === '' ? chunk.slice(1) : chunk, false);
-        if (!splitter) return { rows: [], problems: [] };
-        lineOffset = (first[0]?.line ?? 1) - 1;
-        return take(first, false);
+        if (!sawText && /\S/.test(chunk.replace(/^\uFEFF/, ''))) sawText = true;
+        preamble += preamble === '' && chunk.charCodeAt(0) === 0xfeff ? chunk.slice(1) : chunk;
+        const first = findHeader(false);
+        return splitter ? take(first, false) : { rows: [], problems: [] };
       }
-      return take(
-        splitter.push(chunk).map((l) => ({ line: l.line + lineOffset, cells: l.cells })),
-        false,
-      );
+      return take(splitter.push(chunk), false);
     },
     end(): ReadOutcome {
       if (refusal) return refusal;
       if (!splitter) {
-        const first = findHeader('', true);
+        const first = findHeader(true);
         if (!splitter) {
-          refusal = { refused: true, code: counter.read === 0 && preamble === '' ? 'empty-file' : 'no-header', message: 'The file is empty or has no header row (a first row naming the columns: worker, date, HbA1c …)', problems: [] };
+          refusal = { refused: true, code: sawText ? 'no-header' : 'empty-file', message: 'The file is empty or has no header row (a first row naming the columns: worker, date, HbA1c …)', problems: [] };
           return refusal;
         }
-        lineOffset = (first[0]?.line ?? 1) - 1;
         return take(first, true);
       }
-      const step = take(
-        splitter.end().map((l) => ({ line: l.line + lineOffset, cells: l.cells })),
-        true,
-      );
+      const step = take(splitter.end(), true);
       if (isRefusal(step)) return step;
       if (!headerCells) {
         refusal = { refused: true, code: 'no-header', message: 'The file is empty or has no header row (a first row naming the columns: worker, date, HbA1c …)', problems: [] };

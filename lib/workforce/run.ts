@@ -135,7 +135,7 @@ export async function runCheckups(chunks: AsyncIterable<string | { readonly file
     header = reader.header;
     if (header) options.onHeader?.(header);
   }
-  const empty = noUsableRows(counts);
+  const empty = noUsableRows(grouper.size === 0 ? { ...counts, used: 0 } : counts);
   if (empty) return { ok: false, refusal: empty };
   const evaluated = await evaluateAll(grouper, counts, options, problemCount, charsDone);
   if (!evaluated) return CANCELLED;

@@ -15,6 +15,7 @@ import { parseEvidenceEntry } from '@/lib/evidence/parse';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { EFFECT_MEASURES, INTERVAL_LEVELS, STUDY_DESIGNS } from '@/lib/scenario/schema';
 import { ProblemList } from './ProblemList';
+import { ExposureFields, withExposure } from '../exposure/ExposureFields';
 
 export interface EvidenceFormProps {
   readonly entry: EvidenceEntry;
@@ -95,13 +96,14 @@ export function EvidenceForm({ entry, onSave, onCancel }: EvidenceFormProps) {
   const [draft, setDraft] = useState<Draft>(() => toDraft(entry));
   const [issues, setIssues] = useState<readonly Issue[]>([]);
   const [saving, setSaving] = useState(false);
+  const [exposure, setExposure] = useState(entry.exposureDefinition);
 
   const fieldIssues = (key: string) => issues.filter((i) => i.path[i.path.length - 1] === key);
-  const other = issues.filter((i) => !(String(i.path[i.path.length - 1]) in LABELS));
+  const other = issues.filter((i) => !(String(i.path[i.path.length - 1]) in LABELS) && i.path[0] !== 'exposureDefinition');
 
   async function submit(event: FormEvent) {
     event.preventDefault();
-    const parsed = parseEvidenceEntry(fromDraft(draft, entry));
+    const parsed = parseEvidenceEntry(fromDraft(draft, withExposure(entry, exposure)));
     if (!parsed.ok) return setIssues(parsed.issues);
     setSaving(true);
     const refused = await onSave(parsed.value);
@@ -188,6 +190,7 @@ export function EvidenceForm({ entry, onSave, onCancel }: EvidenceFormProps) {
         <legend className="subsection__title">Wording</legend>
         {WORDING.map((k) => field(k))}
       </fieldset>
+      <ExposureFields value={exposure} onChange={setExposure} issues={issues.filter((i) => i.path[0] === 'exposureDefinition')} />
       {field('notes', 'textarea')}
       <ProblemList problems={other} heading="Not saved" />
       <div className="library__buttons">

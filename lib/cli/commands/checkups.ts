@@ -28,6 +28,9 @@ import { parseTableCsv } from '../../tables/csv';
 import type { PopulationTable } from '../../tables/schema';
 import {
   createCheckupTextReader,
+  DelimitedSplitter,
+  GroupingCheck,
+  type CellLine,
   evaluateWorker,
   isRefusal,
   noUsableRows,
@@ -198,7 +201,6 @@ async function loadEvidence(io: CommandIo, args: Args): Promise<EvidenceEntry | 
 
 /** Control characters (and line and bidirectional separators) written as \xNN / \uNNNN, so one problem stays one line. */
 export function escapeControl(text: string): string {
-  // eslint-disable-next-line no-control-regex
   return text.replace(/[\u0000-\u001f\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g, (c) => {
     const code = c.charCodeAt(0);
     return code < 0x100 ? `\\x${code.toString(16).padStart(2, '0')}` : `\\u${code.toString(16).padStart(4, '0')}`;
@@ -365,20 +367,45 @@ function strataNames(header: HeaderInfo | null): string[] {
   return header ? header.proposal.mapping.columns.filter((c) => c.field === 'stratum' && c.stratum !== null).map((c) => c.stratum as string) : [];
 }
 
-/** Pass 1 for a CSV/TSV file: is it grouped by worker? Reads rows only, evaluates nothing. */
-async function isGrouped(file: string, context: { today: string; overrides: MappingOverrides }): Promise<boolean> {
-  const reader = createCheckupTextReader(context);
-  const grouper = new StreamingGrouper();
+/**
+ * Pass 1 for a CSV/TSV file: is it grouped by worker? Finds the header with a checkup reader,
+ * then only splits lines and looks at the worker column (about the cost of reading the file).
+ */
+async function isGrouped(file: string, options: { today: string; overrides: MappingOverrides }): Promise<boolean> {
+  const probe = createCheckupTextReader(options);
+  const check = new GroupingCheck();
+  let splitter: DelimitedSplitter | null = null;
+  let headerLine = 0;
+  let workerIndex = -1;
+  let buffered = '';
+  const feed = (lines: readonly CellLine[]) => {
+    for (const l of lines) {
+      if (l.line <= headerLine) continue;
+      const id = (l.cells[workerIndex] ?? '').trim();
+      if (id !== '' && !check.add(id)) return false;
+    }
+    return true;
+  };
   for await (const chunk of fileChunks(file)) {
-    const step = reader.push(chunk);
-    if (isRefusal(step)) return false;
-    grouper.add(step.rows);
-    if (grouper.ungrouped) return false;
+    if (splitter === null) {
+      buffered += chunk;
+      const step = probe.push(chunk);
+      if (isRefusal(step)) return false;
+      const header = probe.header;
+      if (header === null) continue;
+      const worker = header.proposal.mapping.columns.find((c) => c.field === 'worker');
+      if (!worker) return false;
+      splitter = new DelimitedSplitter(header.delimiter);
+      headerLine = header.headerLine;
+      workerIndex = worker.index;
+      if (!feed(splitter.push(buffered))) return false;
+      buffered = '';
+      continue;
+    }
+    if (!feed(splitter.push(chunk))) return false;
   }
-  const last = reader.end();
-  if (isRefusal(last)) return false;
-  grouper.add(last.rows);
-  return grouper.ungrouped === null;
+  if (splitter === null) return false;
+  return feed(splitter.end());
 }
 
 export async function checkups(io: CommandIo): Promise<number> {
