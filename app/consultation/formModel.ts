@@ -18,7 +18,10 @@ import { toIssues } from '@/lib/scenario/issues';
 import { EFFECT_MEASURES, personSchema, STUDY_DESIGNS, type Scenario } from '@/lib/scenario/schema';
 import { lookupStratum, tableNeeds, type StratumLookup } from '@/lib/tables/lookup';
 import type { PopulationTable } from '@/lib/tables/schema';
-import { describePeople } from '@/lib/wording/people';
+import { scenarioContext, type ScenarioContext } from '@/lib/context';
+import { numberFromText, optionalText, phraseText } from '@/lib/text';
+
+export { numberFromText };
 
 /** Where the baseline comes from: a bundled table, or one of the engine's three forms typed in. */
 export const BASELINE_SOURCES = ['table', 'risk', 'rate', 'population'] as const;
@@ -79,6 +82,8 @@ export interface FormOutcome {
   readonly lookup?: StratumLookup;
   /** Who "people like you" are, e.g. "women aged 40 to 49". */
   readonly people: string;
+  /** Who the figures are about and where they come from (lib/context), worked out once. */
+  readonly context: ScenarioContext;
 }
 
 /**
@@ -86,30 +91,6 @@ export interface FormOutcome {
  * codes; checking them here keeps the form from offering a result the sentences would refuse.
  */
 export const OUTCOME_REQUIRED_MESSAGE = 'The outcome is required in plain words, e.g. "heart failure needing hospital care"';
-
-function wordingText(text: string | undefined): string {
-  return (text ?? '').trim().replace(/[.\s]+$/, '');
-}
-
-/** A plain decimal as people type it: "0.08", ".08", "12", "1e-3"; a decimal comma is accepted. */
-const DECIMAL = /^[+-]?(\d+([.,]\d*)?|[.,]\d+)(e[+-]?\d+)?$/i;
-
-/**
- * Text to a number for the engine: blank → undefined (the schema then says "is required" or
- * leaves an optional field out), a decimal → its value, anything else → NaN (the schema then says
- * "must be a number"). Never guesses at text such as "12abc" or "0x10".
- */
-export function numberFromText(text: string): number | undefined {
-  const trimmed = text.trim();
-  if (trimmed === '') return undefined;
-  if (!DECIMAL.test(trimmed)) return Number.NaN;
-  return Number(trimmed.replace(',', '.'));
-}
-
-function optionalText(text: string): string | undefined {
-  const trimmed = text.trim();
-  return trimmed === '' ? undefined : trimmed;
-}
 
 /** Drops the keys whose value is undefined, so optional scenario fields stay absent. */
 export function defined<T extends Record<string, unknown>>(object: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
@@ -169,6 +150,9 @@ function withPerson(values: ConsultationFormValues, part: BaselinePart): Result<
   return ok({ ...part, person: checked.value });
 }
 
+/** Risk and prevalence fields are proportions: "8%" there is read as 0.08 (lib/text/decimal.ts). */
+const PERCENT = { percent: true } as const;
+
 /** The baseline part of the scenario, from the chosen source. */
 function baselinePart(
   values: ConsultationFormValues,
@@ -178,14 +162,14 @@ function baselinePart(
     // Every key of the chosen form is kept, even when blank, so the engine reports each missing
     // field of that form ("… is required") rather than "the baseline must be one of …".
     case 'risk':
-      return withPerson(values, { baseline: { risk: numberFromText(values.riskBaseline.risk), years: numberFromText(values.riskBaseline.years) } });
+      return withPerson(values, { baseline: { risk: numberFromText(values.riskBaseline.risk, PERCENT), years: numberFromText(values.riskBaseline.years) } });
     case 'rate':
       return withPerson(values, { baseline: { rate: numberFromText(values.rateBaseline.rate), perPersonYears: numberFromText(values.rateBaseline.perPersonYears) } });
     case 'population':
       return withPerson(values, {
         baseline: {
-          populationRisk: numberFromText(values.populationBaseline.populationRisk),
-          exposurePrevalence: numberFromText(values.populationBaseline.exposurePrevalence),
+          populationRisk: numberFromText(values.populationBaseline.populationRisk, PERCENT),
+          exposurePrevalence: numberFromText(values.populationBaseline.exposurePrevalence, PERCENT),
           years: numberFromText(values.populationBaseline.years),
         },
       });
@@ -269,10 +253,10 @@ export function formToOutcome(values: ConsultationFormValues, tables: readonly P
   const { table, lookup } = base.value;
   const scenario = parsed.value;
   const result = computed.value;
-  const ageBand = table && lookup && tableNeeds(table).age ? { fromYears: lookup.stratum.ageFrom, toYears: lookup.stratum.ageTo } : undefined;
-  const people = describePeople({ person: scenario.person, ageBand, population: scenario.wording?.population });
+  const context = scenarioContext(scenario, { table, lookup });
+  const people = context.people;
   const textIssues: Issue[] = people.ok ? [] : [...people.issues];
-  if (wordingText(scenario.wording?.outcome) === '') {
+  if (phraseText(scenario.wording?.outcome) === '') {
     textIssues.push({ code: 'outcome-required', path: ['wording', 'outcome'], message: OUTCOME_REQUIRED_MESSAGE });
   }
   if (!people.ok || textIssues.length > 0) {
@@ -284,6 +268,7 @@ export function formToOutcome(values: ConsultationFormValues, tables: readonly P
     ...(table ? { table } : {}),
     ...(lookup ? { lookup } : {}),
     people: people.value,
+    context,
   });
 }
 

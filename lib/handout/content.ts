@@ -3,18 +3,17 @@
  * (lib/wording) and where the numbers come from. {@link handoutSheet} (./sheet.ts) lays this
  * out as one printable sheet; nothing here knows about paper or layout.
  *
- * Who "people like you" are: the person's sex and the age band of the table stratum the
- * baseline came from ("women aged 50 to 59"), else the person's age, else the scenario's
- * population wording if it is short enough (lib/wording/people.ts). No identifier is ever
- * part of a scenario, so none can reach the handout.
+ * Who "people like you" are and the source lines come from lib/context/scenarioContext.ts, the
+ * same function the consultation screen uses, so screen and paper always agree. No identifier
+ * is ever part of a scenario, so none can reach the handout.
  */
+import { scenarioContext } from '../context';
 import { computeScenario } from '../engine/compute';
 import type { ComputeResult } from '../engine/types';
 import { fail, ok, type Result, type Warning } from '../result';
 import type { Scenario } from '../scenario/schema';
-import { lookupStratum } from '../tables/lookup';
 import type { PopulationTable } from '../tables/schema';
-import { describePeople, patientText, type AgeBand, type PatientText } from '../wording';
+import { patientText, type PatientText } from '../wording';
 
 export type HandoutAudience = 'person' | 'group';
 
@@ -34,27 +33,16 @@ export interface HandoutContentOptions {
   readonly audience?: HandoutAudience | undefined;
 }
 
-function ageBandFor(scenario: Scenario, table: PopulationTable | undefined): AgeBand | undefined {
-  if (!table || !scenario.person || table.id !== scenario.tableId) return undefined;
-  const found = lookupStratum(table, scenario.person);
-  if (!found.ok) return undefined;
-  // Only a band that really is a band: a table without ages has one 0–120 stratum.
-  const { ageFrom, ageTo } = found.value.stratum;
-  return ageFrom === 0 && ageTo >= 120 ? undefined : { fromYears: ageFrom, toYears: ageTo };
-}
+const PERSON_SOURCE_PREFIX = 'Risk for people like you:';
+const GROUP_SOURCE_PREFIX = 'Risk for this group:';
 
-/** The "where the numbers come from" lines; a group session's sheet says "this group", not "people like you". */
+/**
+ * The "where the numbers come from" lines (lib/context/scenarioContext.ts writes them); a group
+ * session's sheet says "Risk for this group" where one person's says "Risk for people like you".
+ */
 export function sourceLines(scenario: Scenario, table: PopulationTable | undefined, audience: HandoutAudience = 'person'): string[] {
-  const lines: string[] = [];
-  const whose = audience === 'group' ? 'Risk for this group' : 'Risk for people like you';
-  if (table && table.id === scenario.tableId) {
-    lines.push(`${whose}: ${table.title}. Source: ${table.source} (${table.year}).`);
-  } else {
-    lines.push(`${whose}: entered by your clinician.`);
-  }
-  const citation = scenario.wording?.citation?.trim();
-  lines.push(citation ? `Study: ${citation}.`.replace(/\.\.$/, '.') : 'Study: not named.');
-  return lines;
+  const lines = [...scenarioContext(scenario, { table }).sourceLines];
+  return audience === 'group' ? lines.map((line) => (line.startsWith(PERSON_SOURCE_PREFIX) ? `${GROUP_SOURCE_PREFIX}${line.slice(PERSON_SOURCE_PREFIX.length)}` : line)) : lines;
 }
 
 /**
@@ -67,11 +55,7 @@ export function buildHandout(scenario: Scenario, options: HandoutContentOptions)
   const computed = computeScenario(scenario);
   if (!computed.ok) return computed;
   const result = computed.value;
-  const people = describePeople({
-    person: scenario.person,
-    ageBand: ageBandFor(scenario, options.table),
-    population: scenario.wording?.population,
-  });
+  const people = scenarioContext(scenario, { table: options.table }).people;
   if (!people.ok) return fail(people.issues);
   const text = patientText({
     result,

@@ -46,15 +46,11 @@ export function illustrativeParts(scenario: Scenario, table: PopulationTable | u
  * The band, or undefined when nothing on the sheet is invented.
  * @example
  * illustrativeBand({ ...scenario, tableId: 'demo-heart-failure-10y' }, undefined)
- * //=> { heading: 'Illustrative figures — not for patients', text: 'The population table behind these numbers was invented for a demonstration. …', what: ['table'] }
+ * //=> { heading: 'Illustrative figures — not for patients', text: 'Population table invented for a demonstration.', what: ['table'] }
  */
 export function illustrativeBand(scenario: Scenario, table: PopulationTable | undefined): IllustrativeBand | undefined {
   const what = illustrativeParts(scenario, table);
   if (what.length === 0) return undefined;
-  const subject = what.length === 2 ? 'The population table and the study' : what[0] === 'table' ? 'The population table' : 'The study';
-  return {
-    heading: ILLUSTRATIVE_BAND_HEADING,
-    text: `${subject} behind these numbers ${what.length === 2 ? 'were' : 'was'} invented for a demonstration. Do not give this sheet to a patient.`,
-    what,
-  };
+  const subject = what.length === 2 ? 'Table and study' : what[0] === 'table' ? 'Population table' : 'Study';
+  return { heading: ILLUSTRATIVE_BAND_HEADING, text: `${subject} invented for a demonstration.`, what };
 }

@@ -109,6 +109,12 @@ export interface HandoutSheet {
     readonly overflowWarning: string;
   };
   readonly layout: HandoutLayout;
+  /**
+   * True when "what the numbers mean / do not mean" sit in the column beside the pictures
+   * rather than under them: the large layout at 1,000 people, whose 6 cm wide pictures are
+   * 12 cm tall, leaves room there and none below for a one-page sheet.
+   */
+  readonly listsBesidePictures: boolean;
   readonly audience: HandoutAudience;
   readonly illustrative: IllustrativeBand | undefined;
   readonly title: string;
@@ -226,6 +232,7 @@ export function handoutSheet(scenario: Scenario, template: HandoutSheetTemplate,
       overflowWarning: `The handout may run onto a second ${size.label} page: shorten the opening words or the next steps.`,
     },
     layout,
+    listsBesidePictures: layout === 'large' && text.denominator === 1000,
     audience,
     illustrative: illustrativeBand(scenario, options.table),
     title: blocks.title,

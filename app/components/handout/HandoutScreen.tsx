@@ -20,6 +20,7 @@ import {
   PAPER_SIZE_KEYS,
   PAPER_SIZES,
   requestedTableId,
+  TEMPLATE_MESSAGES,
   type Clinic,
   type HandoutAudience,
   type HandoutBlocks,
@@ -140,7 +141,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
 
   function withStore<T>(run: (store: TemplateStore) => { message?: string; issues?: readonly Issue[]; list?: readonly HandoutTemplate[] } & T) {
     const store = browserStore();
-    if (!store) return { issues: [{ code: 'storage-unavailable', path: [], message: 'This browser does not allow saved templates here' }] };
+    if (!store) return { issues: [{ code: 'storage-unavailable', path: [], message: TEMPLATE_MESSAGES.storageUnavailable }] };
     const outcome = run(store);
     if (outcome.list) setTemplates(outcome.list);
     return outcome;
@@ -277,24 +278,24 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
           onUse={(t) => {
             setBlocks(t.blocks);
             setClinic(t.clinic);
-            return `Using the template "${t.name}".`;
+            return TEMPLATE_MESSAGES.using(t.name);
           }}
           onSave={(name) =>
             withStore((store) => {
               const r = store.save({ name, blocks, clinic });
-              return r.ok ? { list: r.value, message: `Saved the template "${name.trim()}".` } : { issues: r.issues };
+              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.saved(name) } : { issues: r.issues };
             })
           }
           onRename={(from, to) =>
             withStore((store) => {
               const r = store.rename(from, to);
-              return r.ok ? { list: r.value, message: `Renamed "${from}" to "${to.trim()}".` } : { issues: r.issues };
+              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.renamed(from, to) } : { issues: r.issues };
             })
           }
           onDelete={(name) =>
             withStore((store) => {
               const r = store.remove(name);
-              return r.ok ? { list: r.value, message: `Deleted the template "${name}".` } : { issues: r.issues };
+              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.deleted(name) } : { issues: r.issues };
             })
           }
           onExport={() =>
@@ -302,15 +303,14 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
               const r = store.exportFile();
               if (!r.ok) return { issues: r.issues };
               download('hundredfold-handout-templates.json', r.value);
-              return { message: 'Exported the saved templates as a JSON file.' };
+              return { message: TEMPLATE_MESSAGES.exported };
             })
           }
           onImport={(text) =>
             withStore((store) => {
               const r = store.importFile(text);
-              if (!r.ok) return { issues: r.issues, message: 'The file was not imported; nothing saved was changed.' };
-              const renamed = r.value.renamed.map((n) => ` "${n.from}" was saved as "${n.to}" because the name was taken.`).join('');
-              return { list: r.value.templates, message: `Imported ${r.value.added.length} template${r.value.added.length === 1 ? '' : 's'}.${renamed}` };
+              if (!r.ok) return { issues: r.issues, message: TEMPLATE_MESSAGES.importRefused };
+              return { list: r.value.templates, message: TEMPLATE_MESSAGES.imported(r.value) };
             })
           }
         />

@@ -73,7 +73,7 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
         </p>
       ))}
 
-      <section className="sheet__numbers" aria-labelledby="sheet-numbers">
+      <section className={`sheet__numbers sheet__numbers--${sheet.denominator}`} aria-labelledby="sheet-numbers">
         <h3 id="sheet-numbers" className="visually-hidden">
           {sheet.numbersHeading}
         </h3>
@@ -82,6 +82,12 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
             <IconArray key={a.key} layout={a.layout} title={a.title} description={a.caption} idPrefix={a.idPrefix} />
           ))}
         </div>
+        {sheet.listsBesidePictures ? (
+          <div className="sheet__beside">
+            <ListSection id="sheet-means" list={sheet.means} />
+            <ListSection id="sheet-not-mean" list={sheet.doesNotMean} />
+          </div>
+        ) : null}
         <IconLegend entries={sheet.legend.entries} idPrefix="handout-legend" heading={sheet.legend.heading} />
         <GroupsTable text={sheet.text} className="sheet__table" />
       </section>
@@ -97,10 +103,12 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
         </section>
       ) : null}
 
-      <div className="sheet__columns">
-        <ListSection id="sheet-means" list={sheet.means} />
-        <ListSection id="sheet-not-mean" list={sheet.doesNotMean} />
-      </div>
+      {sheet.listsBesidePictures ? null : (
+        <div className="sheet__columns">
+          <ListSection id="sheet-means" list={sheet.means} />
+          <ListSection id="sheet-not-mean" list={sheet.doesNotMean} />
+        </div>
+      )}
 
       <div className="sheet__columns sheet__columns--wide">
         <section aria-labelledby="sheet-questions">

@@ -105,7 +105,7 @@ describe('handoutSheet: demo content carries the band (issue 12.2)', () => {
     const band = sheetOf(DEMO, { table: DEMO_HEART_FAILURE_10Y }).illustrative;
     expect(band?.heading).toBe('Illustrative figures \u2014 not for patients');
     expect(band?.what).toEqual(['table', 'study']);
-    expect(band?.text).toBe('The population table and the study behind these numbers were invented for a demonstration. Do not give this sheet to a patient.');
+    expect(band?.text).toBe('Table and study invented for a demonstration.');
   });
 
   it('marks a demo table named by id even before the table is found', () => {
