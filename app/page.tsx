@@ -1,3 +1,4 @@
+import Link from 'next/link';
 import { ConsultationScreen } from './consultation/ConsultationScreen';
 
 /** `/`: the consultation screen. Static: the scenario is read from the address in the browser only. */
@@ -5,6 +6,9 @@ export default function Home() {
   return (
     <main id="main">
       <ConsultationScreen />
+      <p className="home__checkups-link">
+        <Link href="/checkups">Workforce checkups: a whole workforce&rsquo;s checkup file</Link>
+      </p>
     </main>
   );
 }

@@ -1,0 +1,318 @@
+'use client';
+/**
+ * The checkups screen: set-up, open a file, confirm the columns, process in a Web Worker, then
+ * the worklist and the summary. Everything shown comes from lib/workforce and lib/checkups; the
+ * file stays in this page's memory and is never sent anywhere.
+ */
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
+import { DEMO_TABLES } from '@/lib/tables/demo';
+import { checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
+import { checkupsProgressView } from '@/lib/checkups/progress';
+import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
+import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
+import type { FileKindName, FromWorker, ToWorker } from './protocol';
+import { Worklist } from './Worklist';
+import { SummaryPanel } from './SummaryPanel';
+import { ProblemsPanel } from './ProblemsPanel';
+import './checkups.css';
+
+const CRITERIA = ['ADA', 'WHO', 'NICE'] as const;
+
+function localToday(): string {
+  const d = new Date();
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+}
+
+type Phase = 'setup' | 'columns' | 'running' | 'done';
+
+export function CheckupsScreen() {
+  const [evidenceId, setEvidenceId] = useState('demo-workforce-hba1c-heart-failure');
+  const [tableId, setTableId] = useState('demo-heart-failure-10y');
+  const [criteria, setCriteria] = useState<string>('ADA');
+  const [horizon, setHorizon] = useState('');
+  const [files, setFiles] = useState<File[]>([]);
+  const [kind, setKind] = useState<FileKindName | null>(null);
+  const [fileMessage, setFileMessage] = useState<string | null>(null);
+  const [header, setHeader] = useState<HeaderInfo | null>(null);
+  const [fields, setFields] = useState<(CheckupField | null)[]>([]);
+  const [phase, setPhase] = useState<Phase>('setup');
+  const [progress, setProgress] = useState<{ p: CheckupsProgress; elapsed: number } | null>(null);
+  const [rows, setRows] = useState<WorklistRow[]>([]);
+  const [problems, setProblems] = useState<RowProblem[]>([]);
+  const [summary, setSummary] = useState<WorkforceSummary | null>(null);
+  const [runMessages, setRunMessages] = useState<string[]>([]);
+  const [paste, setPaste] = useState('');
+  const workerRef = useRef<Worker | null>(null);
+  const startRef = useRef(0);
+  const pendingRows = useRef<WorklistRow[]>([]);
+
+  const evidence = DEMO_EVIDENCE.find((e) => e.id === evidenceId) ?? DEMO_EVIDENCE[0];
+  const table = DEMO_TABLES.find((t) => t.id === tableId) ?? DEMO_TABLES[0];
+
+  const onMessage = useCallback((event: MessageEvent<FromWorker>) => {
+    const m = event.data;
+    if (m.type === 'header') {
+      if (m.refusal) {
+        setFileMessage(m.refusal.message);
+        setPhase('setup');
+        return;
+      }
+      setHeader(m.header);
+      setFields(m.header ? m.header.proposal.mapping.columns.map((c) => c.field) : []);
+      setPhase('columns');
+    } else if (m.type === 'progress') {
+      setProgress({ p: m.progress, elapsed: performance.now() - startRef.current });
+    } else if (m.type === 'workers') {
+      const start = pendingRows.current.length;
+      pendingRows.current = pendingRows.current.concat(m.workers.map((w, i) => worklistRow(w, start + i)));
+    } else if (m.type === 'problems') {
+      setProblems((p) => p.concat(m.problems));
+    } else if (m.type === 'refused') {
+      setRunMessages([...m.messages]);
+      setPhase('columns');
+    } else if (m.type === 'done') {
+      const outcome = m.outcome;
+      if (outcome.ok) {
+        setSummary(outcome.summary);
+        setRows(pendingRows.current);
+        setPhase('done');
+      } else if ('refusal' in outcome) {
+        setRunMessages([outcome.refusal.message]);
+        setPhase('columns');
+      } else {
+        setRunMessages(['Cancelled: nothing was kept. Process the file again when ready.']);
+        setPhase('columns');
+      }
+    }
+  }, []);
+
+  const worker = useCallback((): Worker => {
+    if (!workerRef.current) {
+      const w = new Worker(new URL('./checkups.worker.ts', import.meta.url));
+      w.onmessage = onMessage;
+      workerRef.current = w;
+    }
+    return workerRef.current;
+  }, [onMessage]);
+
+  useEffect(() => () => workerRef.current?.terminate(), []);
+
+  const send = (message: ToWorker) => worker().postMessage(message);
+
+  const openFiles = async (list: File[]) => {
+    setFileMessage(null);
+    setHeader(null);
+    setSummary(null);
+    setRows([]);
+    setProblems([]);
+    setRunMessages([]);
+    const first = list[0];
+    if (!first) return;
+    if (first.size > MAX_CHECKUP_FILE_BYTES) {
+      const refused = checkupFileKind(first.name, first.size, new Uint8Array([0]));
+      setFileMessage(refused.kind === 'refused' ? refused.message : null);
+      return;
+    }
+    const head = new Uint8Array(await first.slice(0, 512).arrayBuffer());
+    const found = checkupFileKind(first.name, first.size, head);
+    if (found.kind === 'refused') {
+      setFileMessage(found.message);
+      setPhase('setup');
+      return;
+    }
+    setFiles(list);
+    setKind(found.kind);
+    send({ type: 'preview', file: first, kind: found.kind, today: localToday() });
+  };
+
+  const mapping: ColumnMapping | null = useMemo(() => {
+    if (!header) return null;
+    return { columns: header.proposal.mapping.columns.map((c, i) => ({ ...c, field: fields[i] ?? null })) };
+  }, [header, fields]);
+  const corrected = header ? header.proposal.mapping.columns.some((c, i) => c.field !== (fields[i] ?? null)) : false;
+
+  const process = () => {
+    if (!kind) return;
+    pendingRows.current = [];
+    setProblems([]);
+    setRunMessages([]);
+    setSummary(null);
+    setRows([]);
+    setProgress(null);
+    startRef.current = performance.now();
+    setPhase('running');
+    const h = horizon.trim() === '' ? null : Number(horizon);
+    send({ type: 'run', files, kind, today: localToday(), mapping: corrected ? mapping : null, evidence: evidence!, table: table!, criteria, horizon: h });
+  };
+
+  const cancel = () => send({ type: 'cancel' });
+
+  const progressView = progress ? checkupsProgressView(progress.p, files.reduce((s, f) => s + f.size, 0), progress.elapsed) : null;
+  const skipped = summary ? summary.rows.skipped : 0;
+
+  return (
+    <div className="checkups">
+      <h1>Workforce checkups</h1>
+      <p>Open a year&rsquo;s checkup export to see which workers fit a study&rsquo;s exposure. The file stays in this browser tab; nothing is sent anywhere.</p>
+
+      <section aria-labelledby="setup-heading" className="checkups__section">
+        <h2 id="setup-heading">Set-up</h2>
+        <div className="checkups__grid">
+          <label>
+            Evidence
+            <select value={evidenceId} onChange={(e) => setEvidenceId(e.target.value)}>
+              {DEMO_EVIDENCE.map((e) => (
+                <option key={e.id} value={e.id}>
+                  {e.title}
+                </option>
+              ))}
+            </select>
+          </label>
+          <label>
+            Population table
+            <select value={tableId} onChange={(e) => setTableId(e.target.value)}>
+              {DEMO_TABLES.map((t) => (
+                <option key={t.id} value={t.id}>
+                  {t.title}
+                </option>
+              ))}
+            </select>
+          </label>
+          <label>
+            Criteria set
+            <select value={criteria} onChange={(e) => setCriteria(e.target.value)}>
+              {CRITERIA.map((c) => (
+                <option key={c}>{c}</option>
+              ))}
+            </select>
+          </label>
+          <label>
+            Horizon in years (blank: the table&rsquo;s own period)
+            <input inputMode="decimal" value={horizon} onChange={(e) => setHorizon(e.target.value)} />
+          </label>
+        </div>
+        {evidence && !evidence.exposureDefinition ? (
+          <p role="alert" className="checkups__message">
+            This evidence entry has no exposure definition, so workers cannot be matched to the study. Add one (test, range, criteria set, run length) in the library, or choose another entry.
+          </p>
+        ) : null}
+      </section>
+
+      <section aria-labelledby="file-heading" className="checkups__section">
+        <h2 id="file-heading">Open the file</h2>
+        <div
+          className="checkups__drop"
+          data-testid="drop-zone"
+          onDragOver={(e) => e.preventDefault()}
+          onDrop={(e) => {
+            e.preventDefault();
+            void openFiles([...e.dataTransfer.files]);
+          }}
+        >
+          <label>
+            Checkup file (CSV, TSV, .xlsx or FHIR .ndjson; up to 100 MB) — or drop it here
+            <input type="file" multiple accept=".csv,.tsv,.txt,.xlsx,.ndjson,.jsonl" onChange={(e) => void openFiles([...(e.target.files ?? [])])} />
+          </label>
+        </div>
+        <label className="checkups__paste">
+          Or paste the table
+          <textarea rows={3} value={paste} onChange={(e) => setPaste(e.target.value)} />
+        </label>
+        <button type="button" disabled={paste.trim() === ''} onClick={() => void openFiles([new File([paste], 'pasted.csv', { type: 'text/csv' })])}>
+          Use the pasted table
+        </button>
+        {fileMessage ? (
+          <p role="alert" className="checkups__message" data-testid="file-message">
+            {fileMessage}
+          </p>
+        ) : null}
+      </section>
+
+      {phase !== 'setup' && (header || kind === 'fhir-ndjson') ? (
+        <section aria-labelledby="columns-heading" className="checkups__section">
+          <h2 id="columns-heading">Columns</h2>
+          {header ? (
+            <div className="checkups__scroll">
+              <table className="checkups__table" data-testid="columns">
+                <caption>Each column found, a few values, and what it was taken to be; correct any of them.</caption>
+                <thead>
+                  <tr>
+                    <th scope="col">Column</th>
+                    <th scope="col">Sample values</th>
+                    <th scope="col">Taken to be</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {header.proposal.mapping.columns.map((c, i) => (
+                    <tr key={c.index}>
+                      <th scope="row">{c.header}</th>
+                      <td>{header.sample.slice(0, 3).map((r) => r[c.index] ?? '').join(', ')}</td>
+                      <td>
+                        <select
+                          aria-label={`What the column ${c.header} is`}
+                          value={fields[i] ?? ''}
+                          onChange={(e) => setFields((f) => f.map((v, j) => (j === i ? ((e.target.value || null) as CheckupField | null) : v)))}
+                        >
+                          <option value="">not used</option>
+                          {CHECKUP_FIELDS.map((f) => (
+                            <option key={f} value={f}>
+                              {f}
+                            </option>
+                          ))}
+                        </select>
+                        {c.identifying ? <span> (looks identifying: left out)</span> : null}
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+              {header.proposal.problems.length > 0 ? (
+                <ul className="checkups__message">
+                  {header.proposal.problems.map((p) => (
+                    <li key={p.message}>{p.message}</li>
+                  ))}
+                </ul>
+              ) : null}
+            </div>
+          ) : (
+            <p>A FHIR bulk export: the Patient and Observation resources are read as they are.</p>
+          )}
+          <div className="checkups__actions">
+            <button type="button" onClick={process} disabled={phase === 'running'}>
+              Confirm the columns and process
+            </button>
+            {phase === 'running' ? (
+              <button type="button" onClick={cancel}>
+                Cancel
+              </button>
+            ) : null}
+          </div>
+          {runMessages.map((m) => (
+            <p key={m} role="alert" className="checkups__message">
+              {m}
+            </p>
+          ))}
+        </section>
+      ) : null}
+
+      {phase === 'running' ? (
+        <section aria-labelledby="progress-heading" className="checkups__section">
+          <h2 id="progress-heading">Processing</h2>
+          <progress aria-labelledby="progress-heading" max={1} value={progressView?.fraction ?? 0} />
+          <p aria-live="polite" data-testid="progress-text">
+            {progressView ? `${progressView.text}${progressView.timeLeft ? ` · ${progressView.timeLeft}` : ''}` : 'Starting…'}
+          </p>
+        </section>
+      ) : null}
+
+      {phase === 'done' && summary ? (
+        <>
+          <SummaryPanel summary={summary} outcome={evidence?.wording.outcome ?? 'the outcome'} />
+          <ProblemsPanel problems={problems} skippedRows={skipped} />
+          <Worklist rows={rows} />
+        </>
+      ) : null}
+    </div>
+  );
+}
