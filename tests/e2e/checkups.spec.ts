@@ -1,0 +1,98 @@
+/**
+ * Browser tests of the workforce checkups screen (/checkups): the demo 40-worker file processed
+ * in the Web Worker gives the same summary as `hundredfold checkups` for the same file; a file with
+ * bad rows lists them and processes the rest; a PDF renamed .csv gets its one sentence; axe clean
+ * at 1280 and 390 px; no request leaves the origin.
+ */
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test, type Page } from '@playwright/test';
+import type { WorkforceSummary } from '../../lib/workforce/types';
+import { checkupsSummaryView } from '../../lib/checkups/summaryView';
+
+const DEMO = 'demo/checkups/checkups.csv';
+const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+
+/** The command's summary for a file (same default today as the browser: the machine's date). */
+function commandSummary(file: string): WorkforceSummary {
+  const dir = mkdtempSync(join(tmpdir(), 'checkups-'));
+  const out = join(dir, 'summary.json');
+  try {
+    execFileSync('node', ['bin/hundredfold.mjs', 'checkups', file, '--criteria', 'ADA', '--table-id', 'demo-heart-failure-10y', '--evidence-id', 'demo-workforce-hba1c-heart-failure', '--summary', out], { stdio: ['ignore', 'ignore', 'ignore'] });
+  } catch {
+    // exit 1: some rows were skipped; the summary is still written
+  }
+  return JSON.parse(readFileSync(out, 'utf8')) as WorkforceSummary;
+}
+
+async function openAndProcess(page: Page, file: { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
+  await page.goto('/checkups');
+  await page.getByLabel(/Checkup file/).setInputFiles(file);
+  await expect(page.getByTestId('columns')).toBeVisible();
+  await page.getByRole('button', { name: 'Confirm the columns and process' }).click();
+  await expect(page.getByTestId('summary')).toBeVisible({ timeout: 30_000 });
+}
+
+async function expectAxeClean(page: Page): Promise<void> {
+  const report = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();
+  expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+}
+
+test('the demo file: columns shown, processed in the worker, the summary equals the command’s, nothing leaves the origin', async ({ page, context, baseURL }) => {
+  const requests: string[] = [];
+  context.on('request', (r) => requests.push(r.url()));
+  await page.goto('/');
+  await page.getByRole('link', { name: /Workforce checkups/ }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Workforce checkups' })).toBeVisible();
+  await page.getByLabel(/Checkup file/).setInputFiles(DEMO);
+  const columns = page.getByTestId('columns');
+  await expect(columns).toBeVisible();
+  await expect(columns.getByRole('rowheader', { name: 'Worker' })).toBeVisible();
+  await expect(page.getByLabel('What the column HbA1c (%) is')).toHaveValue('hba1c');
+  await page.getByRole('button', { name: 'Confirm the columns and process' }).click();
+  await expect(page.getByTestId('summary')).toBeVisible({ timeout: 30_000 });
+
+  const expected = commandSummary(DEMO);
+  const view = checkupsSummaryView(expected, 'heart failure needing hospital care');
+  const counts = page.getByTestId('status-counts');
+  for (const s of view.statuses) await expect(counts.locator(`tr[data-status="${s.status}"] td`)).toHaveText(String(s.count));
+  await expect(page.getByTestId('employer-paragraph')).toHaveText(view.employerParagraph);
+  await expect(page.getByTestId('chart-text')).toHaveText(view.chartText);
+  await expect(page.getByTestId('summary-caution')).toContainText(expected.caution);
+  await expect(page.getByTestId('worklist-count')).toHaveText(`${expected.workers} of ${expected.workers} workers shown`);
+  // Filter by status: the count matches the command's count for that status.
+  await page.getByLabel('Status').selectOption('exposed');
+  await expect(page.getByTestId('worklist-count')).toHaveText(`${expected.byStatus.exposed} of ${expected.workers} workers shown`);
+  await expect(page.getByTestId('worklist').locator('tbody tr[data-status]').first()).toHaveAttribute('data-status', 'exposed');
+
+  for (const width of [1280, 390]) {
+    await page.setViewportSize({ width, height: 900 });
+    await expectAxeClean(page);
+    await page.screenshot({ path: `test-results/checkups-${width}.png`, fullPage: true });
+  }
+  const origin = new URL(baseURL ?? 'http://localhost').origin;
+  expect(requests.filter((u) => !u.startsWith('data:') && !u.startsWith('blob:') && new URL(u).origin !== origin)).toEqual([]);
+});
+
+test('a file with bad rows lists them with row and column and processes the rest', async ({ page }) => {
+  const csv = ['Worker,Checkup date,HbA1c (%),Age,Sex', 'A1,2021-03-01,5.9,50,female', 'A1,2022-03-01,6.0,51,female', 'A1,2023-03-01,banana,52,female', 'A1,2024-03-01,6.1,53,female', 'B2,2022-03-01,5.2,40,male', 'B2,not a date,5.3,41,male', 'B2,2024-03-01,5.1,42,male'].join('\n');
+  await openAndProcess(page, { name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+  const problems = page.getByTestId('problems');
+  await expect(problems.getByRole('heading')).toContainText('2 row problems');
+  await expect(problems.getByRole('listitem').filter({ hasText: 'row 4, column HbA1c (%)' })).toHaveCount(1);
+  await expect(problems.getByRole('listitem').filter({ hasText: 'row 7, column Checkup date' })).toHaveCount(1);
+  await expect(page.getByTestId('worklist-count')).toHaveText('2 of 2 workers shown');
+  await expectAxeClean(page);
+});
+
+test('a PDF renamed .csv gets one sentence and nothing else', async ({ page }) => {
+  await page.goto('/checkups');
+  await page.getByLabel(/Checkup file/).setInputFiles({ name: 'checkups.csv', mimeType: 'text/csv', buffer: Buffer.from('%PDF-1.7\n%\u00e2\u00e3\n1 0 obj\n') });
+  await expect(page.getByTestId('file-message')).toHaveText(/^This file is a PDF document, not a table of checkups: open a CSV or TSV file/);
+  await expect(page.getByTestId('columns')).toHaveCount(0);
+  await page.setViewportSize({ width: 390, height: 900 });
+  await expectAxeClean(page);
+});
