@@ -7,6 +7,7 @@
  * between them so a page stays responsive.
  */
 import Papa from 'papaparse';
+import { unguardTextCell } from '../export/spreadsheetCell';
 import { toIssues } from '../scenario/issues';
 import { StrataLayout } from './bands';
 import { cellAt, describeColumn, readNumber } from './csvCells';
@@ -357,7 +358,8 @@ class TableCsvReader {
     if (columns.extras.length > 0) {
       const extra: Record<string, string> = {};
       for (const { key, index: at } of columns.extras) {
-        const value = cellAt(cells, at);
+        // A cell the writer guarded against spreadsheet formulas ("'=x") reads back as written ("=x").
+        const value = unguardTextCell(cellAt(cells, at));
         const column = `${STRATUM_COLUMN_PREFIX}${key}`;
         const known = this.known.get(column)?.get(value);
         if (typeof known === 'string') extra[key] = known;

@@ -1,5 +1,6 @@
 /** Writing a population table as the CSV file the reader takes (docs/table-format.md). */
 import Papa from 'papaparse';
+import { guardTextCell } from '../export/spreadsheetCell';
 import { DETAIL_KEYS, STRATUM_COLUMN_PREFIX, type DetailKey } from './csvFormat';
 import type { PopulationTable, TableForm } from './schema';
 
@@ -9,7 +10,9 @@ function numberCell(n: number): string {
 
 /**
  * Write a table in the same format `parseTableCsv` (csvReader.ts) reads: details, header, one row per
- * stratum in the table's order. Reading the result back gives the same table.
+ * stratum in the table's order. Reading the result back gives the same table. Text cells that
+ * would start like a spreadsheet formula are written with a leading `'` (lib/export), which the
+ * reader takes off again; the `# key: value` detail cells start with `#`, so need no guard.
  */
 export function exportTableCsv(table: PopulationTable): string {
   const detailValue: Record<DetailKey, string | undefined> = {
@@ -31,12 +34,13 @@ export function exportTableCsv(table: PopulationTable): string {
   const keys = Object.keys(table.strata[0]?.extra ?? {}).sort();
   const header = ['sex', 'age_from', 'age_to', ...keys.map((k) => `${STRATUM_COLUMN_PREFIX}${k}`), ...(form === 'risk' ? ['risk'] : ['rate', 'person_years'])];
   const rows = table.strata.map((s) => [
-    s.sex,
+    guardTextCell(s.sex),
     numberCell(s.ageFrom),
     numberCell(s.ageTo),
-    ...keys.map((k) => s.extra?.[k] ?? ''),
+    ...keys.map((k) => guardTextCell(s.extra?.[k] ?? '')),
     ...(form === 'risk' ? [numberCell(s.risk ?? Number.NaN)] : [numberCell(s.rate ?? Number.NaN), numberCell(s.perPersonYears ?? Number.NaN)]),
   ]);
-  lines.push(Papa.unparse([header, ...rows], { newline: '\n' }));
+  // Text cells are guarded so a spreadsheet never runs one as a formula; number cells stay as written.
+  lines.push(Papa.unparse([header.map(guardTextCell), ...rows], { newline: '\n' }));
   return `${lines.join('\n')}\n`;
 }

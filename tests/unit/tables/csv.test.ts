@@ -363,6 +363,56 @@ describe('export then import', () => {
   });
 });
 
+describe('spreadsheet formulas in exported files', () => {
+  // Stratum values chosen to look like formulas (issue 14 item 2); the numbers are illustrative.
+  const formulaTable: PopulationTable = {
+    id: 'formula-cells',
+    title: '=HYPERLINK("http://example.invalid","click")',
+    outcome: 'an outcome',
+    horizonYears: 10,
+    population: 'test population',
+    source: 'test source',
+    year: 2024,
+    illustrative: true,
+    strata: [
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: '=HYPERLINK("http://example.invalid","x")' }, risk: 0.1 },
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: '+cmd|calc' }, risk: 0.2 },
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: '@SUM(A1)' }, risk: 0.3 },
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: "'-north" }, risk: 0.4 },
+    ],
+  };
+
+  it('writes no cell that a spreadsheet would read as a formula', () => {
+    const text = exportTableCsv(formulaTable);
+    const cells = text.split('\n').flatMap((line) => line.split(','));
+    const bare = cells.map((c) => c.replace(/^"/, ''));
+    expect(bare.filter((c) => /^[=+\-@\t\r]/.test(c))).toEqual([]);
+    expect(text).toContain(`"'=HYPERLINK(""http://example.invalid"",""x"")"`);
+    expect(text).toContain("''-north");
+  });
+
+  it('reads the guarded cells back to the original values', () => {
+    const r = parseTableCsv(exportTableCsv(formulaTable));
+    expect(r.ok ? r.value : r.issues).toEqual(formulaTable);
+  });
+
+  it('property: stratum values starting with =, +, -, @ or quotation marks survive export then import', () => {
+    const formulaText = fc
+      .tuple(fc.constantFrom('=', '+', '-', '@', "'", "''=", "'+", ''), textArb(10))
+      .map(([lead, rest]) => `${lead}${rest}`.trim())
+      .filter((s) => s.length > 0 && s.length <= 100);
+    fc.assert(
+      fc.property(fc.uniqueArray(formulaText, { minLength: 1, maxLength: 3 }), (values) => {
+        const t: PopulationTable = { ...formulaTable, strata: values.map((site, i) => ({ sex: 'any', ageFrom: 0, ageTo: 120, extra: { site }, risk: (i + 1) / 10 })) };
+        fc.pre(parseTable(t).ok);
+        const r = parseTableCsv(exportTableCsv(t));
+        expect(r.ok ? r.value : r.issues).toEqual(t);
+      }),
+      { numRuns: 500 },
+    );
+  });
+});
+
 describe('reading in blocks', () => {
   it('cuts only at line ends outside quotes', () => {
     const body = 'a,b\n"x\ny",1\nc,d\n';
