@@ -121,10 +121,10 @@ export function guessDelimiter(header: string): string {
   return best && best[1] > 0 ? best[0] : ',';
 }
 
-/** One line's cells. */
-export function splitLine(line: string, delimiter: string): string[] {
+/** One line's cells, and whether its quotation marks are broken (unclosed, or a stray one after a closing mark): then the cells are papaparse's guess, not the line. */
+export function splitLineChecked(line: string, delimiter: string): { cells: string[]; brokenQuotes: boolean } {
   const parsed = Papa.parse<string[]>(line, { delimiter, header: false });
-  return parsed.data[0] ?? [];
+  return { cells: parsed.data[0] ?? [], brokenQuotes: parsed.errors.some((e) => e.type === 'Quotes') };
 }
 
 /**

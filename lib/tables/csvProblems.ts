@@ -1,17 +1,14 @@
 /** Problems found in a population-table file: where they are, and how many are listed. */
+import { cutText, MAX_LISTED_PROBLEMS, moreProblems } from '../files/problems';
 import type { Issue } from '../result';
 
-/** Most problems listed for one file; beyond it one last problem says how many more there were. */
-export const MAX_REPORTED_PROBLEMS = 1000;
+/** Most problems listed for one file; beyond it one last problem says how many more there were (the same cap as every file import). */
+export const MAX_REPORTED_PROBLEMS = MAX_LISTED_PROBLEMS;
 
 /** A problem in a table file: an {@link Issue} plus where it is (row = line of the file, column = header name or detail key). */
 export interface TableFileIssue extends Issue {
   readonly line?: number;
   readonly column?: string;
-}
-
-function plural(n: number, one: string, many: string): string {
-  return `${n} ${n === 1 ? one : many}`;
 }
 
 /** Collects problems up to {@link MAX_REPORTED_PROBLEMS}, counting the rest. */
@@ -25,13 +22,7 @@ export class Problems {
   /** The listed problems by row, then one line counting those not listed. */
   result(): TableFileIssue[] {
     const sorted = [...this.list].sort((a, b) => (a.line ?? 0) - (b.line ?? 0));
-    if (this.total > this.list.length) {
-      sorted.push({
-        code: 'too-many-problems',
-        path: [],
-        message: `… and ${plural(this.total - this.list.length, 'more problem', 'more problems')} not listed; fix the ones above and check again`,
-      });
-    }
+    if (this.total > this.list.length) sorted.push(moreProblems(this.total - this.list.length));
     return sorted;
   }
 }
@@ -42,12 +33,12 @@ function where(line: number | undefined, column: string | undefined, detail: boo
   return '';
 }
 
-/** A problem whose message starts with where it is: "Row 7, column risk: …". */
+/** A problem whose message starts with where it is: "Row 7, column risk: …", cut to a readable length. */
 export function issueAt(code: string, line: number | undefined, column: string | undefined, message: string, path: (string | number)[] = [], detail = false): TableFileIssue {
   return {
     code,
     path,
-    message: `${where(line, column, detail)}${message}`,
+    message: cutText(`${where(line, column, detail)}${message}`),
     ...(line !== undefined ? { line } : {}),
     ...(column !== undefined ? { column } : {}),
   };

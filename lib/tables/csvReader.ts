@@ -8,6 +8,7 @@
  */
 import Papa from 'papaparse';
 import { unguardTextCell } from '../export/spreadsheetCell';
+import { fileKindCode, fileKindSentence, sniffText } from '../files/kind';
 import { toIssues } from '../scenario/issues';
 import { StrataLayout } from './bands';
 import { cellAt, describeColumn, readNumber } from './csvCells';
@@ -28,7 +29,7 @@ import {
   normaliseName,
   PREVIEW_ROWS,
   REQUIRED_DETAILS,
-  splitLine,
+  splitLineChecked,
   STRATUM_COLUMN_PREFIX,
   utf8Length,
   type BaseColumn,
@@ -126,6 +127,13 @@ class TableCsvReader {
       );
       return false;
     }
+    // A workbook, a PDF, a picture or a UTF-16 file read as text: one sentence, not a list of garbled rows.
+    const kind = sniffText(this.text);
+    const kindCode = fileKindCode(kind);
+    if (kindCode) {
+      this.problems.add(issueAt(kindCode, undefined, undefined, fileKindSentence(kind) ?? ''));
+      return false;
+    }
     const text = this.text.startsWith('\uFEFF') ? this.text.slice(1) : this.text;
     if (text.trim() === '') {
       this.problems.add(issueAt('empty-file', undefined, undefined, 'The file is empty; a table file needs its details, a header row and at least one stratum row (see docs/table-format.md)'));
@@ -140,7 +148,11 @@ class TableCsvReader {
       this.problems.add(issueAt('no-header', undefined, undefined, 'The file has no column header: after the "# key: value" details, a row must name the columns (e.g. sex,age_from,age_to,risk)'));
       return false;
     }
-    this.columns = this.readHeader(splitLine(headerLine.text, this.delimiter), headerLine.line);
+    const header = splitLineChecked(headerLine.text, this.delimiter);
+    if (header.brokenQuotes) {
+      this.problems.add(issueAt('csv-syntax', headerLine.line, undefined, 'The column header has a quotation mark that is not closed, or a stray one; check the quotation marks'));
+    }
+    this.columns = this.readHeader(header.cells, headerLine.line);
     this.body = text.slice(headerLine.end);
     this.bodyFirstLine = headerLine.line + 1;
     return true;
@@ -148,7 +160,12 @@ class TableCsvReader {
 
   private readDetailLine(raw: string, line: number): void {
     if (isBlankLine(raw)) return;
-    const cells = splitLine(raw, this.delimiter);
+    const { cells, brokenQuotes } = splitLineChecked(raw, this.delimiter);
+    if (brokenQuotes) {
+      // Read as papaparse guesses, the detail would be silently altered: refuse it instead.
+      this.problems.add(issueAt('csv-syntax', line, undefined, `The detail line has a quotation mark that is not closed, or a stray one after a closing mark; put the whole line in quotation marks and write each quotation mark inside it twice (""), or leave quotation marks out. Found ${JSON.stringify(raw)}`));
+      return;
+    }
     let last = cells.length - 1;
     while (last > 0 && (cells[last] ?? '').trim() === '') last--;
     const joined = cells.slice(0, last + 1).join(this.delimiter).trim();
