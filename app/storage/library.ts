@@ -99,7 +99,7 @@ function storageFailure(error: unknown): Issue[] {
   const message =
     name === 'QuotaExceededError'
       ? "The browser's storage is full; nothing was changed. Delete tables or entries you no longer need, or allow this site more storage"
-      : `The browser's storage refused the change (${name || String(error)}); nothing was changed`;
+      : "The browser's storage refused the change; nothing was changed. Try again, or reload the page";
   return [{ code: 'storage-failed', path: [], message }];
 }
 
@@ -131,7 +131,7 @@ function checkEvidenceTitle(title: string): Result<string> {
  */
 export async function openLibrary(options: OpenOptions = {}): Promise<Result<Library>> {
   if (typeof indexedDB === 'undefined') {
-    return fail([{ code: 'storage-unavailable', path: [], message: 'This browser offers no local storage for the library (IndexedDB); tables and entries cannot be saved here' }]);
+    return fail([{ code: 'storage-unavailable', path: [], message: 'This browser does not let the library keep anything (some private or locked-down modes do this); tables and entries cannot be saved here' }]);
   }
   let db: Db;
   try {
@@ -148,7 +148,7 @@ export async function openLibrary(options: OpenOptions = {}): Promise<Result<Lib
       },
     });
   } catch (error) {
-    return fail([{ code: 'storage-unavailable', path: [], message: `The library could not be opened (${error instanceof Error ? error.name : String(error)}); nothing can be saved in this browser for now` }]);
+    return fail([{ code: 'storage-unavailable', path: [], message: `The library could not be opened${error instanceof Error && error.name === 'VersionError' ? ' (a newer version of the app is open in another tab; reload this page)' : ''}; nothing can be saved in this browser for now` }]);
   }
   return ok(createLibrary(db));
 }
