@@ -158,19 +158,22 @@ export function EvidenceLibrary({ onUse, selectedId }: EvidenceLibraryProps) {
 
       {stored !== undefined && entries.length === 0 && <p>No evidence saved yet. Save the evidence from a consultation, or import a file.</p>}
       <ul className="library__items">
-        {orphans.map((o) => (
-          <li key={`gone-${o.entry.id}`}>
-            <EvidenceItem stored={o} gone editBase={o} onEditBase={(b) => setEditBase(o.entry.id, b)} onUse={undefined} selected={false} />
+        {/* One list keyed by id, so an entry open for editing keeps its form (and what was typed) when another tab deletes it. */}
+        {[...orphans.map((o) => ({ s: o, gone: true })), ...found.flatMap((e) => {
+          const s = storedById.get(e.id);
+          return s ? [{ s, gone: false }] : [];
+        })].map(({ s, gone }) => (
+          <li key={s.entry.id}>
+            <EvidenceItem
+              stored={s}
+              gone={gone}
+              editBase={gone ? s : editing.get(s.entry.id)}
+              onEditBase={(b) => setEditBase(s.entry.id, b)}
+              onUse={gone ? undefined : onUse}
+              selected={!gone && s.entry.id === selectedId}
+            />
           </li>
         ))}
-        {found.map((e) => {
-          const s = storedById.get(e.id);
-          return s ? (
-            <li key={e.id}>
-              <EvidenceItem stored={s} gone={false} editBase={editing.get(e.id)} onEditBase={(b) => setEditBase(e.id, b)} onUse={onUse} selected={e.id === selectedId} />
-            </li>
-          ) : null;
-        })}
       </ul>
     </div>
   );
