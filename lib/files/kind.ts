@@ -39,7 +39,11 @@ function looksUtf16(nulAt: (i: number) => boolean, length: number): boolean {
   if (n < 4) return false;
   let even = 0;
   let odd = 0;
-  for (let i = 0; i < n; i++) if (nulAt(i)) (i % 2 === 0 ? even++ : odd++);
+  for (let i = 0; i < n; i++) {
+    if (!nulAt(i)) continue;
+    if (i % 2 === 0) even++;
+    else odd++;
+  }
   const pairs = Math.floor(n / 2);
   return Math.max(even, odd) >= pairs * 0.75 && Math.min(even, odd) <= pairs * 0.1;
 }
