@@ -4,6 +4,10 @@
  * pure function from lib/handout and writes the result only when that succeeded, so a refused
  * change or a bad import leaves what is saved exactly as it was. Storage is passed in (a fake
  * in tests, `window.localStorage` in the page).
+ *
+ * Like the tables and evidence in the generic record store (app/storage/recordStore.ts), every
+ * change is announced to the other open tabs on the library's change channel (kind
+ * "templates"; app/storage/changes.ts); {@link onTemplatesChanged} lets a screen re-read.
  */
 import {
   deleteTemplate,
@@ -18,6 +22,14 @@ import {
   type ImportOutcome,
 } from '@/lib/handout';
 import { fail, ok, type Result } from '@/lib/result';
+import { announceLibraryChange, onLibraryChange } from '@/app/storage/changes';
+
+/** Calls `listener` whenever any tab changes the saved templates; returns the unsubscribe function. */
+export function onTemplatesChanged(listener: () => void): () => void {
+  return onLibraryChange((change) => {
+    if (change.kind === 'templates') listener();
+  });
+}
 
 export const TEMPLATE_STORAGE_KEY = 'hundredfold.handout-templates';
 
@@ -73,6 +85,7 @@ export function createTemplateStore(storage: StorageLike): TemplateStore {
     const next = apply(current.value);
     if (!next.ok) return next;
     const written = write(listOf(next.value));
+    if (written.ok) announceLibraryChange('templates', '*', 'saved');
     return written.ok ? next : written;
   }
 

@@ -8,7 +8,7 @@
  * or failed change leaves the library as it was. Nothing here throws: every operation
  * resolves to a {@link Result}.
  */
-import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
+import { openDB } from 'idb';
 import { fail, ok, type Issue, type Result } from '@/lib/result';
 import { DB_NAME, DB_VERSION, STORES, upgradeStepsBetween } from '@/lib/storage/schema';
 import {
@@ -22,37 +22,31 @@ import {
   type StoredTable,
   type TableSummary,
 } from '@/lib/storage/records';
+import { EVIDENCE_WORDS, TABLE_WORDS, type SaveMode } from '@/lib/storage/policy';
 import { parseTable } from '@/lib/tables/parse';
 import { populationTableSchema, type PopulationTable } from '@/lib/tables/schema';
 import { DEMO_TABLES } from '@/lib/tables/demo';
 import { idFromTitle, uniqueId } from '@/lib/tables/ids';
-import { exportTableCsv, parseTableCsvInChunks, type ChunkedOptions, type TableCsvResult } from '@/lib/tables/csv';
+import { parseTableCsvInChunks, type ChunkedOptions, type TableCsvResult } from '@/lib/tables/csvReader';
+import { exportTableCsv } from '@/lib/tables/csvWriter';
 import { parseEvidenceEntry } from '@/lib/evidence/parse';
 import { evidenceEntrySchema, type EvidenceEntry } from '@/lib/evidence/schema';
 import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
 import { exportEvidenceJson, parseEvidenceJson } from '@/lib/evidence/file';
 import { toIssues } from '@/lib/scenario/issues';
+import { deleteRecord, getRecord, importRecords, listRecords, saveRecord, updateRecord, type Db, type Listing, type RecordSpec } from './recordStore';
 
-interface LibrarySchema extends DBSchema {
-  tables: { key: string; value: StoredTable };
-  'table-summaries': { key: string; value: TableSummary };
-  evidence: { key: string; value: StoredEvidence };
-}
-
-type Db = IDBPDatabase<LibrarySchema>;
-
-/** Ids starting with this are kept for the bundled demo tables and entries. */
-export const RESERVED_ID_PREFIX = 'demo-';
-
-export interface Listing<T> {
-  readonly items: readonly T[];
-  /** Records that could not be read (damaged, or saved by a newer version); they are left untouched. */
-  readonly problems: readonly Issue[];
-}
+export { RESERVED_ID_PREFIX } from '@/lib/storage/policy';
+export type { Listing } from './recordStore';
 
 export interface SaveOptions {
-  /** Overwrite a saved record with the same id (an edit). Without it, a taken id is refused. */
+  /** Overwrite whatever is saved with the same id (an import with "replace"). Without it (and without `revision`), a taken id is refused. */
   readonly replace?: boolean;
+  /**
+   * An edit of the record as read at this revision: refused when another tab saved it since
+   * (`stale-revision`) or deleted it (`deleted-elsewhere`) — lib/storage/policy.ts.
+   */
+  readonly revision?: number;
   /** The time to record; defaults to now (tests pass a fixed time). */
   readonly now?: Date;
 }
@@ -105,7 +99,7 @@ function storageFailure(error: unknown): Issue[] {
   const message =
     name === 'QuotaExceededError'
       ? "The browser's storage is full; nothing was changed. Delete tables or entries you no longer need, or allow this site more storage"
-      : `The browser's storage refused the change (${name || String(error)}); nothing was changed`;
+      : "The browser's storage refused the change; nothing was changed. Try again, or reload the page";
   return [{ code: 'storage-failed', path: [], message }];
 }
 
@@ -115,14 +109,6 @@ async function guarded<T>(work: () => Promise<Result<T>>): Promise<Result<T>> {
   } catch (error) {
     return fail(storageFailure(error));
   }
-}
-
-function notFound(what: string, id: string): Issue[] {
-  return [{ code: 'not-found', path: ['id'], message: `No saved ${what} has the id "${id}"; it may have been deleted in another tab` }];
-}
-
-function reserved(id: string, what: string): Issue[] {
-  return [{ code: 'reserved-id', path: ['id'], message: `Ids starting with "${RESERVED_ID_PREFIX}" are kept for the bundled demo ${what}; choose another id (e.g. "${id.slice(RESERVED_ID_PREFIX.length) || 'my-id'}")` }];
 }
 
 function byTitle<T>(title: (t: T) => string, id: (t: T) => string) {
@@ -145,11 +131,11 @@ function checkEvidenceTitle(title: string): Result<string> {
  */
 export async function openLibrary(options: OpenOptions = {}): Promise<Result<Library>> {
   if (typeof indexedDB === 'undefined') {
-    return fail([{ code: 'storage-unavailable', path: [], message: 'This browser offers no local storage for the library (IndexedDB); tables and entries cannot be saved here' }]);
+    return fail([{ code: 'storage-unavailable', path: [], message: 'This browser does not let the library keep anything (some private or locked-down modes do this); tables and entries cannot be saved here' }]);
   }
   let db: Db;
   try {
-    db = await openDB<LibrarySchema>(options.name ?? DB_NAME, DB_VERSION, {
+    db = await openDB(options.name ?? DB_NAME, DB_VERSION, {
       upgrade(database, oldVersion, newVersion) {
         for (const step of upgradeStepsBetween(oldVersion, newVersion ?? DB_VERSION)) {
           for (const name of step.deleteStores) if (database.objectStoreNames.contains(name)) database.deleteObjectStore(name);
@@ -162,77 +148,66 @@ export async function openLibrary(options: OpenOptions = {}): Promise<Result<Lib
       },
     });
   } catch (error) {
-    return fail([{ code: 'storage-unavailable', path: [], message: `The library could not be opened (${error instanceof Error ? error.name : String(error)}); nothing can be saved in this browser for now` }]);
+    return fail([{ code: 'storage-unavailable', path: [], message: `The library could not be opened${error instanceof Error && error.name === 'VersionError' ? ' (a newer version of the app is open in another tab; reload this page)' : ''}; nothing can be saved in this browser for now` }]);
   }
   return ok(createLibrary(db));
 }
+
+function saveMode(options: SaveOptions): SaveMode {
+  if (options.revision !== undefined) return { kind: 'edit', revision: options.revision };
+  return options.replace ? { kind: 'replace' } : { kind: 'new' };
+}
+
+const TABLE_SPEC: RecordSpec<StoredTable, PopulationTable> = {
+  kind: 'tables',
+  store: STORES.tables,
+  words: TABLE_WORDS,
+  companions: [STORES.tableSummaries],
+  idOf: (t) => t.id,
+  titleOf: (t) => t.title,
+  read: (raw) => readStoredTable(raw),
+  valueOf: (s) => s.table,
+  build: (table, now, previous, revision) => toStoredTable(table, now, previous, revision),
+  writeCompanions: async (tx, stored) => {
+    await tx.objectStore(STORES.tableSummaries).put(summariseStoredTable(stored));
+  },
+};
+
+const EVIDENCE_SPEC: RecordSpec<StoredEvidence, EvidenceEntry> = {
+  kind: 'evidence',
+  store: STORES.evidence,
+  words: EVIDENCE_WORDS,
+  companions: [],
+  idOf: (e) => e.id,
+  titleOf: (e) => e.title,
+  read: (raw) => readStoredEvidence(raw),
+  valueOf: (s) => s.entry,
+  build: (entry, now, previous, revision) => toStoredEvidence(entry, now, previous, revision),
+};
 
 function createLibrary(db: Db): Library {
   const demoTableIds = new Set(DEMO_TABLES.map((t) => t.id));
   const demoEvidenceIds = new Set(DEMO_EVIDENCE.map((e) => e.id));
 
-  async function putTable(table: PopulationTable, options: SaveOptions): Promise<Result<StoredTable>> {
-    if (table.id.startsWith(RESERVED_ID_PREFIX)) return fail(reserved(table.id, 'tables'));
-    const tx = db.transaction([STORES.tables, STORES.tableSummaries], 'readwrite');
-    const tables = tx.objectStore(STORES.tables);
-    const previous = await tables.get(table.id);
-    if (previous && !options.replace) {
-      await tx.done;
-      return fail([{ code: 'id-taken', path: ['id'], message: `A saved table already has the id "${table.id}" ("${previous.table?.title ?? ''}"); replace it, or give this table another id` }]);
-    }
-    const stored = toStoredTable(table, options.now ?? new Date(), previous);
-    await tables.put(stored);
-    await tx.objectStore(STORES.tableSummaries).put(summariseStoredTable(stored));
-    await tx.done;
-    return ok(stored);
-  }
-
-  async function putEvidence(entry: EvidenceEntry, options: SaveOptions): Promise<Result<StoredEvidence>> {
-    if (entry.id.startsWith(RESERVED_ID_PREFIX)) return fail(reserved(entry.id, 'entries'));
-    const tx = db.transaction(STORES.evidence, 'readwrite');
-    const previous = await tx.store.get(entry.id);
-    if (previous && !options.replace) {
-      await tx.done;
-      return fail([{ code: 'id-taken', path: ['id'], message: `A saved entry already has the id "${entry.id}" ("${previous.entry?.title ?? ''}"); replace it, or give this entry another id` }]);
-    }
-    const stored = toStoredEvidence(entry, options.now ?? new Date(), previous);
-    await tx.store.put(stored);
-    await tx.done;
-    return ok(stored);
-  }
-
   async function takenTableIds(): Promise<Set<string>> {
     const keys = await db.getAllKeys(STORES.tables);
-    return new Set([...keys, ...demoTableIds]);
+    return new Set([...keys.map(String), ...demoTableIds]);
   }
 
   const library: Library = {
     listTables: () =>
       guarded(async () => {
-        const raws: unknown[] = await db.getAll(STORES.tableSummaries);
-        const items: TableSummary[] = [];
-        const problems: Issue[] = [];
-        raws.forEach((raw, i) => {
-          const read = readTableSummary(raw);
-          if (read.ok) items.push(read.value);
-          else problems.push(...read.issues.map((issue) => ({ ...issue, path: [STORES.tableSummaries, i, ...issue.path] })));
-        });
-        items.sort(byTitle((t) => t.title, (t) => t.id));
-        return ok({ items, problems });
+        const { items, problems } = await listRecords(db, STORES.tableSummaries, readTableSummary);
+        return ok({ items: [...items].sort(byTitle((t) => t.title, (t) => t.id)), problems });
       }),
 
-    getTable: (id) =>
-      guarded(async () => {
-        const raw: unknown = await db.get(STORES.tables, id);
-        if (raw === undefined) return fail(notFound('table', id));
-        return readStoredTable(raw);
-      }),
+    getTable: (id) => guarded(() => getRecord(db, TABLE_SPEC, id)),
 
     saveTable: (input, options = {}) =>
       guarded(async () => {
         const parsed = parseTable(input);
         if (!parsed.ok) return parsed;
-        return putTable(parsed.value, options);
+        return saveRecord(db, TABLE_SPEC, parsed.value, saveMode(options), options.now ?? new Date());
       }),
 
     saveImportedTable: (table, hadIdLine, options = {}) =>
@@ -243,7 +218,7 @@ function createLibrary(db: Db): Library {
           if (!free.ok) return free;
           toSave = { ...table, id: free.value };
         }
-        return putTable(toSave, options);
+        return saveRecord(db, TABLE_SPEC, toSave, saveMode(options), options.now ?? new Date());
       }),
 
     importTableCsv: async (text, options = {}) => {
@@ -259,37 +234,10 @@ function createLibrary(db: Db): Library {
       guarded(async () => {
         const checked = checkTitle(title);
         if (!checked.ok) return checked;
-        const tx = db.transaction([STORES.tables, STORES.tableSummaries], 'readwrite');
-        const raw: unknown = await tx.objectStore(STORES.tables).get(id);
-        if (raw === undefined) {
-          await tx.done;
-          return fail(notFound('table', id));
-        }
-        const read = readStoredTable(raw);
-        if (!read.ok) {
-          await tx.done;
-          return read;
-        }
-        const stored = toStoredTable({ ...read.value.table, title: checked.value }, options.now ?? new Date(), read.value);
-        await tx.objectStore(STORES.tables).put(stored);
-        await tx.objectStore(STORES.tableSummaries).put(summariseStoredTable(stored));
-        await tx.done;
-        return ok(stored);
+        return updateRecord(db, TABLE_SPEC, id, (t) => ({ ...t, title: checked.value }), options.now ?? new Date());
       }),
 
-    deleteTable: (id) =>
-      guarded(async () => {
-        const tx = db.transaction([STORES.tables, STORES.tableSummaries], 'readwrite');
-        const exists = (await tx.objectStore(STORES.tables).getKey(id)) !== undefined || (await tx.objectStore(STORES.tableSummaries).getKey(id)) !== undefined;
-        if (!exists) {
-          await tx.done;
-          return fail(notFound('table', id));
-        }
-        await tx.objectStore(STORES.tables).delete(id);
-        await tx.objectStore(STORES.tableSummaries).delete(id);
-        await tx.done;
-        return ok(undefined);
-      }),
+    deleteTable: (id) => guarded(() => deleteRecord(db, TABLE_SPEC, id, new Date())),
 
     exportTable: async (id) => {
       const got = await library.getTable(id);
@@ -300,98 +248,33 @@ function createLibrary(db: Db): Library {
 
     listEvidence: () =>
       guarded(async () => {
-        const raws: unknown[] = await db.getAll(STORES.evidence);
-        const items: StoredEvidence[] = [];
-        const problems: Issue[] = [];
-        raws.forEach((raw, i) => {
-          const read = readStoredEvidence(raw);
-          if (read.ok) items.push(read.value);
-          else problems.push(...read.issues.map((issue) => ({ ...issue, path: [STORES.evidence, i, ...issue.path] })));
-        });
-        items.sort(byTitle((e) => e.entry.title, (e) => e.entry.id));
-        return ok({ items, problems });
+        const { items, problems } = await listRecords(db, STORES.evidence, (raw) => readStoredEvidence(raw));
+        return ok({ items: [...items].sort(byTitle((e) => e.entry.title, (e) => e.entry.id)), problems });
       }),
 
-    getEvidence: (id) =>
-      guarded(async () => {
-        const raw: unknown = await db.get(STORES.evidence, id);
-        if (raw === undefined) return fail(notFound('entry', id));
-        return readStoredEvidence(raw);
-      }),
+    getEvidence: (id) => guarded(() => getRecord(db, EVIDENCE_SPEC, id)),
 
     saveEvidence: (input, options = {}) =>
       guarded(async () => {
         const parsed = parseEvidenceEntry(input);
         if (!parsed.ok) return parsed;
-        return putEvidence(parsed.value, options);
+        return saveRecord(db, EVIDENCE_SPEC, parsed.value, saveMode(options), options.now ?? new Date());
       }),
 
     renameEvidence: (id, title, options = {}) =>
       guarded(async () => {
         const checked = checkEvidenceTitle(title);
         if (!checked.ok) return checked;
-        const tx = db.transaction(STORES.evidence, 'readwrite');
-        const raw: unknown = await tx.store.get(id);
-        if (raw === undefined) {
-          await tx.done;
-          return fail(notFound('entry', id));
-        }
-        const read = readStoredEvidence(raw);
-        if (!read.ok) {
-          await tx.done;
-          return read;
-        }
-        const stored = toStoredEvidence({ ...read.value.entry, title: checked.value }, options.now ?? new Date(), read.value);
-        await tx.store.put(stored);
-        await tx.done;
-        return ok(stored);
+        return updateRecord(db, EVIDENCE_SPEC, id, (e) => ({ ...e, title: checked.value }), options.now ?? new Date());
       }),
 
-    deleteEvidence: (id) =>
-      guarded(async () => {
-        const tx = db.transaction(STORES.evidence, 'readwrite');
-        if ((await tx.store.getKey(id)) === undefined) {
-          await tx.done;
-          return fail(notFound('entry', id));
-        }
-        await tx.store.delete(id);
-        await tx.done;
-        return ok(undefined);
-      }),
+    deleteEvidence: (id) => guarded(() => deleteRecord(db, EVIDENCE_SPEC, id, new Date())),
 
     importEvidenceJson: (text, options = {}) =>
       guarded(async () => {
         const parsed = parseEvidenceJson(text);
         if (!parsed.ok) return parsed;
-        const entries = parsed.value;
-        const reservedIssues = entries.flatMap((e, i) =>
-          e.id.startsWith(RESERVED_ID_PREFIX) && !demoEvidenceIds.has(e.id) ? reserved(e.id, 'entries').map((issue) => ({ ...issue, path: ['entries', i, 'id'] })) : [],
-        );
-        // Bundled demo entries in an exported file are skipped, not stored: they ship with the app.
-        const own = entries.filter((e) => !demoEvidenceIds.has(e.id));
-        if (reservedIssues.length > 0) return fail(reservedIssues);
-        const tx = db.transaction(STORES.evidence, 'readwrite');
-        const previous = await Promise.all(own.map((e) => tx.store.get(e.id)));
-        const taken = own.filter((_, i) => previous[i] !== undefined);
-        if (taken.length > 0 && !options.replace) {
-          await tx.done;
-          const list = taken.map((e) => `"${e.id}"`).join(', ');
-          return fail([
-            {
-              code: 'id-taken',
-              path: ['entries'],
-              message: `${taken.length === 1 ? 'An entry in the file has an id' : `${taken.length} entries in the file have ids`} already in the library (${list}); nothing was imported. Import again choosing "replace" to overwrite them`,
-            },
-          ]);
-        }
-        const now = options.now ?? new Date();
-        await Promise.all(own.map((e, i) => tx.store.put(toStoredEvidence(e, now, previous[i]))));
-        await tx.done;
-        return ok({
-          added: own.filter((_, i) => previous[i] === undefined).map((e) => e.id),
-          replaced: taken.map((e) => e.id),
-          skipped: entries.filter((e) => demoEvidenceIds.has(e.id)).map((e) => e.id),
-        });
+        return importRecords(db, EVIDENCE_SPEC, parsed.value, { replace: options.replace === true, demoIds: demoEvidenceIds, now: options.now ?? new Date() });
       }),
 
     exportEvidence: (ids) =>
@@ -402,7 +285,7 @@ function createLibrary(db: Db): Library {
         const entries = listing.value.items.map((s) => s.entry).filter((e) => !wanted || wanted.has(e.id));
         if (wanted) {
           const missing = [...wanted].filter((id) => !entries.some((e) => e.id === id));
-          if (missing.length > 0) return fail(missing.flatMap((id) => notFound('entry', id)));
+          if (missing.length > 0) return fail(missing.map((id) => ({ code: 'not-found', path: ['id'], message: `No saved entry has the id "${id}"; it may have been deleted in another tab` })));
         }
         return ok(exportEvidenceJson(entries));
       }),
@@ -410,7 +293,7 @@ function createLibrary(db: Db): Library {
     freeEvidenceId: (title) =>
       guarded(async () => {
         const keys = await db.getAllKeys(STORES.evidence);
-        return ok(uniqueId(idFromTitle(title, 'entry').replace(/^demo-/, ''), new Set([...keys, ...demoEvidenceIds])));
+        return ok(uniqueId(idFromTitle(title, 'entry').replace(/^demo-/, ''), new Set([...keys.map(String), ...demoEvidenceIds])));
       }),
 
     close: () => db.close(),

@@ -9,14 +9,21 @@ import { toIssues } from '../scenario/issues';
 import { populationTableSchema, tableForm, type PopulationTable, type TableForm } from '../tables/schema';
 import { evidenceEntrySchema, type EvidenceEntry } from '../evidence/schema';
 
-/** The record format this program writes. */
-export const RECORD_VERSION = 1;
+/**
+ * The record format this program writes. Format 2 added `revision` (see ./policy.ts); a
+ * format 1 record reads as revision 1.
+ */
+export const RECORD_VERSION = 2;
+
+/** A record's revision: 1 when first saved, one more on every save (./policy.ts). */
+const revisionSchema = z.number().int().positive();
 
 const isoTime = z.iso.datetime({ error: 'A saved time must be an ISO 8601 date and time (UTC)' });
 
 export const storedTableSchema = z.strictObject({
   recordVersion: z.literal(RECORD_VERSION),
   table: populationTableSchema,
+  revision: revisionSchema,
   savedAt: isoTime,
   updatedAt: isoTime,
 });
@@ -39,6 +46,7 @@ export const tableSummarySchema = z.strictObject({
   ageFrom: z.number(),
   ageTo: z.number(),
   extraStrata: z.array(z.string()),
+  revision: revisionSchema,
   savedAt: isoTime,
   updatedAt: isoTime,
 });
@@ -47,6 +55,7 @@ export type TableSummary = z.infer<typeof tableSummarySchema>;
 export const storedEvidenceSchema = z.strictObject({
   recordVersion: z.literal(RECORD_VERSION),
   entry: evidenceEntrySchema,
+  revision: revisionSchema,
   savedAt: isoTime,
   updatedAt: isoTime,
 });
@@ -55,12 +64,32 @@ export type StoredEvidence = z.infer<typeof storedEvidenceSchema>;
 /** Upgrades a record from `from` to `from + 1`. */
 export type RecordMigration = (record: Record<string, unknown>) => Record<string, unknown>;
 
+/** Format 1 → 2: records gained a revision; what was saved before is revision 1. */
+const addRevision: RecordMigration = (record) => ({ ...record, revision: 1 });
+
 /**
- * Record migrations by the version they start from. Empty while only version 1 exists; the
- * next format adds `1: (v1) => v2` here and bumps {@link RECORD_VERSION}.
+ * Record migrations by the version they start from. The next format adds `2: (v2) => v3`
+ * here and bumps {@link RECORD_VERSION}.
  */
-export const TABLE_MIGRATIONS: Readonly<Record<number, RecordMigration>> = {};
-export const EVIDENCE_MIGRATIONS: Readonly<Record<number, RecordMigration>> = {};
+export const TABLE_MIGRATIONS: Readonly<Record<number, RecordMigration>> = { 1: addRevision };
+export const EVIDENCE_MIGRATIONS: Readonly<Record<number, RecordMigration>> = { 1: addRevision };
+export const SUMMARY_MIGRATIONS: Readonly<Record<number, RecordMigration>> = { 1: addRevision };
+
+/** What is left of a deleted record (./policy.ts): its store, id and last revision. */
+export const tombstoneSchema = z.strictObject({
+  /** `<store>/<id>`, the key. */
+  key: z.string(),
+  store: z.string(),
+  id: z.string(),
+  revision: revisionSchema,
+  deletedAt: isoTime,
+});
+export type StoredTombstone = z.infer<typeof tombstoneSchema>;
+
+/** The key of a record's tombstone. */
+export function tombstoneKey(store: string, id: string): string {
+  return `${store}/${id}`;
+}
 
 /**
  * Brings a raw record up to `current` through `migrations`; refuses one that has no version,
@@ -106,9 +135,9 @@ export function readStoredTable(raw: unknown, migrations = TABLE_MIGRATIONS): Re
   return readRecord(raw, migrations, storedTableSchema, 'table');
 }
 
-/** Read a table summary (summaries are rebuilt from the table, so they are only checked). */
+/** Read a table summary (summaries are rebuilt from the table, so they are only checked and given a revision). */
 export function readTableSummary(raw: unknown): Result<TableSummary> {
-  return readRecord(raw, {}, tableSummarySchema, 'table summary');
+  return readRecord(raw, SUMMARY_MIGRATIONS, tableSummarySchema, 'table summary');
 }
 
 /** Read a stored evidence entry, migrating it when older. */
@@ -116,15 +145,18 @@ export function readStoredEvidence(raw: unknown, migrations = EVIDENCE_MIGRATION
   return readRecord(raw, migrations, storedEvidenceSchema, 'evidence entry');
 }
 
-/** A new or updated table record; `savedAt` stays from the previous record when there is one. */
-export function toStoredTable(table: PopulationTable, now: Date, previous?: Pick<StoredTable, 'savedAt'>): StoredTable {
+/**
+ * A new or updated table record; `savedAt` stays from the previous record when there is one.
+ * The revision is the one ./policy.ts decided, or one above the previous record's.
+ */
+export function toStoredTable(table: PopulationTable, now: Date, previous?: Pick<StoredTable, 'savedAt'> & Partial<Pick<StoredTable, 'revision'>>, revision?: number): StoredTable {
   const time = now.toISOString();
-  return { recordVersion: RECORD_VERSION, table, savedAt: previous?.savedAt ?? time, updatedAt: time };
+  return { recordVersion: RECORD_VERSION, table, revision: revision ?? (previous?.revision ?? 0) + 1, savedAt: previous?.savedAt ?? time, updatedAt: time };
 }
 
-export function toStoredEvidence(entry: EvidenceEntry, now: Date, previous?: Pick<StoredEvidence, 'savedAt'>): StoredEvidence {
+export function toStoredEvidence(entry: EvidenceEntry, now: Date, previous?: Pick<StoredEvidence, 'savedAt'> & Partial<Pick<StoredEvidence, 'revision'>>, revision?: number): StoredEvidence {
   const time = now.toISOString();
-  return { recordVersion: RECORD_VERSION, entry, savedAt: previous?.savedAt ?? time, updatedAt: time };
+  return { recordVersion: RECORD_VERSION, entry, revision: revision ?? (previous?.revision ?? 0) + 1, savedAt: previous?.savedAt ?? time, updatedAt: time };
 }
 
 /** The list summary of a stored table. */
@@ -155,6 +187,7 @@ export function summariseStoredTable(stored: StoredTable): TableSummary {
     ageFrom,
     ageTo,
     extraStrata: Object.keys(table.strata[0]?.extra ?? {}).sort(),
+    revision: stored.revision,
     savedAt: stored.savedAt,
     updatedAt: stored.updatedAt,
   };

@@ -17,6 +17,8 @@ export const STORES = {
   tableSummaries: 'table-summaries',
   /** Evidence entries ({@link StoredEvidence}), by entry id. */
   evidence: 'evidence',
+  /** What is left of deleted records ({@link StoredTombstone}), by `<store>/<id>`, so a stale save cannot bring one back. */
+  tombstones: 'tombstones',
 } as const;
 export type StoreName = (typeof STORES)[keyof typeof STORES];
 
@@ -41,6 +43,12 @@ export const UPGRADE_STEPS: readonly UpgradeStep[] = [
       { name: STORES.tableSummaries, keyPath: 'id' },
       { name: STORES.evidence, keyPath: 'entry.id' },
     ],
+    deleteStores: [],
+  },
+  {
+    // Revisions and tombstones (./policy.ts); records are brought to format 2 when read.
+    version: 2,
+    createStores: [{ name: STORES.tombstones, keyPath: 'key' }],
     deleteStores: [],
   },
 ];

@@ -144,9 +144,13 @@ test('a CSV table imported and saved is used for the baseline, and after a reloa
   await expect(savedTables(library)).toHaveCount(1);
   const item = library.getByRole('article', { name: TABLE_TITLE });
   await expect(item).toContainText('4 strata: female and male, ages 40 and over; risks over 10 years');
+  // Saving alone does not switch the open consultation to the new table (issue 12 item 14): the clinician asks.
+  await expect(item).not.toContainText('(in use)');
+  await expect(field(page, 'tableId')).not.toHaveValue(table.id);
+  await library.getByRole('button', { name: 'Use it for this consultation' }).click();
   await expect(item).toContainText('(in use)');
 
-  // Saving picks the table for this consultation; it needs the age and sex.
+  // Asked, the table is picked for this consultation; it needs the age and sex.
   await expect(field(page, 'tableId')).toHaveValue(table.id);
   await field(page, 'person.age').fill('64');
   await field(page, 'person.sex').selectOption('female');

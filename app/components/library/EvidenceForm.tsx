@@ -14,6 +14,7 @@ import type { Issue } from '@/lib/result';
 import { parseEvidenceEntry } from '@/lib/evidence/parse';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { EFFECT_MEASURES, INTERVAL_LEVELS, STUDY_DESIGNS } from '@/lib/scenario/schema';
+import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/app/consultation/choices';
 import { ProblemList } from './ProblemList';
 import { ExposureFields, withExposure } from '../exposure/ExposureFields';
 
@@ -91,6 +92,13 @@ const LABELS: Record<string, string> = {
   notes: 'Notes',
 };
 
+/** An option in the form's words (the consultation form's choice lists), never its stored code. */
+function optionWords(key: string, value: string): string {
+  const list = key === 'measure' ? MEASURE_CHOICES : key === 'level' ? LEVEL_CHOICES_FOR_FORM : key === 'design' ? DESIGN_CHOICES : undefined;
+  if (key === 'adjusted') return ADJUSTED_CHOICES_FOR_FORM.find((c) => c.value === (value === 'true' ? 'yes' : 'no'))?.label ?? value;
+  return list?.find((c) => c.value === value)?.label ?? value;
+}
+
 export function EvidenceForm({ entry, onSave, onCancel }: EvidenceFormProps) {
   const id = useId();
   const [draft, setDraft] = useState<Draft>(() => toDraft(entry));
@@ -159,7 +167,7 @@ export function EvidenceForm({ entry, onSave, onCancel }: EvidenceFormProps) {
           {allowEmpty && <option value="">(not stated)</option>}
           {options.map((o) => (
             <option key={String(o)} value={String(o)}>
-              {key === 'adjusted' ? (o === 'true' ? 'yes' : 'no') : String(o)}
+              {optionWords(key, String(o))}
             </option>
           ))}
         </select>

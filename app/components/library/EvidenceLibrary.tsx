@@ -5,6 +5,10 @@
  * any problem (naming the entry and field) or an id already saved refuses the whole file
  * unless "replace" is chosen, and nothing changes.
  *
+ * Edits carry the revision they started from: when another tab saved the entry since, the
+ * save is refused with a message and the saved version shown; when another tab deleted it,
+ * the form stays open (marked) and a save is refused, so the entry never comes back.
+ *
  * Props:
  * - onUse(entry): when given, each entry gets a "Use this evidence" button;
  * - selectedId: the entry in use, marked as such.
@@ -14,6 +18,9 @@
 import { useId, useMemo, useState, type ChangeEvent } from 'react';
 import type { Issue } from '@/lib/result';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
+import type { StoredEvidence } from '@/lib/storage/records';
+import { fileKindCode, fileKindSentence, sniffBytes, SNIFF_BYTES } from '@/lib/files/kind';
+import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES } from '@/app/consultation/choices';
 import { searchEvidence } from '@/lib/evidence/search';
 import { MAX_EVIDENCE_FILE_CHARS } from '@/lib/evidence/file';
 import type { Library } from '@/app/storage/library';
@@ -42,10 +49,23 @@ export function EvidenceLibrary({ onUse, selectedId }: EvidenceLibraryProps) {
   const [importNote, setImportNote] = useState('');
   const [pendingFile, setPendingFile] = useState<{ name: string; text: string } | undefined>(undefined);
   const [exportIssues, setExportIssues] = useState<readonly Issue[]>([]);
-
+  /** Entries open for editing, as they were when editing began (kept even if another tab deletes them). */
+  const [editing, setEditing] = useState<ReadonlyMap<string, StoredEvidence>>(new Map());
 
   const entries = useMemo(() => (stored ?? []).map((s) => s.entry), [stored]);
   const found = useMemo(() => searchEvidence(entries, query), [entries, query]);
+  const storedById = useMemo(() => new Map((stored ?? []).map((s) => [s.entry.id, s] as const)), [stored]);
+  /** Open edits whose entry is no longer saved: deleted in another tab. */
+  const orphans = useMemo(() => (stored === undefined ? [] : [...editing.values()].filter((e) => !storedById.has(e.entry.id))), [editing, storedById, stored]);
+
+  function setEditBase(id: string, base: StoredEvidence | undefined) {
+    setEditing((current) => {
+      const next = new Map(current);
+      if (base) next.set(id, base);
+      else next.delete(id);
+      return next;
+    });
+  }
 
   async function runImport(file: { name: string; text: string }, replace: boolean) {
     if (!library) return;
@@ -71,6 +91,13 @@ export function EvidenceLibrary({ onUse, selectedId }: EvidenceLibraryProps) {
     if (!file) return;
     if (file.size > MAX_EVIDENCE_FILE_CHARS * 4) {
       setImportIssues([{ code: 'file-too-large', path: [], message: `The file is larger than the ${MAX_EVIDENCE_FILE_CHARS / 1024 / 1024} MB accepted for an evidence file` }]);
+      return;
+    }
+    const kind = sniffBytes(new Uint8Array(await file.slice(0, SNIFF_BYTES).arrayBuffer()));
+    const kindCode = fileKindCode(kind);
+    if (kindCode) {
+      setImportIssues([{ code: kindCode, path: [], message: fileKindSentence(kind, 'an evidence file (.json)') ?? '' }]);
+      setImportNote('');
       return;
     }
     await runImport({ name: file.name, text: await file.text() }, false);
@@ -131,9 +158,20 @@ export function EvidenceLibrary({ onUse, selectedId }: EvidenceLibraryProps) {
 
       {stored !== undefined && entries.length === 0 && <p>No evidence saved yet. Save the evidence from a consultation, or import a file.</p>}
       <ul className="library__items">
-        {found.map((e) => (
-          <li key={e.id}>
-            <EvidenceItem entry={e} onUse={onUse} selected={e.id === selectedId} />
+        {/* One list keyed by id, so an entry open for editing keeps its form (and what was typed) when another tab deletes it. */}
+        {[...orphans.map((o) => ({ s: o, gone: true })), ...found.flatMap((e) => {
+          const s = storedById.get(e.id);
+          return s ? [{ s, gone: false }] : [];
+        })].map(({ s, gone }) => (
+          <li key={s.entry.id}>
+            <EvidenceItem
+              stored={s}
+              gone={gone}
+              editBase={gone ? s : editing.get(s.entry.id)}
+              onEditBase={(b) => setEditBase(s.entry.id, b)}
+              onUse={gone ? undefined : onUse}
+              selected={!gone && s.entry.id === selectedId}
+            />
           </li>
         ))}
       </ul>
@@ -147,10 +185,33 @@ export function describeEffect(e: EvidenceEntry): string {
   return `${e.effect.measure} ${e.effect.estimate} (${level} ${e.effect.lower} to ${e.effect.upper})`;
 }
 
-function EvidenceItem({ entry, onUse, selected }: { readonly entry: EvidenceEntry; readonly onUse: ((e: EvidenceEntry) => void) | undefined; readonly selected: boolean }) {
+/** The study design in the form's words ("Case-control with risk-set sampling …"), never its code. */
+export function designWords(design: string): string {
+  const label = DESIGN_CHOICES.find((c) => c.value === design)?.label ?? design;
+  return label.charAt(0).toLowerCase() + label.slice(1);
+}
+
+/** "adjusted" / "unadjusted", in the form's words. */
+function adjustedWords(adjusted: boolean): string {
+  return (ADJUSTED_CHOICES_FOR_FORM.find((c) => c.value === (adjusted ? 'yes' : 'no'))?.label ?? '').toLowerCase();
+}
+
+interface EvidenceItemProps {
+  readonly stored: StoredEvidence;
+  /** Deleted in another tab while open for editing. */
+  readonly gone: boolean;
+  /** The entry as it was when editing began; undefined when not editing. */
+  readonly editBase: StoredEvidence | undefined;
+  readonly onEditBase: (base: StoredEvidence | undefined) => void;
+  readonly onUse: ((e: EvidenceEntry) => void) | undefined;
+  readonly selected: boolean;
+}
+
+function EvidenceItem({ stored, gone, editBase, onEditBase, onUse, selected }: EvidenceItemProps) {
   const id = useId();
+  const entry = stored.entry;
   const { library, changed } = useLibrary();
-  const [mode, setMode] = useState<'none' | 'edit' | 'confirm-delete'>('none');
+  const [confirming, setConfirming] = useState(false);
   const [issues, setIssues] = useState<readonly Issue[]>([]);
   const w = entry.wording;
 
@@ -167,11 +228,16 @@ function EvidenceItem({ entry, onUse, selected }: { readonly entry: EvidenceEntr
         {entry.title}
         {selected && <span className="library__badge"> (in use)</span>}
       </h4>
+      {gone && (
+        <p className="library__problem" role="alert">
+          This entry was deleted in another tab or window. Your changes below cannot be saved to it; save them as a new entry from the consultation screen if you need them.
+        </p>
+      )}
       <p className="library__meta">
         {describeEffect(entry)}
-        {entry.effect.design ? `, ${entry.effect.design}` : ''}
+        {entry.effect.design ? `, ${designWords(entry.effect.design)}` : ''}
         {entry.effect.followUpYears !== undefined ? `, ${entry.effect.followUpYears} years of follow-up` : ''}
-        {entry.effect.adjusted === true ? ', adjusted' : entry.effect.adjusted === false ? ', not adjusted' : ''}.
+        {entry.effect.adjusted === undefined ? '' : `, ${adjustedWords(entry.effect.adjusted)}`}.
       </p>
       {(w.outcome || w.exposure) && (
         <p className="library__meta">
@@ -187,21 +253,29 @@ function EvidenceItem({ entry, onUse, selected }: { readonly entry: EvidenceEntr
         </p>
       )}
 
-      {mode === 'edit' ? (
+      {editBase ? (
         <EvidenceForm
-          entry={entry}
-          onCancel={() => setMode('none')}
+          entry={editBase.entry}
+          onCancel={() => onEditBase(undefined)}
           onSave={async (edited) => {
             if (!library) return [];
-            const r = await library.saveEvidence(edited, { replace: true });
-            if (!r.ok) return r.issues;
-            setMode('none');
+            const r = await library.saveEvidence(edited, { revision: editBase.revision });
+            if (!r.ok) {
+              // Changed elsewhere: the list now shows the saved version; a second save replaces it, knowingly.
+              if (r.issues.some((i) => i.code === 'stale-revision')) {
+                const fresh = await library.getEvidence(entry.id);
+                if (fresh.ok) onEditBase(fresh.value);
+              }
+              changed();
+              return r.issues;
+            }
+            onEditBase(undefined);
             changed();
             return [];
           }}
         />
-      ) : mode === 'confirm-delete' ? (
-        <ConfirmDelete title={entry.title} onDelete={() => void remove()} onKeep={() => setMode('none')} />
+      ) : confirming ? (
+        <ConfirmDelete title={entry.title} onDelete={() => void remove()} onKeep={() => setConfirming(false)} />
       ) : (
         <div className="library__buttons">
           {onUse && (
@@ -209,10 +283,10 @@ function EvidenceItem({ entry, onUse, selected }: { readonly entry: EvidenceEntr
               Use this evidence
             </button>
           )}
-          <button type="button" className="button button--secondary" onClick={() => setMode('edit')}>
+          <button type="button" className="button button--secondary" onClick={() => onEditBase(stored)}>
             Edit
           </button>
-          <button type="button" className="button button--secondary" onClick={() => setMode('confirm-delete')}>
+          <button type="button" className="button button--secondary" onClick={() => setConfirming(true)}>
             Delete…
           </button>
         </div>

@@ -8,11 +8,13 @@
  *
  * `useLibrary()` gives `{ status, library, issues, revision, changed }`: `status` is "opening",
  * "ready" or "unavailable" (with `issues` saying why); `revision` grows after every change made
- * through `changed()`, so lists re-read.
+ * through `changed()`, and after every change another tab announces (app/storage/changes.ts),
+ * so every open tab's lists re-read.
  */
 import { createContext, useCallback, useContext, useEffect, useMemo, useState, type ReactNode } from 'react';
 import type { Issue } from '@/lib/result';
 import { openLibrary, type Library } from '@/app/storage/library';
+import { onLibraryChange } from '@/app/storage/changes';
 
 export interface LibraryState {
   readonly status: 'opening' | 'ready' | 'unavailable';
@@ -52,6 +54,8 @@ export function LibraryProvider({ name, children }: LibraryProviderProps) {
   }, [name]);
 
   const changed = useCallback(() => setRevision((n) => n + 1), []);
+  // Another tab (or another panel of this one) changed the library: read the lists again.
+  useEffect(() => onLibraryChange(() => setRevision((n) => n + 1)), []);
   const value = useMemo<LibraryState>(
     () => ({
       status: !opened.done ? 'opening' : opened.library ? 'ready' : 'unavailable',

@@ -36,12 +36,13 @@ function LibraryPanels({ onUseTable, onUseEvidence, selectedTableId, selectedEvi
   return (
     <div className="library">
       <p className="library__note">
-        Kept in this browser only (IndexedDB): nothing is sent anywhere. Export a copy to move it to another computer or keep it safe.
+        Kept in this browser only: nothing is sent anywhere. Export a copy to move it to another computer or keep it safe.
       </p>
       <LibraryStatus />
       <section aria-labelledby="library-tables">
         <H id="library-tables">Population tables</H>
-        <TableImport onSaved={onUseTable ? (t) => onUseTable(t.table.id) : undefined} headingLevel={headingLevel === 2 ? 3 : 4} />
+        {/* Saving a table never switches the consultation to it; the clinician asks for that. */}
+        <TableImport onUse={onUseTable ? (t) => onUseTable(t.table.id) : undefined} headingLevel={headingLevel === 2 ? 3 : 4} />
         <TableList onUse={onUseTable} selectedId={selectedTableId} />
       </section>
       <section aria-labelledby="library-evidence">

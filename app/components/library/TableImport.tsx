@@ -5,14 +5,18 @@
  * clinician confirms a file without problems. A file with any problem saves nothing.
  *
  * Props:
- * - onSaved(table): called after the table is saved (e.g. to select it on the consultation screen);
+ * - onSaved(table): called after the table is saved;
+ * - onUse(table): when given, the saved note offers "Use it for this consultation"; saving
+ *   alone never switches the open consultation to the new table;
  * - headingLevel: 3 (default) or 4, one below the heading it sits under.
  *
  * Needs a {@link LibraryProvider} above it.
  */
 import { useId, useRef, useState, type ChangeEvent } from 'react';
 import type { Issue } from '@/lib/result';
-import { MAX_TABLE_FILE_BYTES, parseTableCsvInChunks, type TableCsvResult } from '@/lib/tables/csv';
+import { MAX_TABLE_FILE_BYTES } from '@/lib/tables/csvFormat';
+import { fileKindCode, fileKindSentence, sniffBytes, SNIFF_BYTES } from '@/lib/files/kind';
+import { parseTableCsvInChunks, type TableCsvResult } from '@/lib/tables/csvReader';
 import { LIBRARY_IMPORT_CHUNK_CHARS } from '@/lib/tables/chunking';
 import type { StoredTable } from '@/lib/storage/records';
 import { useLibrary } from './LibraryContext';
@@ -21,6 +25,7 @@ import './library.css';
 
 export interface TableImportProps {
   readonly onSaved?: ((table: StoredTable) => void) | undefined;
+  readonly onUse?: ((table: StoredTable) => void) | undefined;
   readonly headingLevel?: 3 | 4;
 }
 
@@ -33,7 +38,7 @@ type Phase =
 /** Lets the page paint and answer input between blocks. */
 const yieldToPage = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
-export function TableImport({ onSaved, headingLevel = 3 }: TableImportProps) {
+export function TableImport({ onSaved, onUse, headingLevel = 3 }: TableImportProps) {
   const H = headingLevel === 3 ? 'h3' : 'h4';
   const id = useId();
   const { library, changed, status } = useLibrary();
@@ -60,6 +65,13 @@ export function TableImport({ onSaved, headingLevel = 3 }: TableImportProps) {
           issues: [{ code: 'file-too-large', path: [], message: `The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the largest accepted is ${MAX_TABLE_FILE_BYTES / 1024 / 1024} MB. Split the table into smaller tables` }],
         },
       });
+      return;
+    }
+    // A workbook, PDF, picture or UTF-16 file: one sentence from its first bytes, nothing read further.
+    const kind = sniffBytes(new Uint8Array(await file.slice(0, SNIFF_BYTES).arrayBuffer()));
+    const kindCode = fileKindCode(kind);
+    if (kindCode) {
+      setPhase({ kind: 'checked', fileName: file.name, result: { ok: false, preview: undefined, issues: [{ code: kindCode, path: [], message: fileKindSentence(kind) ?? '' }] } });
       return;
     }
     abort.current?.abort();
@@ -140,9 +152,16 @@ export function TableImport({ onSaved, headingLevel = 3 }: TableImportProps) {
           </div>
         )}
         {phase.kind === 'saved' && (
-          <p className="library__ok">
-            Saved “{phase.table.table.title}” ({phase.table.table.strata.length.toLocaleString('en-GB')} strata) as {phase.table.table.id}.
-          </p>
+          <div className="library__ok">
+            <p>
+              Saved “{phase.table.table.title}” ({phase.table.table.strata.length.toLocaleString('en-GB')} strata) as {phase.table.table.id}.
+            </p>
+            {onUse && (
+              <button type="button" className="button button--secondary" onClick={() => onUse(phase.table)}>
+                Use it for this consultation
+              </button>
+            )}
+          </div>
         )}
         {result?.ok && <p className="library__ok">{phase.kind === 'checked' ? phase.fileName : ''}: no problems found. Check the preview, then save.</p>}
       </div>

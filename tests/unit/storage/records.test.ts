@@ -20,7 +20,8 @@ const LATER = new Date('2025-03-02T11:30:00.000Z');
 
 describe('database layout', () => {
   it('version 1 creates the three stores, each keyed by id', () => {
-    expect(DB_VERSION).toBe(1);
+    // Version 2 (revisions and tombstones) was added after this test was written; version 1 is unchanged.
+    expect(DB_VERSION).toBe(2);
     expect(upgradeStepsBetween(0, 1)).toEqual([
       {
         version: 1,
@@ -35,23 +36,30 @@ describe('database layout', () => {
     expect(upgradeStepsBetween(1, 1)).toEqual([]);
   });
 
+  it('version 2 adds the tombstone store, keyed by store and id', () => {
+    expect(upgradeStepsBetween(1, 2)).toEqual([{ version: 2, createStores: [{ name: STORES.tombstones, keyPath: 'key' }], deleteStores: [] }]);
+  });
+
   it('applies only the steps between two versions, oldest first', () => {
+    // Made-up later versions 3 and 4 (the real steps now go up to 2), listed out of order.
     const steps: UpgradeStep[] = [
-      { version: 3, createStores: [], deleteStores: [] },
+      { version: 4, createStores: [], deleteStores: [] },
       ...UPGRADE_STEPS,
-      { version: 2, createStores: [], deleteStores: [] },
+      { version: 3, createStores: [], deleteStores: [] },
     ];
-    expect(upgradeStepsBetween(1, 3, steps).map((s) => s.version)).toEqual([2, 3]);
-    expect(upgradeStepsBetween(0, 2, steps).map((s) => s.version)).toEqual([1, 2]);
+    expect(upgradeStepsBetween(2, 4, steps).map((s) => s.version)).toEqual([3, 4]);
+    expect(upgradeStepsBetween(0, 3, steps).map((s) => s.version)).toEqual([1, 2, 3]);
   });
 });
 
 describe('records', () => {
   it('stores a table with its version and times; an update keeps the first save time', () => {
     const first = toStoredTable(DEMO_HEART_FAILURE_10Y, NOW);
-    expect(first).toEqual({ recordVersion: RECORD_VERSION, table: DEMO_HEART_FAILURE_10Y, savedAt: '2025-03-01T10:00:00.000Z', updatedAt: '2025-03-01T10:00:00.000Z' });
+    // Records gained a revision (issue 14 item 1): the first save is revision 1.
+    expect(first).toEqual({ recordVersion: RECORD_VERSION, table: DEMO_HEART_FAILURE_10Y, revision: 1, savedAt: '2025-03-01T10:00:00.000Z', updatedAt: '2025-03-01T10:00:00.000Z' });
     const second = toStoredTable(DEMO_HEART_FAILURE_10Y, LATER, first);
     expect([second.savedAt, second.updatedAt]).toEqual(['2025-03-01T10:00:00.000Z', '2025-03-02T11:30:00.000Z']);
+    expect(second.revision).toBe(2);
     expect(readStoredTable(first)).toEqual({ ok: true, value: first });
   });
 
@@ -83,6 +91,18 @@ describe('records', () => {
   it('refuses a record from a newer version and says why', () => {
     const r = readStoredTable({ ...toStoredTable(DEMO_HEART_FAILURE_10Y, NOW), recordVersion: RECORD_VERSION + 1 });
     expect(!r.ok && r.issues[0]).toMatchObject({ code: 'newer-record' });
+  });
+});
+
+describe('records saved before revisions (format 1)', () => {
+  it('still read, as revision 1, with everything else unchanged', () => {
+    const { revision: _r, ...v2 } = toStoredTable(DEMO_HEART_FAILURE_10Y, NOW);
+    const v1 = { ...v2, recordVersion: 1 };
+    expect(readStoredTable(v1)).toEqual({ ok: true, value: { ...v1, recordVersion: 2, revision: 1 } });
+    const { revision: _e, ...e2 } = toStoredEvidence(DEMO_EVIDENCE[0]!, NOW);
+    expect(readStoredEvidence({ ...e2, recordVersion: 1 })).toEqual({ ok: true, value: { ...e2, recordVersion: 2, revision: 1 } });
+    const { revision: _s, ...s2 } = summariseStoredTable(toStoredTable(DEMO_STROKE_5Y, NOW));
+    expect(readTableSummary({ ...s2, recordVersion: 1 })).toMatchObject({ ok: true, value: { recordVersion: 2, revision: 1, id: DEMO_STROKE_5Y.id } });
   });
 });
 
