@@ -7,7 +7,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
 import { DEMO_TABLES } from '@/lib/tables/demo';
-import { checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
+import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
 import { checkupsProgressView } from '@/lib/checkups/progress';
 import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
 import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
@@ -114,7 +114,7 @@ export function CheckupsScreen() {
       setFileMessage(refused.kind === 'refused' ? refused.message : null);
       return;
     }
-    const head = new Uint8Array(await first.slice(0, 512).arrayBuffer());
+    const head = new Uint8Array(await first.slice(0, CHECKUP_SNIFF_BYTES).arrayBuffer());
     const found = checkupFileKind(first.name, first.size, head);
     if (found.kind === 'refused') {
       setFileMessage(found.message);

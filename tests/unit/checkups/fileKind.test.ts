@@ -15,7 +15,7 @@ describe('checkupFileKind', () => {
   it('refuses a PDF renamed .csv, an image, a zip that is not a workbook and a file over 100 MB with one sentence', () => {
     // magic numbers: "%PDF", PNG 89 50 4E 47, zip "PK\x03\x04" (from memory)
     expect(checkupFileKind('checkups.csv', 10, text('%PDF-1.7'))).toMatchObject({ kind: 'refused', code: 'pdf' });
-    expect(checkupFileKind('x.csv', 10, new Uint8Array([0x89, 0x50, 0x4e, 0x47]))).toMatchObject({ kind: 'refused', code: 'image' });
+    expect(checkupFileKind('x.csv', 10, new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))).toMatchObject({ kind: 'refused', code: 'image' });
     expect(checkupFileKind('x.zip', 10, new Uint8Array([0x50, 0x4b, 0x03, 0x04]))).toMatchObject({ kind: 'refused', code: 'zip' });
     expect(checkupFileKind('x.csv', MAX_CHECKUP_FILE_BYTES + 1, text('a'))).toMatchObject({ kind: 'refused', code: 'too-large' });
     expect(checkupFileKind('x.csv', MAX_CHECKUP_FILE_BYTES, text('a'))).toEqual({ kind: 'delimited' });
