@@ -25,9 +25,9 @@ export function SummaryPanel({ summary, outcome }: { summary: WorkforceSummary; 
         </tbody>
       </table>
       <figure className="checkups__chart">
-        <div aria-hidden="true" style={{ width: '100%', height: 220 }}>
+        <div role="img" aria-labelledby="checkups-chart-caption" style={{ width: '100%', height: 220 }}>
           <ResponsiveContainer>
-            <BarChart data={[...view.chart]} layout="vertical" margin={{ left: 20, right: 20 }}>
+            <BarChart data={[...view.chart]} layout="vertical" margin={{ left: 20, right: 20 }} accessibilityLayer={false}>
               <CartesianGrid strokeDasharray="3 3" />
               <XAxis type="number" allowDecimals />
               <YAxis type="category" dataKey="label" width={170} />
@@ -35,7 +35,7 @@ export function SummaryPanel({ summary, outcome }: { summary: WorkforceSummary; 
             </BarChart>
           </ResponsiveContainer>
         </div>
-        <figcaption data-testid="chart-text">{view.chartText}</figcaption>
+        <figcaption id="checkups-chart-caption" data-testid="chart-text">{view.chartText}</figcaption>
       </figure>
       {view.strata.map((s) => (
         <div key={s.name} className="checkups__scroll">
