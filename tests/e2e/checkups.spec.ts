@@ -68,6 +68,13 @@ test('the demo file: columns shown, processed in the worker, the summary equals 
   await expect(page.getByTestId('worklist-count')).toHaveText(`${expected.byStatus.exposed} of ${expected.workers} workers shown`);
   await expect(page.getByTestId('worklist').locator('tbody tr[data-status]').first()).toHaveAttribute('data-status', 'exposed');
 
+  // Exports: named by date only, naming the evidence inside, one line per worker.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Per-worker CSV' }).click()]);
+  expect(download.suggestedFilename()).toMatch(/^checkups-workers-\d{4}-\d{2}-\d{2}\.csv$/);
+  const exported = readFileSync(await download.path(), 'utf8');
+  expect(exported.startsWith('Evidence,Prediabetes-range HbA1c and heart failure, workforce cohort (demo) (demo-workforce-hba1c-heart-failure)'.replace(/^Evidence,(.*)$/, 'Evidence,"$1"'))).toBe(true);
+  expect(exported.split('\r\n').filter((l) => /^W\d{3},/.test(l))).toHaveLength(expected.workers);
+
   for (const width of [1280, 390]) {
     await page.setViewportSize({ width, height: 900 });
     await expectAxeClean(page);

@@ -10,7 +10,9 @@ import { DEMO_TABLES } from '@/lib/tables/demo';
 import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
 import { checkupsProgressView } from '@/lib/checkups/progress';
 import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
-import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
+import { checkupsFileNames, summaryCsv, workersCsv } from '@/lib/checkups/exportCsv';
+import { downloadText } from '@/app/components/library/download';
+import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type WorkerResult, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
 import type { FileKindName, FromWorker, ToWorker } from './protocol';
 import { Worklist } from './Worklist';
 import { SummaryPanel } from './SummaryPanel';
@@ -46,6 +48,8 @@ export function CheckupsScreen() {
   const workerRef = useRef<Worker | null>(null);
   const startRef = useRef(0);
   const pendingRows = useRef<WorklistRow[]>([]);
+  const pendingResults = useRef<WorkerResult[]>([]);
+  const [results, setResults] = useState<WorkerResult[]>([]);
 
   const evidence = DEMO_EVIDENCE.find((e) => e.id === evidenceId) ?? DEMO_EVIDENCE[0];
   const table = DEMO_TABLES.find((t) => t.id === tableId) ?? DEMO_TABLES[0];
@@ -66,6 +70,7 @@ export function CheckupsScreen() {
     } else if (m.type === 'workers') {
       const start = pendingRows.current.length;
       pendingRows.current = pendingRows.current.concat(m.workers.map((w, i) => worklistRow(w, start + i)));
+      pendingResults.current = pendingResults.current.concat(m.workers);
     } else if (m.type === 'problems') {
       setProblems((p) => p.concat(m.problems));
     } else if (m.type === 'refused') {
@@ -76,6 +81,7 @@ export function CheckupsScreen() {
       if (outcome.ok) {
         setSummary(outcome.summary);
         setRows(pendingRows.current);
+        setResults(pendingResults.current);
         setPhase('done');
       } else if ('refusal' in outcome) {
         setRunMessages([outcome.refusal.message]);
@@ -135,6 +141,7 @@ export function CheckupsScreen() {
   const process = () => {
     if (!kind) return;
     pendingRows.current = [];
+    pendingResults.current = [];
     setProblems([]);
     setRunMessages([]);
     setSummary(null);
@@ -147,6 +154,10 @@ export function CheckupsScreen() {
   };
 
   const cancel = () => send({ type: 'cancel' });
+
+  const exportContext = () => ({ evidenceTitle: evidence?.title ?? '', evidenceId: evidence?.id ?? '', tableTitle: table?.title ?? '', tableId: table?.id ?? '', criteria, date: localToday() });
+  const exportWorkers = () => downloadText(checkupsFileNames(localToday()).workers, workersCsv(results, exportContext()), 'text/csv');
+  const exportSummary = () => summary && downloadText(checkupsFileNames(localToday()).summary, summaryCsv(summary, exportContext()), 'text/csv');
 
   const progressView = progress ? checkupsProgressView(progress.p, files.reduce((s, f) => s + f.size, 0), progress.elapsed) : null;
   const skipped = summary ? summary.rows.skipped : 0;
@@ -309,6 +320,17 @@ export function CheckupsScreen() {
       {phase === 'done' && summary ? (
         <>
           <SummaryPanel summary={summary} outcome={evidence?.wording.outcome ?? 'the outcome'} />
+          <section aria-labelledby="export-heading" className="checkups__section">
+            <h2 id="export-heading">Export</h2>
+            <div className="checkups__actions">
+              <button type="button" onClick={exportWorkers}>
+                Per-worker CSV
+              </button>
+              <button type="button" onClick={exportSummary}>
+                Summary CSV
+              </button>
+            </div>
+          </section>
           <ProblemsPanel problems={problems} skippedRows={skipped} />
           <Worklist rows={rows} />
         </>
