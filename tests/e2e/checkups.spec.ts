@@ -42,6 +42,7 @@ async function expectAxeClean(page: Page): Promise<void> {
 }
 
 test('the demo file: columns shown, processed in the worker, the summary equals the command’s, nothing leaves the origin', async ({ page, context, baseURL }) => {
+  test.setTimeout(120_000); // two axe runs and a spawned command on a shared machine
   const requests: string[] = [];
   context.on('request', (r) => requests.push(r.url()));
   await page.goto('/');
