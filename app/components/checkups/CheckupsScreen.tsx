@@ -10,6 +10,7 @@ import { DEMO_TABLES } from '@/lib/tables/demo';
 import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
 import { checkupsProgressView } from '@/lib/checkups/progress';
 import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
+import { decodeMappingMemory, encodeMappingMemory, mappingMemoryKey } from '@/lib/checkups/mappingMemory';
 import { checkupsFileNames, summaryCsv, workersCsv } from '@/lib/checkups/exportCsv';
 import { downloadText } from '@/app/components/library/download';
 import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type WorkerResult, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
@@ -63,7 +64,14 @@ export function CheckupsScreen() {
         return;
       }
       setHeader(m.header);
-      setFields(m.header ? m.header.proposal.mapping.columns.map((c) => c.field) : []);
+      const proposed = m.header ? m.header.proposal.mapping.columns.map((c) => c.field) : [];
+      let remembered: (CheckupField | null)[] | null = null;
+      try {
+        remembered = m.header ? decodeMappingMemory(window.localStorage.getItem(mappingMemoryKey(m.header.headers)), proposed.length) : null;
+      } catch {
+        remembered = null; // storage unavailable: the proposal stands
+      }
+      setFields(remembered ?? proposed);
       setPhase('columns');
     } else if (m.type === 'progress') {
       setProgress({ p: m.progress, elapsed: performance.now() - startRef.current });
@@ -150,6 +158,13 @@ export function CheckupsScreen() {
     startRef.current = performance.now();
     setPhase('running');
     const h = horizon.trim() === '' ? null : Number(horizon);
+    if (header && corrected) {
+      try {
+        window.localStorage.setItem(mappingMemoryKey(header.headers), encodeMappingMemory(fields)); // the headers and chosen fields only, never values
+      } catch {
+        // storage unavailable: the correction holds for this file only
+      }
+    }
     send({ type: 'run', files, kind, today: localToday(), mapping: corrected ? mapping : null, evidence: evidence!, table: table!, criteria, horizon: h });
   };
 
@@ -244,7 +259,7 @@ export function CheckupsScreen() {
         <section aria-labelledby="columns-heading" className="checkups__section">
           <h2 id="columns-heading">Columns</h2>
           {header ? (
-            <div className="checkups__scroll">
+            <div className="checkups__scroll" tabIndex={0} role="region" aria-labelledby="columns-heading">
               <table className="checkups__table" data-testid="columns">
                 <caption>Each column found, a few values, and what it was taken to be; correct any of them.</caption>
                 <thead>

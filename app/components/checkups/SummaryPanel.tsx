@@ -38,7 +38,7 @@ export function SummaryPanel({ summary, outcome }: { summary: WorkforceSummary; 
         <figcaption id="checkups-chart-caption" data-testid="chart-text">{view.chartText}</figcaption>
       </figure>
       {view.strata.map((s) => (
-        <div key={s.name} className="checkups__scroll">
+        <div key={s.name} className="checkups__scroll" tabIndex={0} role="region" aria-label={`Workers by ${s.name}`}>
           <table className="checkups__table" data-testid={`stratum-${s.name}`}>
             <caption>By {s.name}</caption>
             <thead>
