@@ -86,6 +86,7 @@ test('the demo file: columns shown, processed in the worker, the summary equals 
 });
 
 test('a file with bad rows lists them with row and column and processes the rest', async ({ page }) => {
+  test.setTimeout(90_000); // axe on a shared, loaded machine
   const csv = ['Worker,Checkup date,HbA1c (%),Age,Sex', 'A1,2021-03-01,5.9,50,female', 'A1,2022-03-01,6.0,51,female', 'A1,2023-03-01,banana,52,female', 'A1,2024-03-01,6.1,53,female', 'B2,2022-03-01,5.2,40,male', 'B2,not a date,5.3,41,male', 'B2,2024-03-01,5.1,42,male'].join('\n');
   await openAndProcess(page, { name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
   const problems = page.getByTestId('problems');
