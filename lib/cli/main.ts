@@ -13,7 +13,7 @@ export const USAGE = `Usage: hundredfold <command> [options]
 
 Commands:
   compute [--input FILE] [--ndjson]   one scenario as JSON (stdin or FILE) -> one result as JSON
-  link [--input FILE]                 print the path and query that open the scenario in the app
+  link [--input FILE]                 print the path and fragment (/#…) that open the scenario in the app
   glycaemia [--input FILE] [--fhir] [--criteria ADA|WHO|NICE]
                                       classify serial HbA1c / fasting glucose results
   table check FILE                    validate a population-table CSV file
