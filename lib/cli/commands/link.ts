@@ -5,9 +5,8 @@
  * a browser never sends to the server. The codec is lib/link/scenarioLink.ts.
  */
 import { encodeScenarioLink, scenarioLinkIssues } from '../../link/scenarioLink';
-import { parseScenarioJson } from '../../scenario/parse';
 import { complain, EXIT_OK, type CommandIo } from '../io';
-import { issueLine, parseOptions, readInputText, writeText, type OptionSpec } from './scenarioInput';
+import { issueLine, parseOptions, parseScenarioText, readInputText, writeText, type OptionSpec } from './scenarioInput';
 
 export const LINK_USAGE = `Usage: hundredfold link [--input FILE]
 
@@ -29,7 +28,7 @@ export async function link(io: CommandIo): Promise<number> {
   const file = options.values.input === true ? undefined : options.values.input;
   const input = await readInputText(io, file);
   if (!input.ok) return complain(io, input.problem);
-  const scenario = parseScenarioJson(input.text);
+  const scenario = parseScenarioText(input.text);
   if (!scenario.ok) return complain(io, issueLine(scenario.issues));
   // A link that would leave text out (a broken character) or be too long is refused, not cut.
   const problems = scenarioLinkIssues(scenario.value);
