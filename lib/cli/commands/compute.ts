@@ -174,7 +174,10 @@ export async function computeNdjson(source: Readable, io: CommandIo): Promise<nu
     if (pool !== undefined) for (const done of pool.drain()) await write(await done);
   };
 
-  const dispatchText = async (text: string) => {
+  const dispatchText = async (whole: string) => {
+    // A byte-order mark, as some editors write, is dropped from the start of the input.
+    const text = first && whole.charCodeAt(0) === 0xfeff ? whole.slice(1) : whole;
+    first = false;
     const firstLine = nextLine;
     nextLine += countLines(text);
     if (pool === undefined && !poolTried && firstLine > LINES_BEFORE_WORKERS) {
@@ -206,6 +209,7 @@ export async function computeNdjson(source: Readable, io: CommandIo): Promise<nu
         await flush();
         await write({ output: `${notUtf8(nextLine, line)}\n`, failed: true });
         nextLine += 1;
+        first = false;
       }
       start = end;
     }
@@ -220,11 +224,7 @@ export async function computeNdjson(source: Readable, io: CommandIo): Promise<nu
 
   try {
     for await (const raw of source as AsyncIterable<Buffer | string>) {
-      let chunk = typeof raw === 'string' ? Buffer.from(raw, 'utf8') : raw;
-      if (first) {
-        first = false;
-        if (chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) chunk = chunk.subarray(3);
-      }
+      const chunk = typeof raw === 'string' ? Buffer.from(raw, 'utf8') : raw;
       const firstEnd = chunk.indexOf(NEWLINE);
       if (firstEnd < 0) {
         // No line end in this chunk: the line goes on (or is being skipped).
@@ -238,6 +238,7 @@ export async function computeNdjson(source: Readable, io: CommandIo): Promise<nu
           await flush();
           await write({ output: `${lineTooLong(nextLine)}\n`, failed: true });
           nextLine += 1;
+          first = false;
         }
         continue;
       }
