@@ -5,8 +5,9 @@
  * - react-hook-form with a zod resolver built on the engine's schemas (./formModel.ts).
  * - The result is recomputed from the current values on every change, through the same
  *   pipeline as the resolver; when any input is invalid there is no result at all.
- * - The address holds the whole scenario through the link codec (lib/link): a link opens
- *   exactly that screen, and reloading keeps it. Nothing is sent anywhere while typing.
+ * - The address fragment holds the whole scenario through the link codec (lib/link, read and
+ *   written by app/link/useScenarioLink.ts): a link opens exactly that screen, and reloading
+ *   keeps it. The fragment is never sent, so nothing typed reaches any server.
  */
 import { zodResolver } from '@hookform/resolvers/zod';
 import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
@@ -16,7 +17,10 @@ import type { z } from 'zod';
 import { DEMO_EVIDENCE, DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { HistoryMatch } from '@/lib/glycaemia/match';
-import { fail, type Issue, type Warning } from '@/lib/result';
+import { LinkNotice } from '@/app/link/LinkNotice';
+import { useScenarioLink, writeScenarioLink } from '@/app/link/useScenarioLink';
+import type { LinkReading } from '@/lib/link';
+import { fail, type Warning } from '@/lib/result';
 import { DEMO_HEART_FAILURE_10Y, DEMO_TABLES } from '@/lib/tables/demo';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { BaselineSection } from './BaselineSection';
@@ -77,9 +81,7 @@ function LiveResult({ control, tables, extraWarnings }: LiveResultProps) {
     if (!outcome.ok) return;
     let current = true;
     void loadLinkCodec().then(({ encodeScenarioLink }) => {
-      if (!current) return;
-      const path = encodeScenarioLink(outcome.value.scenario);
-      if (path !== `${window.location.pathname}${window.location.search}`) window.history.replaceState(null, '', path);
+      if (current) writeScenarioLink(encodeScenarioLink(outcome.value.scenario));
     });
     return () => {
       current = false;
@@ -123,7 +125,8 @@ export function ConsultationScreen({
     mode: 'onChange',
     delayError: 350,
   });
-  const [linkIssues, setLinkIssues] = useState<readonly Issue[]>([]);
+  const [linkReading, setLinkReading] = useState<LinkReading | undefined>(undefined);
+  const link = useScenarioLink();
   const { reset, setValue, getValues } = methods;
 
   const takeLibraryTable = useCallback(
@@ -163,15 +166,13 @@ export function ConsultationScreen({
 
   // A scenario in the address (a copied link, a reload, a `hundredfold link` path) fills the form.
   useEffect(() => {
-    // The address is outside React and is read once, after hydration (the page is static).
-    const query = window.location.search.replace(/^\?/, '');
-    if (query === '') return;
-    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(async ([{ decodeScenarioQuery }, { scenarioToFormValues }]) => {
-      const decoded = decodeScenarioQuery(query);
-      if (!decoded.ok) {
-        setLinkIssues(decoded.issues);
-        return;
-      }
+    // The address fragment is read after hydration (the page is static): app/link/useScenarioLink.ts.
+    if (link === undefined || link === '') return;
+    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(async ([{ readScenarioLink }, { scenarioToFormValues }]) => {
+      const reading = readScenarioLink(link);
+      setLinkReading(reading);
+      const decoded = reading.result;
+      if (!decoded.ok) return;
       const first = scenarioToFormValues(decoded.value, tablesRef.current);
       reset(first);
       // A table from this browser's clinic library: once it is read, the form names it as the
@@ -189,7 +190,7 @@ export function ConsultationScreen({
       tablesRef.current = [...tablesRef.current.filter((t) => t.id !== table.id), table];
       reset(scenarioToFormValues(decoded.value, tablesRef.current));
     });
-  }, [reset, getValues]);
+  }, [reset, getValues, link]);
 
   return (
     <FormProvider {...methods}>
@@ -212,16 +213,7 @@ export function ConsultationScreen({
                 Clear the form
               </button>
             </div>
-            {linkIssues.length > 0 ? (
-              <div className="link-problem" role="alert">
-                <p>This link could not be read, so the form starts empty:</p>
-                <ul>
-                  {linkIssues.map((issue) => (
-                    <li key={`${issue.path.join('.')}-${issue.code}`}>{issue.message}</li>
-                  ))}
-                </ul>
-              </div>
-            ) : null}
+            <LinkNotice reading={linkReading} refused="This link could not be read, so the form starts empty:" />
           </div>
           <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
             <Baseline tables={allTables} />

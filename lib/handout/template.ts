@@ -66,7 +66,9 @@ function locate(issue: Issue, raw: unknown): Issue {
   if (head !== 'templates' || typeof index !== 'number') return issue;
   const entry = Array.isArray(raw) ? (raw[index] as unknown) : undefined;
   const name = typeof entry === 'object' && entry !== null && typeof (entry as { name?: unknown }).name === 'string' ? (entry as { name: string }).name.trim() : '';
-  const which = `Template ${index + 1}${name ? ` ("${name}")` : ''}`;
+  // An unknown key's message says only "is not a field here": name the group it sits in ("clinic").
+  const group = issue.code === 'unknown-field' ? issue.path.slice(2, -1).filter((p): p is string => typeof p === 'string').join('.') : '';
+  const which = `Template ${index + 1}${name ? ` ("${name}")` : ''}${group ? `, ${group}` : ''}`;
   return { ...issue, message: `${which}: ${issue.message}` };
 }
 

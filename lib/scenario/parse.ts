@@ -36,7 +36,8 @@ export function parseScenario(input: unknown): Result<Scenario> {
     if (issue.code === 'invalid_union' && issue.path.length === 1 && issue.path[0] === 'baseline') {
       const branch = pickUnionBranch(issue, BASELINE_FORM_KEYS, baseline);
       if (branch) {
-        issues.push(...toIssues(branch));
+        // One at a time: spreading a huge list into one call overflows the stack.
+        for (const one of toIssues(branch)) issues.push(one);
       } else {
         issues.push({
           code: baseline === undefined ? 'required' : 'baseline-form',
@@ -46,7 +47,7 @@ export function parseScenario(input: unknown): Result<Scenario> {
       }
       continue;
     }
-    issues.push(...toIssues([issue]));
+    for (const one of toIssues([issue])) issues.push(one);
   }
   return fail(issues);
 }

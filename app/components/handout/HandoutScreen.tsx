@@ -34,7 +34,7 @@ import { HandoutSheet } from './HandoutSheet';
 import { TemplatePanel } from './TemplatePanel';
 
 export interface HandoutScreenProps {
-  /** The URL query, "?br=0.08&…" (or empty). */
+  /** The scenario link's fragment, "#br=0.08&…" (or empty); an old query "?br=…" is read too. */
   readonly query: string;
 }
 
@@ -154,7 +154,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
     return outcome;
   }
 
-  const backHref = `/${query.startsWith('?') ? query : query ? `?${query}` : ''}`;
+  const backHref = `/${query.startsWith('#') ? query : query ? `#${query.replace(/^\?/, '')}` : ''}`;
 
   if (!content.ok) {
     return (
