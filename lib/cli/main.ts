@@ -8,6 +8,7 @@ import { compute } from './commands/compute';
 import { link } from './commands/link';
 import { glycaemia } from './commands/glycaemia';
 import { table } from './commands/table';
+import { checkups } from './commands/checkups';
 
 export const USAGE = `Usage: hundredfold <command> [options]
 
@@ -17,8 +18,10 @@ Commands:
   glycaemia [--input FILE] [--fhir] [--criteria ADA|WHO|NICE]
                                       classify serial HbA1c / fasting glucose results
   table check FILE                    validate a population-table CSV file
+  checkups FILE --criteria ADA|WHO|NICE (--table FILE | --table-id ID) (--evidence FILE | --evidence-id ID)
+                                      each worker's status and risks, then the workforce summary
 
-Exit codes: 0 done, 1 some --ndjson lines failed, 2 bad input or usage.`;
+Exit codes: 0 done, 1 some --ndjson lines (or checkup rows) failed, 2 bad input or usage.`;
 
 /** A Map, not an object: "__proto__", "constructor" or "toString" must be unknown commands, not inherited members. */
 const COMMANDS: ReadonlyMap<string, Command> = new Map<string, Command>([
@@ -26,6 +29,7 @@ const COMMANDS: ReadonlyMap<string, Command> = new Map<string, Command>([
   ['link', link],
   ['glycaemia', glycaemia],
   ['table', table],
+  ['checkups', checkups],
 ]);
 
 export async function main(io: CommandIo): Promise<number> {

@@ -25,7 +25,8 @@ export const DEMO_WORKFORCE_HBA1C_HEART_FAILURE: EvidenceEntry = {
     population: 'employees aged 30 to 64 seen at yearly workplace health checkups (invented cohort)',
     citation: ILLUSTRATIVE_EVIDENCE_NOTE,
   },
-  exposureDefinition: { category: 'prediabetes', criteria: 'ADA', minYears: 3 },
+  // As worded: HbA1c decides; the comparison group had a normal HbA1c over the same span (3 yearly results).
+  exposureDefinition: { category: 'prediabetes', criteria: 'ADA', minYears: 3, test: 'hba1c', comparison: { category: 'normal' } },
   illustrative: true,
   notes: 'Invented cohort for the demo. Adjusted for age, sex, blood pressure and smoking (invented).',
 };
@@ -43,7 +44,8 @@ export const DEMO_NESTED_CASE_CONTROL_GLUCOSE_CORONARY: EvidenceEntry = {
     population: 'adults in an invented primary-care cohort; controls sampled from those still event-free when each case occurred',
     citation: ILLUSTRATIVE_EVIDENCE_NOTE,
   },
-  exposureDefinition: { category: 'prediabetes', criteria: 'WHO', minYears: 2 },
+  // As worded: fasting glucose decides, at two or more yearly checkups; the comparison group's fasting glucose was normal.
+  exposureDefinition: { category: 'prediabetes', criteria: 'WHO', minYears: 2, test: 'fpg', comparison: { category: 'normal' } },
   illustrative: true,
   notes: 'Invented study for the demo. With risk-set sampling the odds ratio estimates the rate ratio.',
 };
@@ -61,7 +63,8 @@ export const DEMO_CROSS_SECTIONAL_HBA1C_BLOOD_PRESSURE: EvidenceEntry = {
     population: 'adults at a one-off community health check in an invented town',
     citation: ILLUSTRATIVE_EVIDENCE_NOTE,
   },
-  exposureDefinition: { category: 'prediabetes', criteria: 'NICE', minYears: 1 },
+  // As worded: one HbA1c at the survey; the comparison group's HbA1c was normal.
+  exposureDefinition: { category: 'prediabetes', criteria: 'NICE', minYears: 1, test: 'hba1c', comparison: { category: 'normal' } },
   illustrative: true,
   notes: 'Invented survey for the demo. A cross-sectional odds ratio compares how common the outcome is now, not new cases over time.',
 };

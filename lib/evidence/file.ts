@@ -2,7 +2,15 @@
  * The evidence library as a JSON file, for moving a clinic's entries between browsers and
  * keeping a copy:
  *
- *     { "format": "hundredfold-evidence", "version": 1, "entries": [ {…}, … ] }
+ *     { "format": "hundredfold-evidence", "version": 2, "entries": [ {…}, … ] }
+ *
+ * Versions:
+ * - 1: entries whose exposure definition is `{category, criteria, minYears}`;
+ * - 2: exposure definitions may also say which test decides, the longest gap and the comparison
+ *   group's definition (lib/glycaemia/exposure.ts).
+ * Both versions are read (leniently: a version-1 file that carries version-2 fields is read too).
+ * A file is written with the lowest version that holds its entries, so a library that uses no
+ * version-2 field still opens in a program that reads only version 1.
  *
  * Reading validates every entry and refuses the whole file on any problem, naming the entry
  * and the field; nothing is half-imported.
@@ -14,8 +22,11 @@ import { toIssues } from '../scenario/issues';
 import { evidenceEntrySchema, type EvidenceEntry } from './schema';
 
 export const EVIDENCE_FILE_FORMAT = 'hundredfold-evidence';
-/** The file version this program writes and reads. A newer file is refused with a plain reason. */
-export const EVIDENCE_FILE_VERSION = 1;
+/** The newest file version this program writes and reads. A newer file is refused with a plain reason. */
+export const EVIDENCE_FILE_VERSION = 2;
+/** Every version this program reads. */
+export const EVIDENCE_FILE_VERSIONS = [1, 2] as const;
+export type EvidenceFileVersion = (typeof EVIDENCE_FILE_VERSIONS)[number];
 /** Most entries in one file: far above any clinic's library (common practice: bound every import). */
 export const MAX_EVIDENCE_ENTRIES = 10_000;
 /** Largest file accepted, in characters (about 20 MB of text at the entry limit would be absurd; 5 MB is ample). */
@@ -23,13 +34,24 @@ export const MAX_EVIDENCE_FILE_CHARS = 5 * 1024 * 1024;
 
 export interface EvidenceFile {
   readonly format: typeof EVIDENCE_FILE_FORMAT;
-  readonly version: typeof EVIDENCE_FILE_VERSION;
+  readonly version: EvidenceFileVersion;
   readonly entries: readonly EvidenceEntry[];
 }
 
-/** Write entries as an evidence file (two-space indented JSON, one trailing newline). */
+/** True when an entry uses a field that version 1 files do not have. */
+export function needsVersion2(entry: EvidenceEntry): boolean {
+  const d = entry.exposureDefinition;
+  return d !== undefined && (d.test !== undefined || d.maxGapMonths !== undefined || d.comparison !== undefined);
+}
+
+/** The lowest file version that holds these entries. */
+export function evidenceFileVersionFor(entries: readonly EvidenceEntry[]): EvidenceFileVersion {
+  return entries.some(needsVersion2) ? 2 : 1;
+}
+
+/** Write entries as an evidence file (two-space indented JSON, one trailing newline), with the lowest version that holds them. */
 export function exportEvidenceJson(entries: readonly EvidenceEntry[]): string {
-  const file: EvidenceFile = { format: EVIDENCE_FILE_FORMAT, version: EVIDENCE_FILE_VERSION, entries };
+  const file: EvidenceFile = { format: EVIDENCE_FILE_FORMAT, version: evidenceFileVersionFor(entries), entries };
   return `${JSON.stringify(file, null, 2)}\n`;
 }
 
@@ -56,14 +78,14 @@ export function parseEvidenceFile(input: unknown): Result<EvidenceEntry[]> {
     return fail([{ code: 'wrong-format', path: ['format'], message: `This is not a Hundredfold evidence file: "format" must be "${EVIDENCE_FILE_FORMAT}"` }]);
   }
   if (typeof file.version !== 'number' || !Number.isInteger(file.version) || file.version < 1) {
-    return fail([{ code: 'wrong-version', path: ['version'], message: `The file's "version" must be a whole number; this program reads version ${EVIDENCE_FILE_VERSION}` }]);
+    return fail([{ code: 'wrong-version', path: ['version'], message: `The file's "version" must be a whole number; this program reads versions ${EVIDENCE_FILE_VERSIONS.join(' and ')}` }]);
   }
   if (file.version > EVIDENCE_FILE_VERSION) {
     return fail([
       {
         code: 'newer-version',
         path: ['version'],
-        message: `The file is version ${file.version}, written by a newer Hundredfold; this one reads version ${EVIDENCE_FILE_VERSION}. Update the program to import it`,
+        message: `The file is version ${file.version}, written by a newer Hundredfold; this one reads versions ${EVIDENCE_FILE_VERSIONS.join(' and ')}. Update the program to import it`,
       },
     ]);
   }
@@ -126,6 +148,6 @@ export function parseEvidenceJson(text: string): Result<EvidenceEntry[]> {
 /** The file schema, for documentation and tools; {@link parseEvidenceFile} gives the better messages. */
 export const evidenceFileSchema = z.strictObject({
   format: z.literal(EVIDENCE_FILE_FORMAT),
-  version: z.literal(EVIDENCE_FILE_VERSION),
+  version: z.union(EVIDENCE_FILE_VERSIONS.map((v) => z.literal(v))),
   entries: z.array(evidenceEntrySchema).max(MAX_EVIDENCE_ENTRIES),
 });

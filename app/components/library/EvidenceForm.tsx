@@ -16,6 +16,7 @@ import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { EFFECT_MEASURES, INTERVAL_LEVELS, STUDY_DESIGNS } from '@/lib/scenario/schema';
 import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/app/consultation/choices';
 import { ProblemList } from './ProblemList';
+import { ExposureFields, withExposure } from '../exposure/ExposureFields';
 
 export interface EvidenceFormProps {
   readonly entry: EvidenceEntry;
@@ -103,13 +104,14 @@ export function EvidenceForm({ entry, onSave, onCancel }: EvidenceFormProps) {
   const [draft, setDraft] = useState<Draft>(() => toDraft(entry));
   const [issues, setIssues] = useState<readonly Issue[]>([]);
   const [saving, setSaving] = useState(false);
+  const [exposure, setExposure] = useState(entry.exposureDefinition);
 
   const fieldIssues = (key: string) => issues.filter((i) => i.path[i.path.length - 1] === key);
-  const other = issues.filter((i) => !(String(i.path[i.path.length - 1]) in LABELS));
+  const other = issues.filter((i) => !(String(i.path[i.path.length - 1]) in LABELS) && i.path[0] !== 'exposureDefinition');
 
   async function submit(event: FormEvent) {
     event.preventDefault();
-    const parsed = parseEvidenceEntry(fromDraft(draft, entry));
+    const parsed = parseEvidenceEntry(fromDraft(draft, withExposure(entry, exposure)));
     if (!parsed.ok) return setIssues(parsed.issues);
     setSaving(true);
     const refused = await onSave(parsed.value);
@@ -196,6 +198,7 @@ export function EvidenceForm({ entry, onSave, onCancel }: EvidenceFormProps) {
         <legend className="subsection__title">Wording</legend>
         {WORDING.map((k) => field(k))}
       </fieldset>
+      <ExposureFields value={exposure} onChange={setExposure} issues={issues.filter((i) => i.path[0] === 'exposureDefinition')} />
       {field('notes', 'textarea')}
       <ProblemList problems={other} heading="Not saved" />
       <div className="library__buttons">

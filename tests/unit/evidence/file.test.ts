@@ -81,6 +81,25 @@ describe('evidence file: export then import', () => {
   });
 });
 
+describe('evidence file versions', () => {
+  const oldEntry: EvidenceEntry = { ...DEMO_EVIDENCE[0]!, exposureDefinition: { category: 'prediabetes', criteria: 'ADA', minYears: 3 } };
+
+  it('a version-1 file of the current shape still imports', () => {
+    const text = JSON.stringify({ format: EVIDENCE_FILE_FORMAT, version: 1, entries: [oldEntry] });
+    expect(parseEvidenceJson(text)).toEqual({ ok: true, value: [oldEntry] });
+  });
+
+  it('writes version 1 when no entry needs more, version 2 for a test, a gap or a comparison group', () => {
+    expect(JSON.parse(exportEvidenceJson([oldEntry])).version).toBe(1);
+    const withComparison: EvidenceEntry = { ...oldEntry, exposureDefinition: { ...oldEntry.exposureDefinition!, comparison: { category: 'normal' } } };
+    const withGap: EvidenceEntry = { ...oldEntry, id: 'gap', exposureDefinition: { ...oldEntry.exposureDefinition!, maxGapMonths: 12 } };
+    const text = exportEvidenceJson([oldEntry, withComparison, withGap].map((e, i) => ({ ...e, id: `e${i}` })));
+    expect(JSON.parse(text).version).toBe(2);
+    expect(parseEvidenceJson(text).ok).toBe(true);
+    expect(evidenceFileSchema.safeParse(JSON.parse(text)).success).toBe(true);
+  });
+});
+
 describe('evidence file: refusals name the entry and the field', () => {
   const good = DEMO_EVIDENCE[0]!;
   const file = (entries: unknown[], extra: Record<string, unknown> = {}) => JSON.stringify({ format: EVIDENCE_FILE_FORMAT, version: 1, entries, ...extra });
@@ -127,7 +146,8 @@ describe('evidence file: refusals name the entry and the field', () => {
     ['[]', 'wrong-type'],
     ['null', 'wrong-type'],
     ['{"format":"other","version":1,"entries":[]}', 'wrong-format'],
-    ['{"format":"hundredfold-evidence","version":2,"entries":[]}', 'newer-version'],
+    // Version 2 is read now (exposure definitions with test, gap and comparison); 3 is newer.
+    ['{"format":"hundredfold-evidence","version":3,"entries":[]}', 'newer-version'],
     ['{"format":"hundredfold-evidence","version":"1","entries":[]}', 'wrong-version'],
     ['{"format":"hundredfold-evidence","version":1}', 'required'],
     ['{"format":"hundredfold-evidence","version":1,"entries":{}}', 'wrong-type'],

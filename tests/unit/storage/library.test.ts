@@ -143,7 +143,8 @@ describe('evidence entries in the browser library', () => {
     expect(edited.entry.effect.estimate).toBe(1.5);
     expect(value(await lib.renameEvidence('workforce-hf', 'Workforce cohort, HF')).entry.title).toBe('Workforce cohort, HF');
     const file = value(await lib.exportEvidence());
-    expect(JSON.parse(file)).toMatchObject({ format: 'hundredfold-evidence', version: 1, entries: [{ id: 'nested-cc' }, { id: 'workforce-hf', title: 'Workforce cohort, HF' }] });
+    // Version 2: the demo entries' exposure definitions now name their test and comparison group (lib/evidence/file.ts).
+    expect(JSON.parse(file)).toMatchObject({ format: 'hundredfold-evidence', version: 2, entries: [{ id: 'nested-cc' }, { id: 'workforce-hf', title: 'Workforce cohort, HF' }] });
     value(await lib.deleteEvidence('nested-cc'));
     expect(value(await lib.listEvidence()).items.map((e) => e.entry.id)).toEqual(['workforce-hf']);
     expect(await lib.getEvidence('nested-cc')).toMatchObject({ ok: false, issues: [{ code: 'not-found' }] });
