@@ -377,3 +377,44 @@ export function pasteSummary(result: PasteResult): string {
   return parts.join(' ');
 }
 
+
+/**
+ * Whether rows coming in from a paste or a file fit in one history, checked before anything is
+ * added: with `keptRows` (the filled rows that stay, 0 when replacing) plus `incoming`, at most
+ * {@link MAX_CHECKUPS}. Null when they fit; otherwise an issue (code `too-many`) naming both
+ * counts, and nothing is to be added.
+ *
+ * @example
+ * importLimitIssue(12, 28095, 'The file') //=> { code: 'too-many', path: [], message: 'The file has 28,095 checkups; with the 12 rows already here that makes 28,107, more than the 500 a history holds. Nothing was added.' }
+ * importLimitIssue(0, 500, 'The paste')   //=> null
+ */
+export function importLimitIssue(keptRows: number, incoming: number, source: string): Issue | null {
+  const total = keptRows + incoming;
+  if (total <= MAX_CHECKUPS) return null;
+  const n = (x: number) => x.toLocaleString('en');
+  const what = `${source} has ${n(incoming)} checkup${incoming === 1 ? '' : 's'}`;
+  const message =
+    keptRows > 0 && incoming <= MAX_CHECKUPS
+      ? `${what}; with the ${n(keptRows)} row${keptRows === 1 ? '' : 's'} already here that makes ${n(total)}, more than the ${MAX_CHECKUPS} a history holds. Nothing was added: replace the rows instead, or remove some first.`
+      : keptRows > 0
+        ? `${what}; with the ${n(keptRows)} row${keptRows === 1 ? '' : 's'} already here that makes ${n(total)}, more than the ${MAX_CHECKUPS} a history holds. Nothing was added.`
+        : `${what}, more than the ${MAX_CHECKUPS} a history holds. Nothing was added.`;
+  return { code: 'too-many', path: [], message };
+}
+
+/** Longest report line shown; longer lines are cut with "…" so a report never runs on. */
+export const REPORT_LINE_CHARS = 240;
+
+/**
+ * Lines of a read report (problems, skipped resources) for the screen: each cut to
+ * {@link REPORT_LINE_CHARS} characters, at most {@link MAX_PASTE_PROBLEMS} of them, then one line
+ * counting the rest.
+ *
+ * @example
+ * readableLines(['a', 'b'], 1) //=> ['a', '… and 1 more not listed here']
+ */
+export function readableLines(lines: readonly string[], max: number = MAX_PASTE_PROBLEMS): string[] {
+  const shown = lines.slice(0, max).map((line) => (line.length > REPORT_LINE_CHARS ? `${line.slice(0, REPORT_LINE_CHARS - 1)}…` : line));
+  if (lines.length > max) shown.push(`… and ${(lines.length - max).toLocaleString('en')} more not listed here`);
+  return shown;
+}
