@@ -289,7 +289,8 @@ export function GlucoseHistory({ history }: GlucoseHistoryProps) {
             Paste rows from a spreadsheet
           </label>
           <p className="field__hint" id={`${id}-paste-hint`}>
-            Columns: {PASTE_COLUMNS.join(', ')}. Tabs, semicolons or commas between cells; a header line is skipped.
+            Tabs, semicolons or commas between cells. A header line is read by its column names, in any order, with units in it or
+            in their own column (“Date”, “HbA1c (%)”, “Fasting glucose”, “Unit”); without a header the columns are: {PASTE_COLUMNS.join(', ')}.
           </p>
           <textarea
             id={`${id}-paste`}
