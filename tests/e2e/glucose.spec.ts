@@ -388,7 +388,6 @@ test('on a desktop the chart is wide enough for every date, and its text alterna
   await expect(page.getByText(series.summary, { exact: true })).toHaveCount(1);
   await expect(page.getByText(series.summary, { exact: true })).toHaveAttribute('aria-hidden', 'true');
   // Every checkup's date is written on the axis.
-  const ticks = chart.locator('.recharts-xAxis .recharts-cartesian-axis-tick-value');
-  await expect(ticks).toHaveText(series.points.map((p) => p.date));
+  for (const point of series.points) await expect(chart.locator('svg text', { hasText: point.date })).toHaveCount(1);
   await page.getByTestId('glucose-history').screenshot({ path: 'test-results/screens/glucose-desktop.png' });
 });
