@@ -16,10 +16,10 @@ import { FormProvider, useForm, useWatch, type Control, type Resolver } from 're
 import type { z } from 'zod';
 import { DEMO_EVIDENCE, DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import type { HistoryMatch } from '@/lib/glycaemia/match';
 import { LinkNotice } from '@/app/link/LinkNotice';
 import { useScenarioLink, writeScenarioLink } from '@/app/link/useScenarioLink';
 import type { LinkReading } from '@/lib/link';
+import { useGlucoseHistory } from '@/app/components/glucose/useGlucoseHistory';
 import { fail, type Warning } from '@/lib/result';
 import { DEMO_HEART_FAILURE_10Y, DEMO_TABLES } from '@/lib/tables/demo';
 import type { PopulationTable } from '@/lib/tables/schema';
@@ -101,7 +101,6 @@ export function ConsultationScreen({
   // Tables and entries the clinician takes from the clinic library join the bundled ones.
   const [libraryTables, setLibraryTables] = useState<readonly PopulationTable[]>([]);
   const [libraryEntries, setLibraryEntries] = useState<readonly EvidenceEntry[]>([]);
-  const [match, setMatch] = useState<HistoryMatch | null>(null);
   const allTables = useMemo(() => [...tables, ...libraryTables.filter((t) => !tables.some((d) => d.id === t.id))], [tables, libraryTables]);
   const allEntries = useMemo(() => [...entries, ...libraryEntries.filter((e) => !entries.some((d) => d.id === e.id))], [entries, libraryEntries]);
   const tablesRef = useRef(allTables);
@@ -118,7 +117,6 @@ export function ConsultationScreen({
     }
     return resolverCache.current.resolve(values, context, options);
   }, []);
-  const extraWarnings = useMemo(() => [match?.diabetesRangeNote, match?.warning].filter((w): w is Warning => w !== undefined), [match]);
   const methods = useForm<z.input<Schema>, unknown, z.output<Schema>>({
     resolver,
     defaultValues: EMPTY_FORM_VALUES,
@@ -128,6 +126,9 @@ export function ConsultationScreen({
   const [linkReading, setLinkReading] = useState<LinkReading | undefined>(undefined);
   const link = useScenarioLink();
   const { reset, setValue, getValues } = methods;
+  // The glucose rows live here, so closing their section keeps them; the match is derived from them.
+  const evidenceId = useWatch({ control: methods.control, name: 'evidenceId' });
+  const glucose = useGlucoseHistory({ exposure: allEntries.find((e) => e.id === evidenceId)?.exposureDefinition });
 
   const takeLibraryTable = useCallback(
     (table: PopulationTable) => {
@@ -220,11 +221,11 @@ export function ConsultationScreen({
             <Evidence entries={allEntries} />
             <Settings />
           </form>
-          <GlucoseSection entries={allEntries} onMatchChange={setMatch} />
+          <GlucoseSection history={glucose} />
           <LibrarySection tables={allTables} entries={allEntries} onUseTable={takeLibraryTable} onUseEvidence={(entry) => void takeLibraryEntry(entry)} />
         </div>
         <div className="screen__result">
-          <LiveResult control={methods.control} tables={allTables} extraWarnings={extraWarnings} />
+          <LiveResult control={methods.control} tables={allTables} extraWarnings={glucose.warnings} />
         </div>
       </div>
     </FormProvider>

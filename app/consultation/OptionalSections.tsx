@@ -1,50 +1,23 @@
 'use client';
 /**
  * Two optional parts of the consultation, each opened by a button and loaded only then:
- * the person's glucose history (app/components/glucose) and the clinic library
- * (app/components/library). Neither is needed for a result, so neither weighs on the page's
- * first load.
+ * the person's glucose history (app/components/glucose/GlucoseSection.tsx, re-exported here) and
+ * the clinic library (app/components/library). Neither is needed for a result, so neither weighs
+ * on the page's first load.
  */
 import { lazy, Suspense, useState } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import type { HistoryMatch } from '@/lib/glycaemia/match';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { formInputSchema, formToOutcome, type ConsultationFormValues } from './formModel';
 
-const GlucoseHistory = lazy(() => import('@/app/components/glucose/GlucoseHistory').then((m) => ({ default: m.GlucoseHistory })));
 const LibraryPanel = lazy(() => import('./LibraryPanel'));
 
 function Loading({ what }: { what: string }) {
   return <p className="charts__loading">Loading {what}…</p>;
 }
 
-export function GlucoseSection({ entries, onMatchChange }: { entries: readonly EvidenceEntry[]; onMatchChange: (match: HistoryMatch | null) => void }) {
-  const [open, setOpen] = useState(false);
-  const { control } = useFormContext<ConsultationFormValues>();
-  const evidenceId = useWatch({ control, name: 'evidenceId' });
-  const exposure = entries.find((e) => e.id === evidenceId)?.exposureDefinition;
-  return (
-    <div className="optional" data-testid="glucose-section">
-      <button
-        type="button"
-        className="button button--secondary"
-        aria-expanded={open}
-        onClick={() => {
-          if (open) onMatchChange(null);
-          setOpen(!open);
-        }}
-      >
-        {open ? 'Close the glucose history' : 'Check the person’s glucose history against the study’s exposure'}
-      </button>
-      {open ? (
-        <Suspense fallback={<Loading what="the glucose history" />}>
-          <GlucoseHistory exposure={exposure} onMatchChange={onMatchChange} />
-        </Suspense>
-      ) : null}
-    </div>
-  );
-}
+export { GlucoseSection } from '@/app/components/glucose/GlucoseSection';
 
 interface LibrarySectionProps {
   readonly tables: readonly PopulationTable[];
