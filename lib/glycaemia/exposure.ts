@@ -3,7 +3,7 @@
  * ADA criteria at every yearly checkup for at least 3 years". An evidence entry may carry one;
  * a person's checkup history is then matched against it (see ./match.ts, issue "Glucose history").
  */
-import { z } from 'zod';
+import { z } from '../zod';
 
 export const CRITERIA_SETS = ['ADA', 'WHO', 'NICE'] as const;
 export type CriteriaSet = (typeof CRITERIA_SETS)[number];
