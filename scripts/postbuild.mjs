@@ -135,7 +135,7 @@ async function patchRoutesManifest(distDir, hashes) {
 }
 
 /** Bundles service-worker/sw.ts with the precache list in place of `self.__SW_MANIFEST`. */
-async function buildServiceWorker({ globDirectory, globPatterns, globIgnores, modifyURLPrefix, routes, outfile }) {
+async function buildServiceWorker({ globDirectory, globPatterns, globIgnores, dropUrls, modifyURLPrefix, rootRelative = false, routes, outfile }) {
   const { getManifest } = await import('@serwist/build');
   const templatedURLs = Object.fromEntries(Object.entries(routes).map(([url, file]) => [url, [file]]));
   const { manifestEntries, count, size, warnings } = await getManifest({
@@ -145,6 +145,14 @@ async function buildServiceWorker({ globDirectory, globPatterns, globIgnores, mo
     modifyURLPrefix,
     templatedURLs,
     maximumFileSizeToCacheInBytes: 5 * 1024 * 1024,
+    manifestTransforms: [
+      (manifest) => ({
+        manifest: manifest
+          .filter((entry) => !dropUrls?.test(entry.url))
+          .map((entry) => (rootRelative && !entry.url.startsWith('/') ? { ...entry, url: `/${entry.url}` } : entry)),
+        warnings: [],
+      }),
+    ],
   });
   if (warnings.length > 0) throw new BuildStepError(`service worker: ${warnings.join('; ')}`);
   const entries = manifestEntries ?? [];
@@ -193,8 +201,13 @@ export async function postbuild({ root = ROOT, staticExport = process.env.HUNDRE
     const sw = await buildServiceWorker({
       globDirectory: outDir,
       globPatterns: ['**/*'],
-      globIgnores: ['sw.js', '_headers', '**/*.map', '**/*.html', '**/*.txt'],
-      modifyURLPrefix: { '': '/' },
+      // Pages are listed by their address (templatedURLs), not as .html files; the router's .txt
+      // data files are never needed offline (a failed one falls back to loading the page).
+      globIgnores: ['sw.js', '_headers', '**/*.map'],
+      dropUrls: /\.(html|txt)$/,
+      // File paths under out/ become addresses from the root; page addresses already are.
+      modifyURLPrefix: {},
+      rootRelative: true,
       routes,
       outfile: join(outDir, 'sw.js'),
     });
