@@ -52,6 +52,8 @@ test('script-src allows inline scripts by hash only, and every inline script of 
 test('no Content Security Policy violation is logged on / (with a result and its charts) or /handout', async ({ page }) => {
   const violations = await watchViolations(page);
   await page.goto('/');
+  // The service worker is registered once the page has hydrated: wait for it before clicking.
+  await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
   await page.getByTestId('load-example').click();
   await expect(page.getByTestId('result')).toBeVisible();
   await expect(page.getByTestId('chart-horizon')).toBeVisible();

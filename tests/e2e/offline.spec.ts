@@ -38,6 +38,7 @@ async function serviceWorkerActive(page: Page): Promise<string> {
 async function visitOnce(page: Page, context: BrowserContext, baseURL: string | undefined): Promise<{ link: string; handout: string }> {
   await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: baseURL ?? '' });
   await page.goto('/');
+  // The worker is registered once the page has hydrated, so from here on typing reaches the form.
   expect(new URL(await serviceWorkerActive(page)).pathname).toBe('/sw.js');
   await fillTypedScenario(page);
   await expectScreenShows(page, TYPED_SCENARIO);
@@ -73,6 +74,7 @@ test('after one visit, a scenario link opens with the network off and shows the 
 
   const response = await page.goto(link);
   expect(response?.fromServiceWorker()).toBe(true);
+  await expect(page.getByTestId('result')).toBeVisible({ timeout: 60_000 }); // a busy machine hydrates slowly
   await expectScreenShows(page, TYPED_SCENARIO);
   // The demo data works offline too: the example fills in from the cached chunks and computes.
   await page.getByTestId('load-example').click();
@@ -90,7 +92,7 @@ test('after one visit, the handout opens with the network off and prints to one 
   const network = watchNetwork(page);
 
   await page.goto(handout);
-  await expect(page.getByTestId('handout-sheet')).toBeVisible();
+  await expect(page.getByTestId('handout-sheet')).toBeVisible({ timeout: 60_000 });
   const pdfPath = path.join(OUT, 'handout-offline.pdf');
   writeFileSync(pdfPath, await page.pdf({ preferCSSPageSize: true, printBackground: true }));
   expect(execFileSync('pdfinfo', [pdfPath]).toString()).toMatch(/^Pages:\s+1$/m);
