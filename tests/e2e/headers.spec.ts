@@ -7,7 +7,7 @@
 import { createHash } from 'node:crypto';
 import { expect, test, type Page } from '@playwright/test';
 
-test.describe.configure({ timeout: 60_000 });
+test.describe.configure({ timeout: 180_000 }); // generous: a busy machine hydrates slowly
 
 const SECURITY_HEADERS = ['content-security-policy', 'referrer-policy', 'x-content-type-options', 'x-frame-options', 'permissions-policy', 'cross-origin-opener-policy'];
 
