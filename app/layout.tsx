@@ -11,13 +11,10 @@ export const metadata: Metadata = {
   applicationName: 'Hundredfold',
   // The web app manifest and the app's own mark (public/, drawn by scripts/make-icons.mjs).
   manifest: '/manifest.webmanifest',
-  icons: {
-    icon: [
-      { url: '/favicon.ico', sizes: '16x16 32x32 48x48' },
-      { url: '/icon.svg', type: 'image/svg+xml' },
-    ],
-    apple: [{ url: '/apple-touch-icon.png', sizes: '180x180' }],
-  },
+  // The tab icon is /favicon.ico, which browsers ask for by default; no <link rel="icon">, because
+  // Chromium fetches a linked icon again each time the address changes (the scenario is written to
+  // the address as it is typed), which would be a request per keystroke.
+  icons: { apple: [{ url: '/apple-touch-icon.png', sizes: '180x180' }] },
 };
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#0e5a55' };
