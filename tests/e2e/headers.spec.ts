@@ -61,7 +61,7 @@ test('no Content Security Policy violation is logged on / (with a result and its
   expect(await violations.events()).toEqual([]);
 
   await page.getByTestId('prepare-handout').click();
-  await expect(page.getByTestId('handout-sheet')).toBeVisible();
+  await expect(page.getByTestId('handout-sheet')).toBeVisible({ timeout: 60_000 }); // a busy machine lays the sheet out slowly
   expect(await violations.events()).toEqual([]);
   expect(violations.console).toEqual([]);
 });
