@@ -12,9 +12,11 @@ import { absoluteRiskBars } from '@/lib/chart/absoluteRisk';
 import { describeRiskByHorizon, formatPercentValue, type RiskAtHorizon } from '@/lib/chart/riskByHorizon';
 import type { ComputeResult } from '@/lib/engine/types';
 import { intervalLabel } from '@/lib/wording/format';
+import { ICON_COLOURS } from '@/app/components/iconStyle';
 
-const BLUE = '#1f4e8a';
-const ORANGE = '#c05a00';
+/** The pictures' colours (iconStyle.ts): reference group teal, exposed group ochre. */
+const BLUE = ICON_COLOURS.event;
+const ORANGE = ICON_COLOURS.added;
 const INK = '#1b1f24';
 const GRID = '#d5d9df';
 

@@ -9,7 +9,7 @@
  * command line use) and {@link computeScenario} — and their issues are mapped back onto the form
  * fields, so every message the clinician sees is the engine's message for that field.
  */
-import { z } from 'zod';
+import { z } from '@/lib/zod';
 import { computeScenario } from '@/lib/engine/compute';
 import type { ComputeResult } from '@/lib/engine/types';
 import { fail, ok, type Issue, type Result } from '@/lib/result';

@@ -13,7 +13,7 @@
  * Dates: real calendar days from 1900-01-01 to today (today is passed in, for testability).
  * The schemas that check dates are therefore functions of {@link HistoryOptions}.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { CRITERIA_SETS } from './exposure';
 import { GLUCOSE_UNITS, type GlucoseUnit } from './glucose';
 import { HBA1C_UNITS, type Hba1cUnit } from './hba1c';

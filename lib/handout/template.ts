@@ -9,7 +9,7 @@
  * Every function here is pure: it returns a new list and never changes its input. The browser
  * storage wrapper is app/handout/templateStore.ts.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { fail, ok, type Issue, type Result } from '../result';
 import { toIssues } from '../scenario/issues';
 import { handoutBlocksSchema, type HandoutBlocks } from './blocks';

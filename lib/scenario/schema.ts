@@ -8,7 +8,7 @@
  *
  * Ranges are stated once here, with the reason for each bound. Risks are fractions.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 
 /** Allowed interval levels. The engine carries the level through; it does not re-estimate. */
 export const INTERVAL_LEVELS = [0.9, 0.95, 0.99] as const;

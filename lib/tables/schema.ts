@@ -20,7 +20,7 @@
  *
  * Numbers in a clinic's table come from its source; the schema only checks they are usable.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { fraction, MAX_TEXT, years } from '../scenario/schema';
 import { checkStrataLayout } from './bands';
 
