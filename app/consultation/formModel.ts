@@ -73,17 +73,23 @@ export const EMPTY_FORM_VALUES: ConsultationFormValues = {
   denominator: 'auto',
 };
 
-/** Everything the screen shows, made from valid form values. */
-export interface FormOutcome {
+/** The figures, made from valid numbers; the words may still be missing. */
+export interface FormFigures {
   readonly scenario: Scenario;
   readonly result: ComputeResult;
   /** The table and stratum the baseline was looked up in, when it was. */
   readonly table?: PopulationTable;
   readonly lookup?: StratumLookup;
-  /** Who "people like you" are, e.g. "women aged 40 to 49". */
-  readonly people: string;
   /** Who the figures are about and where they come from (lib/context), worked out once. */
   readonly context: ScenarioContext;
+  /** What the patient sentences and the handout still need, each on its form field. */
+  readonly wordsNeeded: readonly Issue[];
+}
+
+/** Everything the screen shows, made from valid form values with their words. */
+export interface FormOutcome extends FormFigures {
+  /** Who "people like you" are, e.g. "women aged 40 to 49". */
+  readonly people: string;
 }
 
 /**
@@ -199,15 +205,17 @@ function baselinePart(
 }
 
 /**
- * Valid form values → scenario and result; otherwise the issues, each on its form field.
+ * Valid numbers → scenario, result and context, with the words the patient sentences still
+ * need (`wordsNeeded`, each on its form field); otherwise the issues, each on its form field.
+ * The figures do not wait for the words: the screen shows them as soon as the numbers are valid.
  *
  * @param tables - the population tables the clinician can pick from
  * @example
- * formToOutcome({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
+ * formToFigures({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
  *   effect: { ...EMPTY_FORM_VALUES.effect, measure: 'RR', estimate: '1.5', lower: '1.2', upper: '1.9' } }, [])
- * //=> { ok: true, value: { scenario: { baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', … } }, result: { … } } }
+ * //=> { ok: true, value: { scenario: { baseline: { risk: 0.08, years: 10 }, … }, result: { … }, wordsNeeded: [{ code: 'population-required', … }, { code: 'outcome-required', … }] } }
  */
-export function formToOutcome(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormOutcome> {
+export function formToFigures(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormFigures> {
   const source = values.baselineSource;
   const base = baselinePart(values, tables);
   const { effect: e, wording: w } = values;
@@ -259,17 +267,32 @@ export function formToOutcome(values: ConsultationFormValues, tables: readonly P
   if (phraseText(scenario.wording?.outcome) === '') {
     textIssues.push({ code: 'outcome-required', path: ['wording', 'outcome'], message: OUTCOME_REQUIRED_MESSAGE });
   }
-  if (!people.ok || textIssues.length > 0) {
-    return fail(dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))));
-  }
   return ok({
     scenario,
     result,
     ...(table ? { table } : {}),
     ...(lookup ? { lookup } : {}),
-    people: people.value,
     context,
+    wordsNeeded: dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))),
   });
+}
+
+/**
+ * Valid form values with the words the sentences need → scenario and result; otherwise the
+ * issues, each on its form field (the figures' issues, else the missing words).
+ *
+ * @param tables - the population tables the clinician can pick from
+ * @example
+ * formToOutcome({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
+ *   effect: { ...EMPTY_FORM_VALUES.effect, measure: 'RR', estimate: '1.5', lower: '1.2', upper: '1.9' } }, [])
+ * //=> { ok: false, issues: [{ code: 'population-required', path: ['wording', 'population'], … }, { code: 'outcome-required', … }] }
+ */
+export function formToOutcome(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormOutcome> {
+  const figures = formToFigures(values, tables);
+  if (!figures.ok) return figures;
+  const { context, wordsNeeded } = figures.value;
+  if (!context.people.ok || wordsNeeded.length > 0) return fail(wordsNeeded);
+  return ok({ ...figures.value, people: context.people.value });
 }
 
 /**

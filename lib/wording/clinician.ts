@@ -9,6 +9,7 @@
  * §12.5.4.5); {@link ClinicianText.intervalNote} says so.
  */
 import type { ComputeResult } from '../engine/types';
+import { phraseText } from '../text';
 import type { Warning } from '../result';
 import type { Wording } from '../scenario/schema';
 import { formatCount, formatPercent, formatPercentagePoints, formatRatio, intervalLabel, overTheNext } from './format';
@@ -27,9 +28,7 @@ export interface ClinicianText {
 
 const MEASURE_NAMES = { OR: 'odds ratio', RR: 'risk ratio', HR: 'hazard ratio' } as const;
 
-function trimmed(text: string | undefined): string {
-  return (text ?? '').trim().replace(/[.\s]+$/, '');
-}
+const trimmed = phraseText;
 
 /**
  * @example
