@@ -12,6 +12,7 @@
  */
 import { useId, type ReactNode } from 'react';
 import { useFormContext, useFormState, useWatch, type FieldPath, type FieldValues, type RegisterOptions } from 'react-hook-form';
+import type { Choice } from './choices';
 import type { ConsultationFormValues } from './formModel';
 
 export type FieldName<T extends FieldValues = ConsultationFormValues> = FieldPath<T>;
@@ -123,12 +124,7 @@ export function TextField<T extends FieldValues = ConsultationFormValues>({ name
   );
 }
 
-export interface Choice {
-  readonly value: string;
-  readonly label: string;
-  /** One plain sentence saying what the choice means. */
-  readonly explanation?: string;
-}
+export type { Choice };
 
 interface ChoiceFieldProps<T extends FieldValues> extends CommonProps<T> {
   readonly choices: readonly Choice[];

@@ -14,23 +14,34 @@ import { computeScenario } from '@/lib/engine/compute';
 import type { ComputeResult } from '@/lib/engine/types';
 import { fail, ok, type Issue, type Result } from '@/lib/result';
 import { parseScenario } from '@/lib/scenario/parse';
-import { toIssues } from '@/lib/scenario/issues';
-import { EFFECT_MEASURES, personSchema, STUDY_DESIGNS, type Scenario } from '@/lib/scenario/schema';
+import { toIssues } from '@/lib/validation/issues';
+import { personSchema, type Scenario } from '@/lib/scenario/schema';
 import { lookupStratum, tableNeeds, type StratumLookup } from '@/lib/tables/lookup';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { scenarioContext, type ScenarioContext } from '@/lib/context';
+import {
+  ADJUSTED_CHOICES_FOR_FORM,
+  BASELINE_SOURCE_CHOICES,
+  choiceValues,
+  DENOMINATOR_CHOICES_FOR_FORM,
+  DESIGN_CHOICES,
+  LEVEL_CHOICES_FOR_FORM,
+  MEASURE_CHOICES,
+  SEX_CHOICES_FOR_FORM,
+} from './choices';
 import { numberFromText, optionalText, phraseText } from '@/lib/text';
 
 export { numberFromText };
 
 /** Where the baseline comes from: a bundled table, or one of the engine's three forms typed in. */
-export const BASELINE_SOURCES = ['table', 'risk', 'rate', 'population'] as const;
+export const BASELINE_SOURCES = choiceValues(BASELINE_SOURCE_CHOICES);
 export type BaselineSource = (typeof BASELINE_SOURCES)[number];
 
-export const DENOMINATOR_CHOICES = ['auto', '100', '1000'] as const;
-export const LEVEL_CHOICES = ['', '0.9', '0.95', '0.99'] as const;
-export const ADJUSTED_CHOICES = ['', 'yes', 'no'] as const;
-export const SEX_CHOICES = ['', 'female', 'male'] as const;
+// The zod enums are the values of the form's own choice lists (./choices.ts): one list each.
+export const DENOMINATOR_CHOICES = choiceValues(DENOMINATOR_CHOICES_FOR_FORM);
+export const LEVEL_CHOICES = choiceValues(LEVEL_CHOICES_FOR_FORM);
+export const ADJUSTED_CHOICES = choiceValues(ADJUSTED_CHOICES_FOR_FORM);
+export const SEX_CHOICES = choiceValues(SEX_CHOICES_FOR_FORM);
 
 /** The raw form: every field is text as typed, or the value of a choice ("" = not stated). */
 export const formInputSchema = z.object({
@@ -42,12 +53,12 @@ export const formInputSchema = z.object({
   populationBaseline: z.object({ populationRisk: z.string(), exposurePrevalence: z.string(), years: z.string() }),
   evidenceId: z.string(),
   effect: z.object({
-    measure: z.enum(['', ...EFFECT_MEASURES]),
+    measure: z.enum(['', ...choiceValues(MEASURE_CHOICES)]),
     estimate: z.string(),
     lower: z.string(),
     upper: z.string(),
     level: z.enum(LEVEL_CHOICES),
-    design: z.enum(['', ...STUDY_DESIGNS]),
+    design: z.enum(choiceValues(DESIGN_CHOICES)),
     followUpYears: z.string(),
     adjusted: z.enum(ADJUSTED_CHOICES),
   }),

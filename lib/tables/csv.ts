@@ -20,7 +20,7 @@
  */
 import Papa from 'papaparse';
 import type { Issue } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { idFromTitle } from './ids';
 import {
   StrataLayout,

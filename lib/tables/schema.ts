@@ -21,7 +21,7 @@
  * Numbers in a clinic's table come from its source; the schema only checks they are usable.
  */
 import { z } from 'zod';
-import { fraction, MAX_TEXT, years } from '../scenario/schema';
+import { fraction, MAX_TEXT, years } from '../validation/fields';
 
 /** Oldest age a band may reach, in years; also the end of an open top band (common practice). */
 export const MAX_AGE_YEARS = 120;

@@ -2,7 +2,7 @@
  * The clinician-side sentences: the risk ratio at this baseline, the risk difference in
  * percentage points and the number needed, each with its interval and with both absolute
  * risks beside it (relative figures never stand alone: Akl et al. 2011, Cochrane Database
- * Syst Rev CD006776; risk-communication guide). The engine's warnings are already plain
+ * Syst Rev CD006776). The engine's warnings are already plain
  * words for the clinician and pass through unchanged.
  *
  * The intervals hold the baseline fixed, so they ignore its uncertainty (Cochrane Handbook

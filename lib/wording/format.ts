@@ -94,5 +94,14 @@ export function formatRatio(ratio: number): string {
  * intervalLabel(0.9) //=> "90% CI"
  */
 export function intervalLabel(level: number): string {
-  return `${Math.round(level * 100)}% CI`;
+  return `${formatLevel(level)} CI`;
+}
+
+/**
+ * An interval level as a percentage: 0.95 → "95%".
+ * @example
+ * formatLevel(0.99) //=> "99%"
+ */
+export function formatLevel(level: number): string {
+  return `${Math.round(level * 100)}%`;
 }

@@ -4,7 +4,7 @@
  * mean, the caution and teach-back questions. Built only from a {@link ComputeResult}, the
  * scenario's {@link Wording}, the group phrase (./people.ts) and the horizon.
  *
- * Rules (shared/guides/risk-communication.md, each checked in tests/unit/wording):
+ * Rules (each with its published source; each checked in tests/unit/wording):
  * - natural frequencies, "N out of D", with the result's one denominator D (Gigerenzer &
  *   Hoffrage 1995, Psychol Rev 102:684; Trevena et al. 2013, BMC Med Inform Decis Mak
  *   13(Suppl 2):S7);
