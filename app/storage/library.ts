@@ -31,7 +31,7 @@ import { parseEvidenceEntry } from '@/lib/evidence/parse';
 import { evidenceEntrySchema, type EvidenceEntry } from '@/lib/evidence/schema';
 import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
 import { exportEvidenceJson, parseEvidenceJson } from '@/lib/evidence/file';
-import { toIssues } from '@/lib/scenario/issues';
+import { toIssues } from '@/lib/validation/issues';
 
 interface LibrarySchema extends DBSchema {
   tables: { key: string; value: StoredTable };
