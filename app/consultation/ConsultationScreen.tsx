@@ -21,6 +21,7 @@ import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { HistoryMatch } from '@/lib/glycaemia/match';
 import type { Issue, Warning } from '@/lib/result';
 import { DEMO_HEART_FAILURE_10Y, DEMO_TABLES } from '@/lib/tables/demo';
+import { SEE_RESULT, SEE_STILL_NEEDED } from '@/lib/wording/screen';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { BaselineSection } from './BaselineSection';
 import { EvidenceSection } from './EvidenceSection';
@@ -275,6 +276,9 @@ export function ConsultationScreen({
             <Settings />
           </form>
           <Glucose entries={allEntries} onMatchChange={setMatch} />
+          <a className="see-result" href="#result" data-testid="see-result">
+            {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
+          </a>
           <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
         </div>
         <div className="screen__result">

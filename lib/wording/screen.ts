@@ -108,3 +108,7 @@ export function tableFigureLine(baseline: RiskBaseline | RateBaseline, suggested
 export function tableNeedsLine(wanted: readonly string[]): string {
   return `Enter the person\u2019s ${wanted.join(' and ')} to look up the risk.`;
 }
+
+/** The sticky link to the result on narrow screens. */
+export const SEE_RESULT = 'See the result';
+export const SEE_STILL_NEEDED = 'See what is still needed';
