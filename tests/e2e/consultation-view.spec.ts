@@ -42,6 +42,7 @@ test('figures and pictures appear before the words; the words are asked for the 
   const scenario: Scenario = { baseline: TYPED_SCENARIO.baseline, effect: TYPED_SCENARIO.effect };
   await page.goto('/');
   await fillTypedScenario(page, scenario);
+  await expect(page.getByTestId('result')).toBeVisible({ timeout: 30_000 });
   await expectScreenShows(page, scenario);
   await expect(page.getByTestId('words-needed')).toContainText('outcome');
   await expect(page.getByTestId('count-reference-event')).toBeVisible();
@@ -50,6 +51,8 @@ test('figures and pictures appear before the words; the words are asked for the 
 
   // A link without wording (as `hundredfold link` makes) opens on the figures, not "No result yet".
   await page.goto(`/${scenarioQuery(scenario)}`);
+  // The link is read after hydration and the figures' chunk loads then: allow for a slow machine.
+  await expect(page.getByTestId('result')).toBeVisible({ timeout: 30_000 });
   await expectScreenShows(page, scenario);
   await expect(page.getByTestId('no-result')).toHaveCount(0);
 });
