@@ -9,7 +9,8 @@ import { lazy, Suspense, useState } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { PopulationTable } from '@/lib/tables/schema';
-import { formInputSchema, formToOutcome, type ConsultationFormValues } from './formModel';
+import type { Result } from '@/lib/result';
+import type { ConsultationFormValues, FormFigures } from './formModel';
 
 const LibraryPanel = lazy(() => import('./LibraryPanel'));
 
@@ -24,18 +25,19 @@ interface LibrarySectionProps {
   readonly entries: readonly EvidenceEntry[];
   readonly onUseTable: (table: PopulationTable) => void;
   readonly onUseEvidence: (entry: EvidenceEntry) => void;
+  /** The figures on screen (./pipeline.ts), computed once by the screen. */
+  readonly figures: Result<FormFigures>;
 }
 
-function OpenLibrary({ tables, entries, onUseTable, onUseEvidence }: LibrarySectionProps) {
+function OpenLibrary({ entries, onUseTable, onUseEvidence, figures }: LibrarySectionProps) {
   const { control } = useFormContext<ConsultationFormValues>();
-  const values = useWatch({ control });
-  const shaped = formInputSchema.safeParse(values);
-  const outcome = shaped.success ? formToOutcome(shaped.data, tables) : undefined;
-  const entry = shaped.success ? entries.find((e) => e.id === shaped.data.evidenceId) : undefined;
-  const current = outcome?.ok
+  const [tableId, evidenceId] = useWatch({ control, name: ['tableId', 'evidenceId'] });
+  const entry = entries.find((e) => e.id === evidenceId);
+  const current =
+    figures.ok && figures.value.wordsNeeded.length === 0
     ? {
-        effect: outcome.value.scenario.effect,
-        wording: outcome.value.scenario.wording,
+        effect: figures.value.scenario.effect,
+        wording: figures.value.scenario.wording,
         exposureDefinition: entry?.exposureDefinition,
         illustrative: entry?.illustrative === true,
       }
@@ -45,7 +47,7 @@ function OpenLibrary({ tables, entries, onUseTable, onUseEvidence }: LibrarySect
       <LibraryPanel
         onUseTable={onUseTable}
         onUseEvidence={onUseEvidence}
-        selectedTableId={shaped.success ? shaped.data.tableId : undefined}
+        selectedTableId={tableId}
         selectedEvidenceId={entry?.id}
         current={current}
       />

@@ -8,7 +8,11 @@ import { useState } from 'react';
 import { encodeScenarioLink, scenarioLinkIssues } from '@/lib/link';
 import type { Scenario } from '@/lib/scenario/schema';
 
-export function ShareBar({ scenario }: { scenario: Scenario }) {
+/**
+ * @param handoutAllowed - false while the patient sentences lack words or the result is capped
+ *   (lib/consultation/view.ts): then there is no handout to prepare.
+ */
+export function ShareBar({ scenario, handoutAllowed }: { scenario: Scenario; handoutAllowed: boolean }) {
   const [status, setStatus] = useState<{ text: string; link?: string }>({ text: '' });
   const path = encodeScenarioLink(scenario);
 
@@ -28,9 +32,11 @@ export function ShareBar({ scenario }: { scenario: Scenario }) {
         <button type="button" className="button" onClick={copy} data-testid="copy-link">
           Copy link
         </button>
-        <a className="button button--secondary" href={encodeScenarioLink(scenario, '/handout')} data-testid="prepare-handout">
-          Prepare handout
-        </a>
+        {handoutAllowed ? (
+          <a className="button button--secondary" href={encodeScenarioLink(scenario, '/handout')} data-testid="prepare-handout">
+            Prepare handout
+          </a>
+        ) : null}
       </div>
       {scenarioLinkIssues(scenario).map((issue) => (
         <p key={issue.path.join('.')} className="link-problem" data-testid="link-leaves-out">

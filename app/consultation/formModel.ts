@@ -14,20 +14,34 @@ import { computeScenario } from '@/lib/engine/compute';
 import type { ComputeResult } from '@/lib/engine/types';
 import { fail, ok, type Issue, type Result } from '@/lib/result';
 import { parseScenario } from '@/lib/scenario/parse';
-import { toIssues } from '@/lib/scenario/issues';
-import { EFFECT_MEASURES, personSchema, STUDY_DESIGNS, type Scenario } from '@/lib/scenario/schema';
+import { toIssues } from '@/lib/validation/issues';
+import { personSchema, type Scenario } from '@/lib/scenario/schema';
 import { lookupStratum, tableNeeds, type StratumLookup } from '@/lib/tables/lookup';
 import type { PopulationTable } from '@/lib/tables/schema';
-import { describePeople } from '@/lib/wording/people';
+import { scenarioContext, type ScenarioContext } from '@/lib/context';
+import {
+  ADJUSTED_CHOICES_FOR_FORM,
+  BASELINE_SOURCE_CHOICES,
+  choiceValues,
+  DENOMINATOR_CHOICES_FOR_FORM,
+  DESIGN_CHOICES,
+  LEVEL_CHOICES_FOR_FORM,
+  MEASURE_CHOICES,
+  SEX_CHOICES_FOR_FORM,
+} from './choices';
+import { numberFromText, optionalText, phraseText } from '@/lib/text';
+
+export { numberFromText };
 
 /** Where the baseline comes from: a bundled table, or one of the engine's three forms typed in. */
-export const BASELINE_SOURCES = ['table', 'risk', 'rate', 'population'] as const;
+export const BASELINE_SOURCES = choiceValues(BASELINE_SOURCE_CHOICES);
 export type BaselineSource = (typeof BASELINE_SOURCES)[number];
 
-export const DENOMINATOR_CHOICES = ['auto', '100', '1000'] as const;
-export const LEVEL_CHOICES = ['', '0.9', '0.95', '0.99'] as const;
-export const ADJUSTED_CHOICES = ['', 'yes', 'no'] as const;
-export const SEX_CHOICES = ['', 'female', 'male'] as const;
+// The zod enums are the values of the form's own choice lists (./choices.ts): one list each.
+export const DENOMINATOR_CHOICES = choiceValues(DENOMINATOR_CHOICES_FOR_FORM);
+export const LEVEL_CHOICES = choiceValues(LEVEL_CHOICES_FOR_FORM);
+export const ADJUSTED_CHOICES = choiceValues(ADJUSTED_CHOICES_FOR_FORM);
+export const SEX_CHOICES = choiceValues(SEX_CHOICES_FOR_FORM);
 
 /** The raw form: every field is text as typed, or the value of a choice ("" = not stated). */
 export const formInputSchema = z.object({
@@ -39,12 +53,12 @@ export const formInputSchema = z.object({
   populationBaseline: z.object({ populationRisk: z.string(), exposurePrevalence: z.string(), years: z.string() }),
   evidenceId: z.string(),
   effect: z.object({
-    measure: z.enum(['', ...EFFECT_MEASURES]),
+    measure: z.enum(['', ...choiceValues(MEASURE_CHOICES)]),
     estimate: z.string(),
     lower: z.string(),
     upper: z.string(),
     level: z.enum(LEVEL_CHOICES),
-    design: z.enum(['', ...STUDY_DESIGNS]),
+    design: z.enum(choiceValues(DESIGN_CHOICES)),
     followUpYears: z.string(),
     adjusted: z.enum(ADJUSTED_CHOICES),
   }),
@@ -70,13 +84,21 @@ export const EMPTY_FORM_VALUES: ConsultationFormValues = {
   denominator: 'auto',
 };
 
-/** Everything the screen shows, made from valid form values. */
-export interface FormOutcome {
+/** The figures, made from valid numbers; the words may still be missing. */
+export interface FormFigures {
   readonly scenario: Scenario;
   readonly result: ComputeResult;
   /** The table and stratum the baseline was looked up in, when it was. */
   readonly table?: PopulationTable;
   readonly lookup?: StratumLookup;
+  /** Who the figures are about and where they come from (lib/context), worked out once. */
+  readonly context: ScenarioContext;
+  /** What the patient sentences and the handout still need, each on its form field. */
+  readonly wordsNeeded: readonly Issue[];
+}
+
+/** Everything the screen shows, made from valid form values with their words. */
+export interface FormOutcome extends FormFigures {
   /** Who "people like you" are, e.g. "women aged 40 to 49". */
   readonly people: string;
 }
@@ -86,30 +108,6 @@ export interface FormOutcome {
  * codes; checking them here keeps the form from offering a result the sentences would refuse.
  */
 export const OUTCOME_REQUIRED_MESSAGE = 'The outcome is required in plain words, e.g. "heart failure needing hospital care"';
-
-function wordingText(text: string | undefined): string {
-  return (text ?? '').trim().replace(/[.\s]+$/, '');
-}
-
-/** A plain decimal as people type it: "0.08", ".08", "12", "1e-3"; a decimal comma is accepted. */
-const DECIMAL = /^[+-]?(\d+([.,]\d*)?|[.,]\d+)(e[+-]?\d+)?$/i;
-
-/**
- * Text to a number for the engine: blank → undefined (the schema then says "is required" or
- * leaves an optional field out), a decimal → its value, anything else → NaN (the schema then says
- * "must be a number"). Never guesses at text such as "12abc" or "0x10".
- */
-export function numberFromText(text: string): number | undefined {
-  const trimmed = text.trim();
-  if (trimmed === '') return undefined;
-  if (!DECIMAL.test(trimmed)) return Number.NaN;
-  return Number(trimmed.replace(',', '.'));
-}
-
-function optionalText(text: string): string | undefined {
-  const trimmed = text.trim();
-  return trimmed === '' ? undefined : trimmed;
-}
 
 /** Drops the keys whose value is undefined, so optional scenario fields stay absent. */
 export function defined<T extends Record<string, unknown>>(object: T): { [K in keyof T]?: Exclude<T[K], undefined> } {
@@ -169,6 +167,9 @@ function withPerson(values: ConsultationFormValues, part: BaselinePart): Result<
   return ok({ ...part, person: checked.value });
 }
 
+/** Risk and prevalence fields are proportions: "8%" there is read as 0.08 (lib/text/decimal.ts). */
+const PERCENT = { percent: true } as const;
+
 /** The baseline part of the scenario, from the chosen source. */
 function baselinePart(
   values: ConsultationFormValues,
@@ -178,14 +179,14 @@ function baselinePart(
     // Every key of the chosen form is kept, even when blank, so the engine reports each missing
     // field of that form ("… is required") rather than "the baseline must be one of …".
     case 'risk':
-      return withPerson(values, { baseline: { risk: numberFromText(values.riskBaseline.risk), years: numberFromText(values.riskBaseline.years) } });
+      return withPerson(values, { baseline: { risk: numberFromText(values.riskBaseline.risk, PERCENT), years: numberFromText(values.riskBaseline.years) } });
     case 'rate':
       return withPerson(values, { baseline: { rate: numberFromText(values.rateBaseline.rate), perPersonYears: numberFromText(values.rateBaseline.perPersonYears) } });
     case 'population':
       return withPerson(values, {
         baseline: {
-          populationRisk: numberFromText(values.populationBaseline.populationRisk),
-          exposurePrevalence: numberFromText(values.populationBaseline.exposurePrevalence),
+          populationRisk: numberFromText(values.populationBaseline.populationRisk, PERCENT),
+          exposurePrevalence: numberFromText(values.populationBaseline.exposurePrevalence, PERCENT),
           years: numberFromText(values.populationBaseline.years),
         },
       });
@@ -215,15 +216,17 @@ function baselinePart(
 }
 
 /**
- * Valid form values → scenario and result; otherwise the issues, each on its form field.
+ * Valid numbers → scenario, result and context, with the words the patient sentences still
+ * need (`wordsNeeded`, each on its form field); otherwise the issues, each on its form field.
+ * The figures do not wait for the words: the screen shows them as soon as the numbers are valid.
  *
  * @param tables - the population tables the clinician can pick from
  * @example
- * formToOutcome({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
+ * formToFigures({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
  *   effect: { ...EMPTY_FORM_VALUES.effect, measure: 'RR', estimate: '1.5', lower: '1.2', upper: '1.9' } }, [])
- * //=> { ok: true, value: { scenario: { baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', … } }, result: { … } } }
+ * //=> { ok: true, value: { scenario: { baseline: { risk: 0.08, years: 10 }, … }, result: { … }, wordsNeeded: [{ code: 'population-required', … }, { code: 'outcome-required', … }] } }
  */
-export function formToOutcome(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormOutcome> {
+export function formToFigures(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormFigures> {
   const source = values.baselineSource;
   const base = baselinePart(values, tables);
   const { effect: e, wording: w } = values;
@@ -269,22 +272,38 @@ export function formToOutcome(values: ConsultationFormValues, tables: readonly P
   const { table, lookup } = base.value;
   const scenario = parsed.value;
   const result = computed.value;
-  const ageBand = table && lookup && tableNeeds(table).age ? { fromYears: lookup.stratum.ageFrom, toYears: lookup.stratum.ageTo } : undefined;
-  const people = describePeople({ person: scenario.person, ageBand, population: scenario.wording?.population });
+  const context = scenarioContext(scenario, { table, lookup });
+  const people = context.people;
   const textIssues: Issue[] = people.ok ? [] : [...people.issues];
-  if (wordingText(scenario.wording?.outcome) === '') {
+  if (phraseText(scenario.wording?.outcome) === '') {
     textIssues.push({ code: 'outcome-required', path: ['wording', 'outcome'], message: OUTCOME_REQUIRED_MESSAGE });
-  }
-  if (!people.ok || textIssues.length > 0) {
-    return fail(dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))));
   }
   return ok({
     scenario,
     result,
     ...(table ? { table } : {}),
     ...(lookup ? { lookup } : {}),
-    people: people.value,
+    context,
+    wordsNeeded: dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))),
   });
+}
+
+/**
+ * Valid form values with the words the sentences need → scenario and result; otherwise the
+ * issues, each on its form field (the figures' issues, else the missing words).
+ *
+ * @param tables - the population tables the clinician can pick from
+ * @example
+ * formToOutcome({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
+ *   effect: { ...EMPTY_FORM_VALUES.effect, measure: 'RR', estimate: '1.5', lower: '1.2', upper: '1.9' } }, [])
+ * //=> { ok: false, issues: [{ code: 'population-required', path: ['wording', 'population'], … }, { code: 'outcome-required', … }] }
+ */
+export function formToOutcome(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormOutcome> {
+  const figures = formToFigures(values, tables);
+  if (!figures.ok) return figures;
+  const { context, wordsNeeded } = figures.value;
+  if (!context.people.ok || wordsNeeded.length > 0) return fail(wordsNeeded);
+  return ok({ ...figures.value, people: context.people.value });
 }
 
 /**

@@ -7,7 +7,7 @@ import type { Person } from '@/lib/scenario/schema';
 import { lookupStratum, tableNeeds } from '@/lib/tables/lookup';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { formatCount, formatPercent, formatYears } from '@/lib/wording/format';
-import { describePeople } from '@/lib/wording/people';
+import { scenarioContext } from '@/lib/context';
 import { checkedPerson, defined, numberFromText } from './formModel';
 
 export type TablePreview =
@@ -31,9 +31,8 @@ export function tablePreview(table: PopulationTable, person: { age: string; sex:
     const wanted = [needs.age ? 'age' : undefined, needs.sex ? 'sex' : undefined].filter((w) => w !== undefined).join(' and ');
     return { ok: false, message: missing ? `Enter the person’s ${wanted} to look up the risk.` : (found.issues[0]?.message ?? 'No group of the table fits') };
   }
-  const { stratum, baseline } = found.value;
-  const ageBand = needs.age ? { fromYears: stratum.ageFrom, toYears: stratum.ageTo } : undefined;
-  const group = describePeople({ person: candidate, ageBand });
+  const { baseline } = found.value;
+  const group = scenarioContext({ person: candidate, tableId: table.id }, { table, lookup: found.value }).people;
   const figure =
     'risk' in baseline
       ? `a risk of ${formatPercent(baseline.risk)} over ${formatYears(baseline.years)} years`

@@ -87,3 +87,13 @@ export function writeScenarioLink(pathAndFragment: string): void {
   // The snapshot is left as it was: what the screen wrote is not a link to read again.
   window.history.replaceState(window.history.state, '', pathAndFragment);
 }
+
+/**
+ * Leaves the scenario for an empty address as a new history entry ("Clear the form"), so Back
+ * brings the scenario back: the hook then reads the old fragment again, even the very link the
+ * page opened with.
+ */
+export function pushEmptyScenarioLink(path = '/'): void {
+  window.history.pushState(null, '', path);
+  refresh();
+}

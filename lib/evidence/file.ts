@@ -18,7 +18,7 @@
 import { z } from '../zod';
 import { capProblems } from '../files/problems';
 import { fail, ok, type Issue, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { evidenceEntrySchema, type EvidenceEntry } from './schema';
 
 export const EVIDENCE_FILE_FORMAT = 'hundredfold-evidence';

@@ -22,6 +22,7 @@
  * - icon counts round(P·D) with one denominator: Trevena et al. 2013, BMC Med Inform Decis Mak
  *   13(Suppl 2):S7; Galesic, Garcia-Retamero & Gigerenzer 2009, Health Psychol 28:210.
  */
+import { groupPhrase } from '../context/scenarioContext';
 import { referenceRiskFromPopulation } from '../engine/baseline';
 import { roundPeople } from '../engine/iconArray';
 import type { ComputeResult } from '../engine/types';
@@ -109,7 +110,7 @@ function baselineStep({ scenario, result, table, stratum }: ExplainInput): Expla
 }
 
 function tableSource(table: NonNullable<ExplainInput['table']>, stratum: Stratum | undefined): string {
-  const group = stratum ? `; group: ${stratum.sex === 'any' ? 'both sexes' : stratum.sex}, ages ${stratum.ageFrom} to ${stratum.ageTo >= 120 ? 'and over' : stratum.ageTo}` : '';
+  const group = stratum ? `; group: ${groupPhrase(stratum)}` : '';
   const said = /illustrative numbers, not from a real population/i.test(table.source);
   const note = table.illustrative && !said ? ' — illustrative numbers, not from a real population' : '';
   return `Table “${table.title}”: ${table.source} (${table.year})${group}${note}`;

@@ -9,7 +9,7 @@
  */
 import type { z } from 'zod';
 import { fail, ok, type Issue, type Result, type Warning } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import type { CriteriaSet } from './exposure';
 import type { ValueUnit } from './format';
 import { fpgReadingsAgree, hba1cReadingsAgree, readingText } from './merge';

@@ -3,18 +3,17 @@
  * sentences (lib/wording), where the numbers come from and the date. The page only lays this
  * out; it computes nothing.
  *
- * Who "people like you" are: the person's sex and the age band of the table stratum the
- * baseline came from ("women aged 50 to 59"), else the person's age, else the scenario's
- * population wording if it is short enough (lib/wording/people.ts). No identifier is ever
+ * Who "people like you" are and the source lines come from lib/context/scenarioContext.ts, the
+ * same function the consultation screen uses, so screen and paper always agree. No identifier is ever
  * part of a scenario, so none can reach the handout.
  */
 import { computeScenario } from '../engine/compute';
 import type { ComputeResult } from '../engine/types';
 import { fail, ok, type Result, type Warning } from '../result';
 import type { Scenario } from '../scenario/schema';
-import { lookupStratum } from '../tables/lookup';
+import { scenarioContext } from '../context';
 import type { PopulationTable } from '../tables/schema';
-import { describePeople, patientText, TEXT_LOCALE, type AgeBand, type PatientText } from '../wording';
+import { patientText, TEXT_LOCALE, type PatientText } from '../wording';
 
 export interface HandoutContent {
   readonly result: ComputeResult;
@@ -41,26 +40,9 @@ export function preparedOnLine(date: Date): string {
   return Number.isNaN(date.getTime()) ? 'Prepared today.' : `Prepared on ${dateFormat.format(date)}.`;
 }
 
-function ageBandFor(scenario: Scenario, table: PopulationTable | undefined): AgeBand | undefined {
-  if (!table || !scenario.person || table.id !== scenario.tableId) return undefined;
-  const found = lookupStratum(table, scenario.person);
-  if (!found.ok) return undefined;
-  // Only a band that really is a band: a table without ages has one 0–120 stratum.
-  const { ageFrom, ageTo } = found.value.stratum;
-  return ageFrom === 0 && ageTo >= 120 ? undefined : { fromYears: ageFrom, toYears: ageTo };
-}
-
-/** The "where the numbers come from" lines. */
+/** The "where the numbers come from" lines (lib/context/scenarioContext.ts writes them). */
 export function sourceLines(scenario: Scenario, table: PopulationTable | undefined): string[] {
-  const lines: string[] = [];
-  if (table && table.id === scenario.tableId) {
-    lines.push(`Risk for people like you: ${table.title}. Source: ${table.source} (${table.year}).`);
-  } else {
-    lines.push('Risk for people like you: entered by your clinician.');
-  }
-  const citation = scenario.wording?.citation?.trim();
-  lines.push(citation ? `Study: ${citation}.`.replace(/\.\.$/, '.') : 'Study: not named.');
-  return lines;
+  return [...scenarioContext(scenario, { table }).sourceLines];
 }
 
 /**
@@ -73,18 +55,15 @@ export function buildHandout(scenario: Scenario, options: HandoutOptions): Resul
   const computed = computeScenario(scenario);
   if (!computed.ok) return computed;
   const result = computed.value;
-  const people = describePeople({
-    person: scenario.person,
-    ageBand: ageBandFor(scenario, options.table),
-    population: scenario.wording?.population,
-  });
+  const context = scenarioContext(scenario, { table: options.table });
+  const people = context.people;
   if (!people.ok) return fail(people.issues);
   const text = patientText({ result, wording: scenario.wording, people: people.value, horizonYears: scenario.horizonYears ?? result.horizonYears });
   if (!text.ok) return fail(text.issues);
   return ok({
     result,
     text: text.value,
-    sources: sourceLines(scenario, options.table),
+    sources: context.sourceLines,
     preparedOn: preparedOnLine(options.date),
     clinicianWarnings: result.warnings,
   });

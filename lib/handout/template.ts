@@ -11,7 +11,7 @@
  */
 import { z } from '../zod';
 import { fail, ok, type Issue, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { handoutBlocksSchema, type HandoutBlocks } from './blocks';
 
 export const TEMPLATE_FILE_FORMAT = 'hundredfold-handout-templates';

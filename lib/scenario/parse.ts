@@ -4,7 +4,7 @@
  */
 import { fail, ok, type Issue, type Result } from '../result';
 import { BASELINE_FORM_KEYS, scenarioSchema, scenarioSchemaByForm, type Scenario } from './schema';
-import { pickUnionBranch, toIssues } from './issues';
+import { pickUnionBranch, toIssues } from '../validation/issues';
 
 const BASELINE_FORMS_MESSAGE =
   'The baseline must be one of: {"risk", "years"}, {"rate", "perPersonYears"} or {"populationRisk", "exposurePrevalence", "years"}';

@@ -9,6 +9,7 @@
  * Ranges are stated once here, with the reason for each bound. Risks are fractions.
  */
 import { z } from '../zod';
+import { fraction, MAX_RATIO, MAX_TEXT, MAX_YEARS, numberField, ratio, text, years } from '../validation/fields';
 
 /** Allowed interval levels. The engine carries the level through; it does not re-estimate. */
 export const INTERVAL_LEVELS = [0.9, 0.95, 0.99] as const;
@@ -31,43 +32,9 @@ export type EffectMeasure = (typeof EFFECT_MEASURES)[number];
 export const DENOMINATORS = [100, 1000] as const;
 export type Denominator = (typeof DENOMINATORS)[number];
 
-/** Longest horizon or follow-up accepted, in years: a human life span (common practice). */
-export const MAX_YEARS = 100;
-/** Largest ratio accepted: beyond this, a typing slip is far likelier than a real effect. */
-export const MAX_RATIO = 1000;
-/** Longest free-text field (wording, citation), in characters. */
-export const MAX_TEXT = 500;
-
-function numberField(what: string) {
-  return z.number({
-    error: (iss) => (iss.input === undefined ? `${what} is required` : `${what} must be a number`),
-  });
-}
-
-/** A probability strictly between 0 and 1. */
-export function fraction(what: string) {
-  return numberField(what)
-    .gt(0, { error: `${what} must be greater than 0 (risks are fractions: for 8% enter 0.08)` })
-    .lt(1, { error: `${what} must be less than 1 (risks are fractions: for 8% enter 0.08)` });
-}
-
-export function years(what: string) {
-  return numberField(what)
-    .gt(0, { error: `${what} must be greater than 0 years` })
-    .lte(MAX_YEARS, { error: `${what} must be at most ${MAX_YEARS} years` });
-}
-
-function ratio(what: string) {
-  return numberField(what)
-    .gt(0, { error: `${what} must be greater than 0 (ratios are positive)` })
-    .lte(MAX_RATIO, { error: `${what} must be at most ${MAX_RATIO}` });
-}
-
-function text(what: string) {
-  return z
-    .string({ error: `${what} must be text` })
-    .max(MAX_TEXT, { error: `${what} must be at most ${MAX_TEXT} characters` });
-}
+// The field builders and limits are shared by every schema in lib/ (lib/validation/fields.ts);
+// re-exported here for the modules that import them from the scenario.
+export { fraction, MAX_RATIO, MAX_TEXT, MAX_YEARS, years };
 
 /** A risk over a stated number of years in the reference (unexposed) group. */
 export const riskBaselineSchema = z.strictObject({

@@ -5,7 +5,7 @@
  */
 import { z } from '../zod';
 import { fail, ok, type Issue, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { populationTableSchema, tableForm, type PopulationTable, type TableForm } from '../tables/schema';
 import { evidenceEntrySchema, type EvidenceEntry } from '../evidence/schema';
 

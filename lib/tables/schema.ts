@@ -21,7 +21,7 @@
  * Numbers in a clinic's table come from its source; the schema only checks they are usable.
  */
 import { z } from '../zod';
-import { fraction, MAX_TEXT, years } from '../scenario/schema';
+import { fraction, MAX_TEXT, years } from '../validation/fields';
 import { checkStrataLayout } from './bands';
 
 /** The age-band tiling lives in bands.ts; re-exported here for existing importers. */

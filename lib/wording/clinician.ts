@@ -2,13 +2,14 @@
  * The clinician-side sentences: the risk ratio at this baseline, the risk difference in
  * percentage points and the number needed, each with its interval and with both absolute
  * risks beside it (relative figures never stand alone: Akl et al. 2011, Cochrane Database
- * Syst Rev CD006776; risk-communication guide). The engine's warnings are already plain
+ * Syst Rev CD006776). The engine's warnings are already plain
  * words for the clinician and pass through unchanged.
  *
  * The intervals hold the baseline fixed, so they ignore its uncertainty (Cochrane Handbook
  * §12.5.4.5); {@link ClinicianText.intervalNote} says so.
  */
 import type { ComputeResult } from '../engine/types';
+import { phraseText } from '../text';
 import type { Warning } from '../result';
 import type { Wording } from '../scenario/schema';
 import { formatCount, formatPercent, formatPercentagePoints, formatRatio, intervalLabel, overTheNext } from './format';
@@ -27,9 +28,7 @@ export interface ClinicianText {
 
 const MEASURE_NAMES = { OR: 'odds ratio', RR: 'risk ratio', HR: 'hazard ratio' } as const;
 
-function trimmed(text: string | undefined): string {
-  return (text ?? '').trim().replace(/[.\s]+$/, '');
-}
+const trimmed = phraseText;
 
 /**
  * @example

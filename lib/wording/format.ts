@@ -6,20 +6,12 @@
  * numbers; years may carry one decimal ("2.5 years").
  */
 
-/** The one locale patient text is written in. */
-export const TEXT_LOCALE = 'en';
+import { formatCount, plural, TEXT_LOCALE } from '../text';
 
-const countFormat = new Intl.NumberFormat(TEXT_LOCALE, { maximumFractionDigits: 0 });
+/** The locale, whole counts and plurals live in lib/text; re-exported here for the wording modules. */
+export { formatCount, plural, TEXT_LOCALE };
+
 const yearsFormat = new Intl.NumberFormat(TEXT_LOCALE, { maximumFractionDigits: 1 });
-
-/**
- * A whole count of people, grouped by thousands.
- * @example
- * formatCount(1000) //=> "1,000"
- */
-export function formatCount(count: number): string {
-  return countFormat.format(count);
-}
 
 /**
  * A number of years, at most one decimal.
@@ -28,15 +20,6 @@ export function formatCount(count: number): string {
  */
 export function formatYears(years: number): string {
   return yearsFormat.format(years);
-}
-
-/**
- * The singular or plural noun for a count: 1 takes the singular, every other count the plural.
- * @example
- * plural(1, 'person', 'people') //=> "person"
- */
-export function plural(count: number, singular: string, pluralForm: string): string {
-  return count === 1 ? singular : pluralForm;
 }
 
 /**
@@ -111,5 +94,14 @@ export function formatRatio(ratio: number): string {
  * intervalLabel(0.9) //=> "90% CI"
  */
 export function intervalLabel(level: number): string {
-  return `${Math.round(level * 100)}% CI`;
+  return `${formatLevel(level)} CI`;
+}
+
+/**
+ * An interval level as a percentage: 0.95 → "95%".
+ * @example
+ * formatLevel(0.99) //=> "99%"
+ */
+export function formatLevel(level: number): string {
+  return `${Math.round(level * 100)}%`;
 }

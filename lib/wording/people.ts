@@ -2,11 +2,12 @@
  * Who "people like you" are, in words: the group every patient sentence is about.
  *
  * Always state who the figures describe (Trevena et al. 2013, BMC Med Inform Decis Mak
- * 13(Suppl 2):S7; risk-communication guide). The phrase is built from what the baseline was
+ * 13(Suppl 2):S7). The phrase is built from what the baseline was
  * looked up for, never from identifiers:
  * - sex → "women" / "men" (under 18: "girls" / "boys"); unknown or "any" → "people";
- * - the table's age band → "aged 50 to 59" ("aged 80 and over" for an open top band);
- *   without a band, the person's age → "aged 53";
+ * - the table's age band → "aged 50 to 59" ("aged 80 and over" for an open top band;
+ *   nothing for a band spanning every age, lib/text/ages.ts); without a band, the person's
+ *   age → "aged 53";
  * - with neither sex nor age, a short population text the clinician wrote (e.g. "adults at a
  *   workplace health check") is used as it stands;
  * - with none of these there is no honest description, and the function refuses.
@@ -14,13 +15,9 @@
  */
 import { fail, ok, type Result } from '../result';
 import type { Person } from '../scenario/schema';
-import { formatCount } from './format';
+import { agedPhrase, formatCount, phraseText, type AgeBand } from '../text';
 
-/** An age band from a population table's stratum; `toYears` ≥ 120 means open-ended. */
-export interface AgeBand {
-  readonly fromYears: number;
-  readonly toYears: number;
-}
+export type { AgeBand };
 
 export interface PeopleInput {
   readonly person?: Person | undefined;
@@ -32,8 +29,6 @@ export interface PeopleInput {
 
 /** Longest population text accepted as the group phrase: it goes inside every sentence. */
 export const MAX_PEOPLE_PHRASE = 80;
-/** Top of the age range (years): a band reaching it is written "and over". */
-export const OPEN_AGE_YEARS = 120;
 
 function noun(sex: Person['sex'], age: number | undefined): string {
   const child = age !== undefined && age < 18;
@@ -44,11 +39,8 @@ function noun(sex: Person['sex'], age: number | undefined): string {
 
 function agePart(input: PeopleInput): string | undefined {
   const band = input.ageBand;
-  if (band) {
-    if (band.toYears >= OPEN_AGE_YEARS) return `aged ${formatCount(band.fromYears)} and over`;
-    if (band.fromYears === band.toYears) return `aged ${formatCount(band.fromYears)}`;
-    return `aged ${formatCount(band.fromYears)} to ${formatCount(band.toYears)}`;
-  }
+  // A band that spans every age says nothing about age (never "aged 0 and over").
+  if (band) return agedPhrase(band);
   const age = input.person?.age;
   return age === undefined ? undefined : `aged ${formatCount(age)}`;
 }
@@ -69,7 +61,7 @@ export function describePeople(input: PeopleInput): Result<string> {
     const ageYears = input.ageBand?.toYears ?? input.person?.age;
     return ok([noun(sex, ageYears), age].filter((part) => part !== undefined).join(' '));
   }
-  const population = input.population?.trim().replace(/[.\s]+$/, '') ?? '';
+  const population = phraseText(input.population);
   if (population.length === 0) {
     return fail([
       {
