@@ -198,3 +198,23 @@ export function importTemplates(list: readonly HandoutTemplate[], fileText: stri
   }
   return ok({ templates, added, renamed });
 }
+
+/** What the template panel says after each action, in one place. */
+export const TEMPLATE_MESSAGES = {
+  using: (name: string) => `Using the template "${name}".`,
+  saved: (name: string) => `Saved the template "${name.trim()}".`,
+  renamed: (from: string, to: string) => `Renamed "${from}" to "${to.trim()}".`,
+  deleted: (name: string) => `Deleted the template "${name}".`,
+  exported: 'Exported the saved templates as a JSON file.',
+  importRefused: 'The file was not imported; nothing saved was changed.',
+  storageUnavailable: 'This browser does not allow saved templates here',
+  /**
+   * @example
+   * TEMPLATE_MESSAGES.imported({ added: ['A', 'B (2)'], renamed: [{ from: 'B', to: 'B (2)' }] })
+   * //=> 'Imported 2 templates. "B" was saved as "B (2)" because the name was taken.'
+   */
+  imported: (outcome: Pick<ImportOutcome, 'added' | 'renamed'>) =>
+    `Imported ${outcome.added.length} template${outcome.added.length === 1 ? '' : 's'}.${outcome.renamed
+      .map((n) => ` "${n.from}" was saved as "${n.to}" because the name was taken.`)
+      .join('')}`,
+} as const;

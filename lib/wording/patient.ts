@@ -37,6 +37,11 @@ export interface PatientTextInput {
   readonly people: string | undefined;
   /** The horizon the page speaks of, in years. Required; must equal `result.horizonYears`. */
   readonly horizonYears: number | undefined;
+  /**
+   * Who reads the text: one person ("women aged 50 to 59 like you", the default) or a class in
+   * a group session, where no one reader is "like" the group, so "like you" is left out.
+   */
+  readonly audience?: 'person' | 'group' | undefined;
 }
 
 export type LegendKind = IconKind | 'uncertain';
@@ -132,9 +137,9 @@ function nonEventsSentence(count: number, denominator: number, risk: number): st
   return `The other ${formatCount(denominator - count)} out of ${d} will not.`;
 }
 
-function groupSentence(lead: string, people: string, who: string, count: number, denominator: number, risk: number, outcome: string, horizonYears: number): string {
+function groupSentence(lead: string, people: string, likeYou: string, who: string, count: number, denominator: number, risk: number, outcome: string, horizonYears: number): string {
   return [
-    `${lead} ${formatCount(denominator)} ${people} like you.`,
+    `${lead} ${formatCount(denominator)} ${people}${likeYou}.`,
     who,
     `${capitalise(inTheNext(horizonYears))}, ${eventsOutOf(count, denominator, risk)} will have ${outcome}.`,
     nonEventsSentence(count, denominator, risk),
@@ -225,6 +230,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
   const { result } = input;
   const horizonYears = result.horizonYears;
   const people = clean(input.people);
+  const likeYou = input.audience === 'group' ? '' : ' like you';
   const outcome = clean(input.wording?.outcome);
   const exposure = clean(input.wording?.exposure) || DEFAULT_EXPOSURE;
   const comparison = clean(input.wording?.comparison);
@@ -240,8 +246,8 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
   // Short sentences: who the group is, then what it has, then the two frames.
   const referenceWho = comparison ? `All of them have ${comparison}.` : `None of them have ${exposure}.`;
   const exposedWho = `All of them have ${exposure}.`;
-  const referenceSentence = groupSentence('Think of', people, referenceWho, counts.referenceEvents, D, result.referenceRisk, outcome, horizonYears);
-  const exposedSentence = groupSentence('Now think of', people, exposedWho, counts.exposedEvents, D, result.exposedRisk.estimate, outcome, horizonYears);
+  const referenceSentence = groupSentence('Think of', people, likeYou, referenceWho, counts.referenceEvents, D, result.referenceRisk, outcome, horizonYears);
+  const exposedSentence = groupSentence('Now think of', people, likeYou, exposedWho, counts.exposedEvents, D, result.exposedRisk.estimate, outcome, horizonYears);
 
   const diff = counts.exposedEvents - counts.referenceEvents;
   const direction = diff > 0 ? 'more' : diff < 0 ? 'fewer' : 'same';
@@ -294,7 +300,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
 
   const means = [
     `Each figure in the pictures stands for one person.`,
-    `The numbers are for a large group of people like you. They are not about you alone.`,
+    `The numbers are for a large group of people${likeYou}. They are not about you alone.`,
   ];
   const doesNotMean = [
     `They cannot tell what will happen to you. No one can say which people in the group will have it.`,
@@ -308,7 +314,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
     denominator: D,
     horizonYears,
     people,
-    groupLine: `${capitalise(people)} like you, ${time}`,
+    groupLine: `${capitalise(people)}${likeYou}, ${time}`,
     outcome,
     exposure,
     comparisonGroup,
@@ -322,7 +328,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
     reference,
     exposed,
     dataTable: {
-      caption: `Out of ${d} ${people} like you, ${time}`,
+      caption: `Out of ${d} ${people}${likeYou}, ${time}`,
       headers: { group: 'Group', willHave: `Will have ${outcome}`, willNotHave: 'Will not' },
       rows: [
         row(comparisonGroup, counts.referenceEvents, result.referenceRisk),
@@ -334,7 +340,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
     caution: CAUTION_TEXT,
     teachBackIntro: 'Try to answer these in your own words. They check how well we explained things. They are not a test of you.',
     teachBack: [
-      `Out of ${d} people like you, about how many will have ${outcome} ${inTheNext(horizonYears)}?`,
+      `Out of ${d} people${likeYou || ' in this group'}, about how many will have ${outcome} ${inTheNext(horizonYears)}?`,
       `What is the difference for people ${exposedGroup}?`,
       `What can these numbers not tell us about you?`,
     ],

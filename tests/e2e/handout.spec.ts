@@ -114,7 +114,7 @@ test('axe finds no WCAG 2.2 AA violation on /handout (result and error states)',
 test('the reading grade updates as the educator types, and the numbers are not editable', async ({ page }) => {
   await openHandout(page, demoScenario(60));
   const opening = page.getByLabel('Opening words', { exact: true });
-  await expect(page.getByText(/^Reading grade [\d.]+ \(aim for 8 or below\)/).nth(1)).toBeVisible();
+  await expect(page.getByText(/^Flesch–Kincaid grade [\d.]+ \(aim for 8 or below\)/).nth(1)).toBeVisible();
   await expect(page.getByText('Above grade 8', { exact: false })).toHaveCount(0);
   await opening.fill('Comprehensive cardiometabolic characterisation necessitates individualised interpretation.');
   await expect(page.getByText('Above grade 8', { exact: false })).toBeVisible();

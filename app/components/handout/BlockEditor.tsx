@@ -1,33 +1,27 @@
 'use client';
 /**
  * One editable block of the handout (title, opening words, next steps) with its reading grade,
- * worked out live by lib/readability and announced politely. Above grade 8 it warns.
+ * worked out live in lib/handout/sheet.ts (`readability.blocks`) and announced politely. Above
+ * grade 8 it warns.
  */
 import { useId } from 'react';
-import { BLOCK_LABELS, MAX_BLOCK_CHARS, MAX_TITLE_CHARS, type BlockReadability, type HandoutBlockKey } from '@/lib/handout';
-import { MAX_GRADE } from '@/lib/readability';
+import { BLOCK_LABELS, MAX_BLOCK_CHARS, MAX_TITLE_CHARS, type BlockGrade, type HandoutBlockKey } from '@/lib/handout';
 
 export interface BlockEditorProps {
   readonly blockKey: HandoutBlockKey;
   readonly value: string;
-  readonly score: BlockReadability | undefined;
+  /** The block's grade line and warning, from the sheet's view model. */
+  readonly grade: BlockGrade | undefined;
   readonly onChange: (value: string) => void;
 }
 
-function gradeText(score: BlockReadability | undefined): string {
-  if (!score) return '';
-  if (!score.score.ok) return 'No words yet, so no reading grade.';
-  const { grade, readingEase } = score.score.value;
-  return `Reading grade ${grade.toFixed(1)} (aim for ${MAX_GRADE} or below); reading ease ${readingEase.toFixed(0)}.`;
-}
-
-export function BlockEditor({ blockKey, value, score, onChange }: BlockEditorProps) {
+export function BlockEditor({ blockKey, value, grade, onChange }: BlockEditorProps) {
   const id = useId();
   const inputId = `${id}-input`;
   const gradeId = `${id}-grade`;
   const warnId = `${id}-warn`;
   const label = BLOCK_LABELS[blockKey];
-  const above = score?.aboveTarget === true;
+  const above = grade?.warning !== undefined;
   const describedBy = above ? `${gradeId} ${warnId}` : gradeId;
   return (
     <div className="block-editor">
@@ -54,11 +48,11 @@ export function BlockEditor({ blockKey, value, score, onChange }: BlockEditorPro
         />
       )}
       <p id={gradeId} className="block-editor__grade" aria-live="polite">
-        {gradeText(score)}
+        {grade?.line ?? ''}
       </p>
       {above ? (
         <p id={warnId} className="block-editor__warn" role="status">
-          Above grade {MAX_GRADE}: try shorter sentences and everyday words.
+          {grade?.warning}
         </p>
       ) : null}
     </div>

@@ -7,28 +7,30 @@
  */
 import { useEffect, useMemo, useRef, useState } from 'react';
 import Link from 'next/link';
+import { loadHistoryForHandout } from '@/app/handout/historyHandOver';
 import { createTemplateStore, type TemplateStore } from '@/app/handout/templateStore';
 import {
-  blockReadability,
-  buildHandout,
   DEFAULT_BLOCKS,
+  HANDOUT_AUDIENCE_KEYS,
+  HANDOUT_AUDIENCES,
   HANDOUT_BLOCK_KEYS,
-  PAGE_MARGIN_MM,
-  pageRule,
+  HANDOUT_LAYOUT_KEYS,
+  HANDOUT_LAYOUTS,
+  handoutPageView,
   PAPER_SIZE_KEYS,
   PAPER_SIZES,
+  requestedTableId,
+  TEMPLATE_MESSAGES,
   type Clinic,
+  type HandoutAudience,
   type HandoutBlocks,
+  type HandoutLayout,
   type HandoutTemplate,
   type PaperSize,
 } from '@/lib/handout';
-import { decodeScenarioQuery } from '@/lib/link';
-import { MAX_GRADE, readability } from '@/lib/readability';
 import type { Issue } from '@/lib/result';
-import { formatPath } from '@/lib/result';
 import { findDemoTable } from '@/lib/tables/demo';
 import type { PopulationTable } from '@/lib/tables/schema';
-import { patientProse } from '@/lib/wording';
 import { BlockEditor } from './BlockEditor';
 import { HandoutSheet } from './HandoutSheet';
 import { TemplatePanel } from './TemplatePanel';
@@ -57,19 +59,6 @@ function download(fileName: string, text: string) {
   URL.revokeObjectURL(url);
 }
 
-function IssueList({ issues }: { issues: readonly Issue[] }) {
-  return (
-    <ul>
-      {issues.map((issue, i) => (
-        <li key={`${issue.code}-${i}`}>
-          {issue.message}
-          {issue.path.length > 0 ? ` (${formatPath(issue.path)})` : ''}
-        </li>
-      ))}
-    </ul>
-  );
-}
-
 /**
  * A population table the clinic saved in this browser, looked up by id when the scenario names
  * one that is not a demo table, so the handout can say where the baseline came from. Undefined
@@ -93,92 +82,100 @@ function useLibraryTable(tableId: string | undefined): PopulationTable | undefin
   return found !== undefined && found.id === tableId ? found.table : undefined;
 }
 
+/** Millimetres to CSS pixels (CSS Values 4: 1in = 96px = 25.4mm). */
+const PX_PER_MM = 96 / 25.4;
+
 export function HandoutScreen({ query }: HandoutScreenProps) {
   const [blocks, setBlocks] = useState<HandoutBlocks>(DEFAULT_BLOCKS);
   const [clinic, setClinic] = useState<Clinic>({});
   const [paper, setPaper] = useState<PaperSize>('a4');
+  const [layout, setLayout] = useState<HandoutLayout>('standard');
+  const [audience, setAudience] = useState<HandoutAudience>('person');
+  const [includeHistory, setIncludeHistory] = useState(true);
+  const [storedHistory, setStoredHistory] = useState<string | null>(null);
   const [templates, setTemplates] = useState<readonly HandoutTemplate[]>([]);
   const [loadIssues, setLoadIssues] = useState<readonly Issue[]>([]);
   const [today] = useState(() => new Date());
 
-  const decoded = useMemo(() => decodeScenarioQuery(query), [query]);
-  const tableId = decoded.ok ? decoded.value.tableId : undefined;
-  const libraryTable = useLibraryTable(tableId);
-  const content = useMemo(() => {
-    if (!decoded.ok) return decoded;
-    const table = decoded.value.tableId ? (findDemoTable(decoded.value.tableId) ?? libraryTable) : undefined;
-    return buildHandout(decoded.value, { table, date: today });
-  }, [decoded, today, libraryTable]);
-  const scores = useMemo(() => blockReadability(blocks), [blocks]);
-  const wholeGrade = useMemo(() => {
-    if (!content.ok) return undefined;
-    const r = readability([blocks.title, blocks.opening, patientProse(content.value.text), blocks.nextSteps].join('\n'));
-    return r.ok ? r.value.grade : undefined;
-  }, [content, blocks]);
+  const libraryTable = useLibraryTable(useMemo(() => requestedTableId(query), [query]));
+  const view = useMemo(
+    () =>
+      handoutPageView(
+        query,
+        { blocks, clinic },
+        { date: today, paper, layout, audience, tableFor: (id) => findDemoTable(id) ?? (libraryTable?.id === id ? libraryTable : undefined), storedHistory, includeHistory },
+      ),
+    [query, blocks, clinic, today, paper, layout, audience, libraryTable, storedHistory, includeHistory],
+  );
+  const sheet = view.kind === 'sheet' ? view.sheet : undefined;
 
   // Does the sheet fit one page? The preview is laid out at the paper's printable width, so its
   // height (less the data table, which print hides) against the printable height says so.
   const frameRef = useRef<HTMLDivElement>(null);
   const [overflows, setOverflows] = useState(false);
+  const printableHeightMm = sheet?.paper.printableHeightMm;
   useEffect(() => {
     const frame = frameRef.current;
-    const sheet = frame?.querySelector<HTMLElement>('.sheet');
-    if (!frame || !sheet || typeof ResizeObserver === 'undefined') return;
-    const pxPerMm = 96 / 25.4;
+    const element = frame?.querySelector<HTMLElement>('.sheet');
+    if (!frame || !element || printableHeightMm === undefined || typeof ResizeObserver === 'undefined') return;
     const measure = () => {
-      const table = sheet.querySelector<HTMLElement>('.sheet__table');
-      const printed = sheet.getBoundingClientRect().height - (table ? table.getBoundingClientRect().height : 0);
-      const available = (PAPER_SIZES[paper].heightMm - 2 * PAGE_MARGIN_MM) * pxPerMm;
-      setOverflows(printed > available);
+      const table = element.querySelector<HTMLElement>('.sheet__table');
+      const printed = element.getBoundingClientRect().height - (table ? table.getBoundingClientRect().height : 0);
+      setOverflows(printed > printableHeightMm * PX_PER_MM);
     };
     const observer = new ResizeObserver(measure);
-    observer.observe(sheet);
+    observer.observe(element);
     return () => observer.disconnect();
-  }, [paper, content]);
+  }, [printableHeightMm, view]);
 
   useEffect(() => {
+    // Browser storage is only there after the first render (not on the server).
+    // eslint-disable-next-line react-hooks/set-state-in-effect
+    setStoredHistory(loadHistoryForHandout());
     const store = browserStore();
     if (!store) return;
     const loaded = store.load();
-    // Reading browser storage can only happen after the first render (it is not there on the server).
-    // eslint-disable-next-line react-hooks/set-state-in-effect
     if (loaded.ok) setTemplates(loaded.value);
     else setLoadIssues(loaded.issues);
   }, []);
 
   function withStore<T>(run: (store: TemplateStore) => { message?: string; issues?: readonly Issue[]; list?: readonly HandoutTemplate[] } & T) {
     const store = browserStore();
-    if (!store) return { issues: [{ code: 'storage-unavailable', path: [], message: 'This browser does not allow saved templates here' }] };
+    if (!store) return { issues: [{ code: 'storage-unavailable', path: [], message: TEMPLATE_MESSAGES.storageUnavailable }] };
     const outcome = run(store);
     if (outcome.list) setTemplates(outcome.list);
     return outcome;
   }
 
-  const backHref = `/${query.startsWith('#') ? query : query ? `#${query.replace(/^\?/, '')}` : ''}`;
-
-  if (!content.ok) {
+  if (view.kind === 'problem') {
+    const { problem } = view;
     return (
       <main className="handout-page">
-        <div className="controls">
+        <div className="controls" data-testid="handout-problem" data-problem={problem.kind}>
           <h1>Handout</h1>
           <div role="alert" className="controls__issues">
-            <p>The handout cannot be made from this link:</p>
-            <IssueList issues={content.issues} />
+            <p>{problem.heading}</p>
+            <ul>
+              {problem.details.map((line) => (
+                <li key={line}>{line}</li>
+              ))}
+            </ul>
           </div>
+          <p>{problem.whatToDo}</p>
           <p>
-            <Link href={backHref}>Back to the consultation screen</Link> to fill in what is missing.
+            <Link href={view.backHref}>Back to the consultation screen</Link>
           </p>
         </div>
       </main>
     );
   }
 
+  const { sheet: s, history } = view;
   const setBlock = (key: keyof HandoutBlocks) => (value: string) => setBlocks((b) => ({ ...b, [key]: value }));
-  const titleEmpty = blocks.title.trim().length === 0;
 
   return (
     <main className="handout-page">
-      <style>{`${pageRule(paper)}`}</style>
+      <style>{s.paper.pageRule}</style>
       <div className="controls" data-testid="handout-controls">
         <h1>Prepare the handout</h1>
         <p className="controls__hint">
@@ -186,7 +183,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
           the patient&rsquo;s name or any detail that identifies them.
         </p>
         <p>
-          <Link href={backHref}>Back to the consultation screen</Link>
+          <Link href={view.backHref}>Back to the consultation screen</Link>
         </p>
 
         <fieldset className="controls__paper">
@@ -198,32 +195,61 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
             </label>
           ))}
         </fieldset>
+        <fieldset>
+          <legend>Who it is for</legend>
+          {HANDOUT_AUDIENCE_KEYS.map((key) => (
+            <label key={key} className="controls__radio controls__radio--block">
+              <input type="radio" name="audience" value={key} checked={audience === key} onChange={() => setAudience(key)} />
+              {HANDOUT_AUDIENCES[key].label}
+            </label>
+          ))}
+        </fieldset>
+        <fieldset>
+          <legend>Pictures</legend>
+          {HANDOUT_LAYOUT_KEYS.map((key) => (
+            <label key={key} className="controls__radio controls__radio--block">
+              <input type="radio" name="layout" value={key} checked={layout === key} onChange={() => setLayout(key)} />
+              {HANDOUT_LAYOUTS[key].label}
+            </label>
+          ))}
+        </fieldset>
+        {history.state !== 'none' ? (
+          <fieldset>
+            <legend>The person&rsquo;s own results</legend>
+            <p className="controls__hint" role="status">
+              {history.message}
+            </p>
+            {history.state === 'available' ? (
+              <label className="controls__radio controls__radio--block">
+                <input type="checkbox" checked={includeHistory} disabled={audience === 'group'} onChange={(e) => setIncludeHistory(e.target.checked)} />
+                Print them on the handout{audience === 'group' ? ' (not on a group session\u2019s sheet)' : ''}
+              </label>
+            ) : null}
+          </fieldset>
+        ) : null}
         <p>
           <button type="button" className="controls__print" onClick={() => window.print()}>
             Print or save as PDF
           </button>
         </p>
         <p className="block-editor__warn" aria-live="polite">
-          {overflows ? `The handout may run onto a second ${PAPER_SIZES[paper].label} page: shorten the opening words or the next steps.` : ''}
+          {overflows ? s.paper.overflowWarning : ''}
         </p>
 
         <fieldset>
           <legend>Text you can edit</legend>
           {HANDOUT_BLOCK_KEYS.map((key) => (
-            <BlockEditor key={key} blockKey={key} value={blocks[key]} score={scores.find((s) => s.key === key)} onChange={setBlock(key)} />
+            <BlockEditor key={key} blockKey={key} value={blocks[key]} grade={s.readability.blocks.find((g) => g.key === key)} onChange={setBlock(key)} />
           ))}
-          {titleEmpty ? (
+          {s.titleWarning ? (
             <p className="block-editor__warn" role="status">
-              The title is empty: the page prints without one.
+              {s.titleWarning}
             </p>
           ) : null}
           <p className="controls__status" aria-live="polite">
-            {wholeGrade === undefined
-              ? ''
-              : `Whole handout: reading grade ${wholeGrade.toFixed(1)}${wholeGrade > MAX_GRADE ? `, above ${MAX_GRADE}` : ''}.`}
+            {s.readability.whole}
           </p>
         </fieldset>
-
         <fieldset>
           <legend>Clinic details (optional)</legend>
           <div className="block-editor">
@@ -252,24 +278,24 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
           onUse={(t) => {
             setBlocks(t.blocks);
             setClinic(t.clinic);
-            return `Using the template "${t.name}".`;
+            return TEMPLATE_MESSAGES.using(t.name);
           }}
           onSave={(name) =>
             withStore((store) => {
               const r = store.save({ name, blocks, clinic });
-              return r.ok ? { list: r.value, message: `Saved the template "${name.trim()}".` } : { issues: r.issues };
+              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.saved(name) } : { issues: r.issues };
             })
           }
           onRename={(from, to) =>
             withStore((store) => {
               const r = store.rename(from, to);
-              return r.ok ? { list: r.value, message: `Renamed "${from}" to "${to.trim()}".` } : { issues: r.issues };
+              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.renamed(from, to) } : { issues: r.issues };
             })
           }
           onDelete={(name) =>
             withStore((store) => {
               const r = store.remove(name);
-              return r.ok ? { list: r.value, message: `Deleted the template "${name}".` } : { issues: r.issues };
+              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.deleted(name) } : { issues: r.issues };
             })
           }
           onExport={() =>
@@ -277,25 +303,24 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
               const r = store.exportFile();
               if (!r.ok) return { issues: r.issues };
               download('hundredfold-handout-templates.json', r.value);
-              return { message: 'Exported the saved templates as a JSON file.' };
+              return { message: TEMPLATE_MESSAGES.exported };
             })
           }
           onImport={(text) =>
             withStore((store) => {
               const r = store.importFile(text);
-              if (!r.ok) return { issues: r.issues, message: 'The file was not imported; nothing saved was changed.' };
-              const renamed = r.value.renamed.map((n) => ` "${n.from}" was saved as "${n.to}" because the name was taken.`).join('');
-              return { list: r.value.templates, message: `Imported ${r.value.added.length} template${r.value.added.length === 1 ? '' : 's'}.${renamed}` };
+              if (!r.ok) return { issues: r.issues, message: TEMPLATE_MESSAGES.importRefused };
+              return { list: r.value.templates, message: TEMPLATE_MESSAGES.imported(r.value) };
             })
           }
         />
 
-        {content.value.clinicianWarnings.length > 0 ? (
+        {s.clinicianNotes.items.length > 0 ? (
           <section className="controls__warnings" aria-labelledby="clinician-notes">
-            <h2 id="clinician-notes">Notes for the clinician (not printed)</h2>
+            <h2 id="clinician-notes">{s.clinicianNotes.heading}</h2>
             <ul>
-              {content.value.clinicianWarnings.map((w) => (
-                <li key={w.code}>{w.message}</li>
+              {s.clinicianNotes.items.map((w) => (
+                <li key={w}>{w}</li>
               ))}
             </ul>
           </section>
@@ -303,7 +328,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
       </div>
 
       <div ref={frameRef} className={`sheet-frame sheet-frame--${paper}`} data-paper={paper}>
-        <HandoutSheet content={content.value} blocks={blocks} clinic={clinic} />
+        <HandoutSheet sheet={s} />
       </div>
     </main>
   );

@@ -1,135 +1,143 @@
 /**
  * The printed page: everything a patient takes home, laid out for one sheet of A4 or US Letter.
- * It only lays out what lib/handout and lib/wording made; nothing here computes a number.
- * The numbers, the sentences and the caution are not editable; the title, the opening words,
- * the next steps and the clinic details come from the editor.
+ * It only renders the view model of lib/handout/sheet.ts (`handoutSheet`); nothing here
+ * computes a number or builds a sentence. The numbers, the sentences and the caution are not
+ * editable; the title, the opening words, the next steps and the clinic details come from the
+ * editor through that view model.
  */
-import { IconArray } from '@/app/components/IconArray';
-import { IconLegend, type IconLegendEntry } from '@/app/components/IconLegend';
-import type { Clinic, HandoutBlocks, HandoutContent } from '@/lib/handout';
-import type { LegendItem } from '@/lib/wording';
-import { CAUTION_HEADING } from '@/lib/wording';
 import { GroupsTable } from '@/app/components/GroupsTable';
+import { IconArray } from '@/app/components/IconArray';
+import { IconLegend } from '@/app/components/IconLegend';
+import type { HandoutSheet as HandoutSheetView, SheetList } from '@/lib/handout';
 
 export interface HandoutSheetProps {
-  readonly content: HandoutContent;
-  readonly blocks: HandoutBlocks;
-  readonly clinic: Clinic;
+  readonly sheet: HandoutSheetView;
 }
 
-/** One key for both pictures: the exposed array's kinds cover the reference array's. */
-function legendEntries(reference: readonly LegendItem[], exposed: readonly LegendItem[]): IconLegendEntry[] {
-  const seen = new Set<string>();
-  const entries: IconLegendEntry[] = [];
-  for (const item of [...exposed, ...reference]) {
-    if (seen.has(item.kind)) continue;
-    seen.add(item.kind);
-    entries.push(item.kind === 'uncertain' ? { kind: 'none', uncertain: true, label: item.label } : { kind: item.kind, label: item.label });
-  }
-  const order = ['event', 'added', 'avoided', 'none'];
-  return entries.sort((a, b) => Number(a.uncertain === true) - Number(b.uncertain === true) || order.indexOf(a.kind) - order.indexOf(b.kind));
-}
-
-function Paragraphs({ text, className }: { text: string; className?: string }) {
-  const parts = text.split(/\n\s*\n/).map((p) => p.trim()).filter((p) => p.length > 0);
+function ListSection({ id, list, ordered = false }: { id: string; list: SheetList; ordered?: boolean }) {
+  const items = list.items.map((s) => <li key={s}>{s}</li>);
   return (
-    <>
-      {parts.map((p, i) => (
-        <p key={i} className={className}>
-          {p}
-        </p>
-      ))}
-    </>
+    <section aria-labelledby={id}>
+      <h3 id={id} className="sheet__heading">
+        {list.heading}
+      </h3>
+      {ordered ? <ol className="sheet__list">{items}</ol> : <ul className="sheet__list">{items}</ul>}
+    </section>
   );
 }
 
-export function HandoutSheet({ content, blocks, clinic }: HandoutSheetProps) {
-  const { text } = content;
-  const clinicName = clinic.name?.trim();
-  const clinicContact = clinic.contact?.trim();
+export function HandoutSheet({ sheet }: HandoutSheetProps) {
+  const { clinic, illustrative } = sheet;
   return (
-    <article className="sheet" aria-labelledby="sheet-title" data-testid="handout-sheet">
+    <article className={`sheet sheet--${sheet.layout}`} aria-labelledby="sheet-title" data-testid="handout-sheet" data-layout={sheet.layout} data-audience={sheet.audience}>
+      {illustrative ? (
+        <div className="sheet__demo-band" role="note" aria-label={illustrative.heading} data-testid="handout-demo-band">
+          <p className="sheet__demo-heading">{illustrative.heading}</p>
+          <p className="sheet__demo-text">{illustrative.text}</p>
+        </div>
+      ) : null}
       <header className="sheet__header">
         <h2 id="sheet-title" className="sheet__title">
-          {blocks.title}
+          {sheet.title}
         </h2>
-        {clinicName || clinicContact ? (
+        {clinic ? (
           <p className="sheet__clinic">
-            {clinicName ? <span className="sheet__clinic-name">{clinicName}</span> : null}
-            {clinicContact ? <span className="sheet__clinic-contact">{clinicContact}</span> : null}
+            {clinic.name ? <span className="sheet__clinic-name">{clinic.name}</span> : null}
+            {clinic.contact.length > 0 ? (
+              <span className="sheet__clinic-contact" data-testid="handout-clinic-contact">
+                {clinic.contact.map((segment, i) =>
+                  segment.keepTogether ? (
+                    <span key={i} className="sheet__nowrap">
+                      {segment.text}
+                    </span>
+                  ) : (
+                    segment.text
+                  ),
+                )}
+              </span>
+            ) : null}
           </p>
         ) : null}
       </header>
-      {blocks.opening.trim() ? <Paragraphs text={blocks.opening} className="sheet__opening" /> : null}
-
-      <section className="sheet__numbers" aria-labelledby="sheet-numbers">
-        <h3 id="sheet-numbers" className="visually-hidden">
-          {text.groupLine}
-        </h3>
-        <div className={`sheet__arrays sheet__arrays--${text.denominator}`}>
-          <IconArray layout={text.reference.layout} title={text.reference.title} description={text.reference.caption} idPrefix="handout-reference" />
-          <IconArray layout={text.exposed.layout} title={text.exposed.title} description={text.exposed.caption} idPrefix="handout-exposed" />
-        </div>
-        <IconLegend entries={legendEntries(text.reference.legend, text.exposed.legend)} idPrefix="handout-legend" heading="Key to the pictures" />
-        <GroupsTable text={text} className="sheet__table" />
-      </section>
-
-      <div className="sheet__columns">
-        <section aria-labelledby="sheet-means">
-          <h3 id="sheet-means" className="sheet__heading">
-            What the numbers mean
-          </h3>
-          <ul className="sheet__list">
-            {text.means.map((s) => (
-              <li key={s}>{s}</li>
-            ))}
-          </ul>
-        </section>
-        <section aria-labelledby="sheet-not-mean">
-          <h3 id="sheet-not-mean" className="sheet__heading">
-            What they do not mean
-          </h3>
-          <ul className="sheet__list">
-            {text.doesNotMean.map((s) => (
-              <li key={s}>{s}</li>
-            ))}
-          </ul>
-        </section>
-      </div>
 
       <aside className="sheet__caution" aria-labelledby="sheet-caution" data-testid="handout-caution">
         <h3 id="sheet-caution" className="sheet__heading">
-          {CAUTION_HEADING}
+          {sheet.caution.heading}
         </h3>
-        <p>{text.caution}</p>
+        <p>{sheet.caution.text}</p>
       </aside>
+
+      {sheet.opening.map((p, i) => (
+        <p key={i} className="sheet__opening">
+          {p}
+        </p>
+      ))}
+
+      <section className={`sheet__numbers sheet__numbers--${sheet.denominator}`} aria-labelledby="sheet-numbers">
+        <h3 id="sheet-numbers" className="visually-hidden">
+          {sheet.numbersHeading}
+        </h3>
+        <div className={`sheet__arrays sheet__arrays--${sheet.denominator}`}>
+          {sheet.arrays.map((a) => (
+            <IconArray key={a.key} layout={a.layout} title={a.title} description={a.caption} idPrefix={a.idPrefix} />
+          ))}
+        </div>
+        {sheet.listsBesidePictures ? (
+          <div className="sheet__beside">
+            <ListSection id="sheet-means" list={sheet.means} />
+            <ListSection id="sheet-not-mean" list={sheet.doesNotMean} />
+          </div>
+        ) : null}
+        <IconLegend entries={sheet.legend.entries} idPrefix="handout-legend" heading={sheet.legend.heading} />
+        <GroupsTable text={sheet.text} className="sheet__table" />
+      </section>
+
+      {sheet.ownResults ? (
+        <section className="sheet__own" aria-labelledby="sheet-own" data-testid="handout-own-results">
+          <h3 id="sheet-own" className="sheet__heading">
+            {sheet.ownResults.heading}
+          </h3>
+          {sheet.ownResults.items.map((s) => (
+            <p key={s}>{s}</p>
+          ))}
+        </section>
+      ) : null}
+
+      {sheet.listsBesidePictures ? null : (
+        <div className="sheet__columns">
+          <ListSection id="sheet-means" list={sheet.means} />
+          <ListSection id="sheet-not-mean" list={sheet.doesNotMean} />
+        </div>
+      )}
 
       <div className="sheet__columns sheet__columns--wide">
         <section aria-labelledby="sheet-questions">
           <h3 id="sheet-questions" className="sheet__heading">
-            Questions for your visit
+            {sheet.questions.heading}
           </h3>
-          <p>{text.teachBackIntro}</p>
+          <p>{sheet.questions.intro}</p>
           <ol className="sheet__list">
-            {text.teachBack.map((q) => (
+            {sheet.questions.items.map((q) => (
               <li key={q}>{q}</li>
             ))}
           </ol>
         </section>
-        {blocks.nextSteps.trim() ? (
+        {sheet.nextSteps.paragraphs.length > 0 ? (
           <section aria-labelledby="sheet-next">
             <h3 id="sheet-next" className="sheet__heading">
-              Next steps
+              {sheet.nextSteps.heading}
             </h3>
-            <Paragraphs text={blocks.nextSteps} />
+            {sheet.nextSteps.paragraphs.map((p, i) => (
+              <p key={i}>{p}</p>
+            ))}
           </section>
         ) : null}
       </div>
 
       <footer className="sheet__footer">
         <p suppressHydrationWarning>
-          <span className="sheet__footer-label">Where the numbers come from: </span>
-          {content.sources.join(' ')} {content.preparedOn}
+          <span className="sheet__footer-label">{sheet.footer.label}</span>
+          {sheet.footer.sources.join(' ')} {sheet.footer.preparedOn}
         </p>
       </footer>
     </article>

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { EMPTY_FORM_VALUES, formToOutcome, type ConsultationFormValues } from '@/app/consultation/formModel';
 import { tablePreview } from '@/app/consultation/tablePreview';
 import { groupPhrase, scenarioContext, stratumAgeBand } from '@/lib/context';
-import { buildHandout } from '@/lib/handout';
+import { DEFAULT_BLOCKS, handoutSheet } from '@/lib/handout';
 import { parseTable } from '@/lib/tables/parse';
 import { DEMO_HEART_FAILURE_10Y, DEMO_STROKE_5Y } from '@/lib/tables/demo';
 import type { PopulationTable } from '@/lib/tables/schema';
@@ -49,7 +49,7 @@ describe('scenarioContext: "people like you" once, for the screen and the handou
     // The band spans every age, so the phrase names no age: not "men aged 0 and over", and not
     // "men aged 55" (the table has no figure for 55-year-olds in particular).
     expect(screen.value.people).toBe('men');
-    const handout = buildHandout(screen.value.scenario, { table, date: new Date('2025-05-12T12:00:00Z') });
+    const handout = handoutSheet(screen.value.scenario, { blocks: DEFAULT_BLOCKS, clinic: {} }, { table, date: new Date('2025-05-12T12:00:00Z') });
     expect(handout.ok).toBe(true);
     if (!handout.ok) return;
     expect(handout.value.text.people).toBe(screen.value.people);
@@ -62,7 +62,7 @@ describe('scenarioContext: "people like you" once, for the screen and the handou
     const screen = formToOutcome({ ...FORM, person: { age: '62', sex: 'female' } }, [table]);
     expect(screen.ok && screen.value.people).toBe('women aged 50 and over');
     if (!screen.ok) return;
-    const handout = buildHandout(screen.value.scenario, { table, date: new Date('2025-05-12T12:00:00Z') });
+    const handout = handoutSheet(screen.value.scenario, { blocks: DEFAULT_BLOCKS, clinic: {} }, { table, date: new Date('2025-05-12T12:00:00Z') });
     expect(handout.ok && handout.value.text.people).toBe('women aged 50 and over');
   });
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildHandout, preparedOnLine } from '@/lib/handout';
+import { buildHandout, DEFAULT_BLOCKS, handoutSheet, preparedOnLine } from '@/lib/handout';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables';
 import type { Scenario } from '@/lib/scenario/schema';
@@ -19,7 +19,7 @@ const DEMO: Scenario = {
 
 describe('buildHandout', () => {
   it('describes the group from the table band and names both sources', () => {
-    const r = buildHandout(DEMO, { table: DEMO_HEART_FAILURE_10Y, date: DATE });
+    const r = buildHandout(DEMO, { table: DEMO_HEART_FAILURE_10Y });
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.value.text.people).toBe('women aged 50 to 59');
@@ -28,30 +28,32 @@ describe('buildHandout', () => {
       'Risk for people like you: Heart failure needing hospital care within 10 years (demo). Source: Illustrative numbers, not from a real population; invented for the Hundredfold demo (2024).',
     );
     expect(r.value.sources[1]).toBe('Study: Illustrative entry \u2014 not a real study; numbers invented for the Hundredfold demo.');
-    expect(r.value.preparedOn).toBe('Prepared on May 12, 2025.');
+    // The date line moved to the sheet, which writes it as the paper's region does (US Letter: month first).
+    const sheet = handoutSheet(DEMO, { blocks: DEFAULT_BLOCKS, clinic: {} }, { table: DEMO_HEART_FAILURE_10Y, date: DATE, paper: 'letter' });
+    expect(sheet.ok && sheet.value.footer.preparedOn).toBe('Prepared on May 12, 2025.');
   });
 
   it('uses the exact age without a matching table', () => {
-    const r = buildHandout(DEMO, { date: DATE });
+    const r = buildHandout(DEMO, {});
     expect(r.ok && r.value.text.people).toBe('women aged 53');
     expect(r.ok && r.value.sources[0]).toBe('Risk for people like you: entered by your clinician.');
   });
 
   it('refuses when nothing says who the people are', () => {
-    const r = buildHandout({ ...DEMO, person: undefined, tableId: undefined } as Scenario, { date: DATE });
+    const r = buildHandout({ ...DEMO, person: undefined, tableId: undefined } as Scenario, {});
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.issues[0]?.code).toBe('too-long'); // the demo population wording is longer than 80 characters
-    const none = buildHandout({ baseline: DEMO.baseline, effect: DEMO.effect, wording: { outcome: 'a stroke' } }, { date: DATE });
+    const none = buildHandout({ baseline: DEMO.baseline, effect: DEMO.effect, wording: { outcome: 'a stroke' } }, {});
     expect(none.ok).toBe(false);
     if (!none.ok) expect(none.issues[0]?.code).toBe('population-required');
   });
 
   it('passes the engine refusal through', () => {
-    const r = buildHandout({ ...DEMO, baseline: { risk: 0.99, years: 1 }, horizonYears: 100 }, { date: DATE });
+    const r = buildHandout({ ...DEMO, baseline: { risk: 0.99, years: 1 }, horizonYears: 100 }, {});
     expect(r.ok).toBe(false);
   });
 
   it('writes a date line even for an invalid date', () => {
-    expect(preparedOnLine(new Date(Number.NaN))).toBe('Prepared today.');
+    expect(preparedOnLine(new Date(Number.NaN), 'a4')).toBe('Prepared today.');
   });
 });

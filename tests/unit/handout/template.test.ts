@@ -9,6 +9,7 @@ import {
   parseTemplateFile,
   renameTemplate,
   saveTemplate,
+  TEMPLATE_MESSAGES,
   type HandoutTemplate,
 } from '@/lib/handout';
 
@@ -164,5 +165,15 @@ describe('template list operations (pure)', () => {
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.issues[0]?.message).toMatch(/^Template 2 \("Bad"\): /);
     expect(list).toEqual([A]);
+  });
+});
+
+describe('TEMPLATE_MESSAGES', () => {
+  it('say what happened in plain words, with the right plural', () => {
+    expect(TEMPLATE_MESSAGES.imported({ added: ['A'], renamed: [] })).toBe('Imported 1 template.');
+    expect(TEMPLATE_MESSAGES.imported({ added: ['A', 'B (2)'], renamed: [{ from: 'B', to: 'B (2)' }] })).toBe(
+      'Imported 2 templates. "B" was saved as "B (2)" because the name was taken.',
+    );
+    expect(TEMPLATE_MESSAGES.saved(' Heart clinic ')).toBe('Saved the template "Heart clinic".');
   });
 });
