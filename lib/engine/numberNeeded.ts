@@ -11,6 +11,7 @@
  */
 import type { Direction, NumberNeeded, NumberNeededLimit } from './types';
 import type { Estimate } from './types';
+import { intervalLabel } from '../wording/format';
 
 /**
  * Rounds up, forgiving floating-point noise: 1/(0.12 − 0.08) computes as 25.000000000000004
@@ -49,7 +50,7 @@ export function numberNeeded(riskDifference: Estimate, level: number): NumberNee
   const from = limitOf(riskDifference.lower);
   const to = limitOf(riskDifference.upper);
   const crossesNull = riskDifference.lower <= 0 && riskDifference.upper >= 0;
-  const ci = `${Math.round(level * 100)}% CI`;
+  const ci = intervalLabel(level);
 
   const head = point.display === null ? 'No difference' : `${label(point.direction)} ${point.display}`;
   let range: string;

@@ -10,9 +10,18 @@
  */
 import { z } from 'zod';
 
-/** Allowed interval levels. The engine carries the level through; it does not re-estimate. */
+/**
+ * The interval levels offered as choices in forms. Any level from {@link MIN_INTERVAL_LEVEL} to
+ * {@link MAX_INTERVAL_LEVEL} is accepted (e.g. 0.975 for a one-sided 2.5% test); the engine carries
+ * the level through and takes z from lib/stats/normalQuantile.ts; it does not re-estimate.
+ */
 export const INTERVAL_LEVELS = [0.9, 0.95, 0.99] as const;
-export type IntervalLevel = (typeof INTERVAL_LEVELS)[number];
+/** Lowest interval level accepted: 80% (common practice: narrower intervals are not published as confidence intervals). */
+export const MIN_INTERVAL_LEVEL = 0.8;
+/** Highest interval level accepted: 99.9%. */
+export const MAX_INTERVAL_LEVEL = 0.999;
+/** An interval level, a fraction from 0.8 to 0.999. */
+export type IntervalLevel = number;
 
 /** Study designs, each with its own treatment of an odds ratio (see lib/engine/exposedRisk.ts). */
 export const STUDY_DESIGNS = [
@@ -35,6 +44,8 @@ export type Denominator = (typeof DENOMINATORS)[number];
 export const MAX_YEARS = 100;
 /** Largest ratio accepted: beyond this, a typing slip is far likelier than a real effect. */
 export const MAX_RATIO = 1000;
+/** Smallest ratio accepted, symmetric with {@link MAX_RATIO} on the log scale (1/1000). */
+export const MIN_RATIO = 0.001;
 /** Longest free-text field (wording, citation), in characters. */
 export const MAX_TEXT = 500;
 
@@ -60,6 +71,7 @@ export function years(what: string) {
 function ratio(what: string) {
   return numberField(what)
     .gt(0, { error: `${what} must be greater than 0 (ratios are positive)` })
+    .gte(MIN_RATIO, { error: `${what} must be at least ${MIN_RATIO} (1/${MAX_RATIO}; smaller is almost always a typing slip)` })
     .lte(MAX_RATIO, { error: `${what} must be at most ${MAX_RATIO}` });
 }
 
@@ -111,9 +123,9 @@ export const effectSchema = z
     lower: ratio('The lower limit'),
     upper: ratio('The upper limit'),
     level: z
-      .union(INTERVAL_LEVELS.map((l) => z.literal(l)), {
-        error: 'The interval level must be 0.9, 0.95 or 0.99',
-      })
+      .number({ error: 'The interval level must be a number, a fraction such as 0.95' })
+      .gte(MIN_INTERVAL_LEVEL, { error: `The interval level must be from ${MIN_INTERVAL_LEVEL} to ${MAX_INTERVAL_LEVEL} (a fraction: for 95% enter 0.95)` })
+      .lte(MAX_INTERVAL_LEVEL, { error: `The interval level must be from ${MIN_INTERVAL_LEVEL} to ${MAX_INTERVAL_LEVEL} (a fraction: for 95% enter 0.95)` })
       .optional(),
     design: z
       .enum(STUDY_DESIGNS, {

@@ -106,10 +106,11 @@ export function formatRatio(ratio: number): string {
 }
 
 /**
- * The interval's label: 0.95 → "95% CI".
+ * The interval's label: 0.95 → "95% CI"; any level from 80% to 99.9% keeps its decimal.
  * @example
  * intervalLabel(0.9) //=> "90% CI"
+ * intervalLabel(0.975) //=> "97.5% CI"
  */
 export function intervalLabel(level: number): string {
-  return `${Math.round(level * 100)}% CI`;
+  return `${Number((level * 100).toFixed(1))}% CI`;
 }
