@@ -23,7 +23,12 @@ export const MAX_INTERVAL_LEVEL = 0.999;
 /** An interval level, a fraction from 0.8 to 0.999. */
 export type IntervalLevel = number;
 
-/** Study designs, each with its own treatment of an odds ratio (see lib/engine/exposedRisk.ts). */
+/**
+ * Study designs, each with its own treatment of an odds ratio (see lib/engine/conversion.ts).
+ * The two matched designs report a conditional odds ratio (conditional logistic regression):
+ * `matched-case-control` with controls drawn from non-cases (read as a risk odds ratio),
+ * `matched-risk-set-case-control` with risk-set sampling (read as a rate ratio).
+ */
 export const STUDY_DESIGNS = [
   'cohort',
   'trial',
@@ -31,6 +36,8 @@ export const STUDY_DESIGNS = [
   'case-control',
   'risk-set-case-control',
   'case-cohort',
+  'matched-case-control',
+  'matched-risk-set-case-control',
 ] as const;
 export type StudyDesign = (typeof STUDY_DESIGNS)[number];
 
@@ -87,7 +94,17 @@ export const riskBaselineSchema = z.strictObject({
   years: years('The baseline period'),
 });
 
-/** An event rate: `rate` events per `perPersonYears` person-years (e.g. 12 per 1000). */
+function prevalence(what: string) {
+  return numberField(what)
+    .gte(0, { error: `${what} must be at least 0` })
+    .lt(1, { error: `${what} must be less than 1 (a fraction: for 30% enter 0.3)` });
+}
+
+/**
+ * An event rate: `rate` events per `perPersonYears` person-years (e.g. 12 per 1000). With
+ * `exposurePrevalence` the rate is a population average (e.g. from a population table that
+ * states the exposure's prevalence) and the engine corrects it as it does a population risk.
+ */
 export const rateBaselineSchema = z.strictObject({
   rate: numberField('The event rate')
     .gt(0, { error: 'The event rate must be greater than 0' })
@@ -95,6 +112,7 @@ export const rateBaselineSchema = z.strictObject({
   perPersonYears: numberField('The person-years')
     .gt(0, { error: 'The person-years must be greater than 0 (e.g. 1000 for a rate per 1000 person-years)' })
     .lte(1e9, { error: 'The person-years must be at most 1,000,000,000' }),
+  exposurePrevalence: prevalence('The exposure prevalence').optional(),
 });
 
 /**
@@ -103,9 +121,7 @@ export const rateBaselineSchema = z.strictObject({
  */
 export const populationBaselineSchema = z.strictObject({
   populationRisk: fraction('The population risk'),
-  exposurePrevalence: numberField('The exposure prevalence')
-    .gte(0, { error: 'The exposure prevalence must be at least 0' })
-    .lt(1, { error: 'The exposure prevalence must be less than 1 (a fraction: for 30% enter 0.3)' }),
+  exposurePrevalence: prevalence('The exposure prevalence'),
   years: years('The baseline period'),
 });
 
