@@ -34,10 +34,13 @@ export function tablePreview(table: PopulationTable, person: { age: string; sex:
   const { stratum, baseline } = found.value;
   const ageBand = needs.age ? { fromYears: stratum.ageFrom, toYears: stratum.ageTo } : undefined;
   const group = describePeople({ person: candidate, ageBand });
+  const exposed = 'exposurePrevalence' in baseline && baseline.exposurePrevalence !== undefined ? ` (a population average with ${formatPercent(baseline.exposurePrevalence)} exposed)` : '';
   const figure =
     'risk' in baseline
       ? `a risk of ${formatPercent(baseline.risk)} over ${formatYears(baseline.years)} years`
-      : `${formatRate(baseline.rate)} events per ${formatCount(baseline.perPersonYears)} person-years${table.horizonYears !== undefined ? `; the suggested horizon is ${formatYears(table.horizonYears)} years` : ''}`;
+      : 'populationRisk' in baseline
+        ? `a risk of ${formatPercent(baseline.populationRisk)} over ${formatYears(baseline.years)} years${exposed}`
+        : `${formatRate(baseline.rate)} events per ${formatCount(baseline.perPersonYears)} person-years${exposed}${table.horizonYears !== undefined ? `; the suggested horizon is ${formatYears(table.horizonYears)} years` : ''}`;
   return { ok: true, group: group.ok ? capitalise(group.value) : 'Everyone in the table', figure };
 }
 
