@@ -8,6 +8,7 @@
  * and the field; nothing is half-imported.
  */
 import { z } from 'zod';
+import { capProblems } from '../files/problems';
 import { fail, ok, type Issue, type Result } from '../result';
 import { toIssues } from '../scenario/issues';
 import { evidenceEntrySchema, type EvidenceEntry } from './schema';
@@ -102,7 +103,8 @@ export function parseEvidenceFile(input: unknown): Result<EvidenceEntry[]> {
     firstIndexOf.set(parsed.data.id, index);
     entries.push(parsed.data);
   });
-  return issues.length > 0 ? fail(issues) : ok(entries);
+  // Listed as the table import lists them: at most 1,000, then how many more (lib/files/problems.ts).
+  return issues.length > 0 ? fail(capProblems(issues)) : ok(entries);
 }
 
 /** Parse JSON text, then validate it as an evidence file. Malformed JSON is an issue, never a throw. */

@@ -12,7 +12,8 @@
  */
 import { useId, useRef, useState, type ChangeEvent } from 'react';
 import type { Issue } from '@/lib/result';
-import { MAX_TABLE_FILE_BYTES, parseTableCsvInChunks, type TableCsvResult } from '@/lib/tables/csv';
+import { MAX_TABLE_FILE_BYTES } from '@/lib/tables/csvFormat';
+import { parseTableCsvInChunks, type TableCsvResult } from '@/lib/tables/csvReader';
 import { LIBRARY_IMPORT_CHUNK_CHARS } from '@/lib/tables/chunking';
 import type { StoredTable } from '@/lib/storage/records';
 import { useLibrary } from './LibraryContext';

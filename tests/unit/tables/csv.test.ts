@@ -363,6 +363,115 @@ describe('export then import', () => {
   });
 });
 
+describe('files that are not a CSV table', () => {
+  const utf16le = (text: string) => {
+    const bytes = new Uint8Array(2 + text.length * 2);
+    bytes.set([0xff, 0xfe]);
+    for (let i = 0; i < text.length; i++) bytes[2 + i * 2] = text.charCodeAt(i);
+    return bytes;
+  };
+
+  it('a UTF-16 file gets one sentence about the encoding', () => {
+    // As a browser's File.text() or the command line's UTF-8 read decodes it.
+    const text = new TextDecoder('utf-8').decode(utf16le(GOOD));
+    const issues = problems(parseTableCsv(text));
+    expect(issues).toHaveLength(1);
+    expect(issues[0]?.code).toBe('wrong-encoding');
+    expect(issues[0]?.message).toMatch(/UTF-16/);
+    expect(issues[0]?.message).toMatch(/CSV UTF-8/);
+  });
+
+  it('a workbook, a PDF or a picture gets one sentence, never a list of garbled problems', () => {
+    const workbook = 'PK\u0003\u0004\u0014\u0000\u0006\u0000[Content_Types].xml\u0000PK\u0003\u0004xl/workbook.xml\u0000\u0000garbage,\n,,more\n';
+    const pdf = '%PDF-1.7\n1 0 obj\n<< /Type /Catalog >>\nendobj\n';
+    const png = new TextDecoder('utf-8').decode(Uint8Array.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 0x0d, 0x49, 0x48, 0x44, 0x52]));
+    for (const [text, pattern] of [
+      [workbook, /spreadsheet workbook.*save it as CSV/],
+      [pdf, /PDF document/],
+      [png, /PNG picture/],
+    ] as const) {
+      const issues = problems(parseTableCsv(text));
+      expect(issues).toHaveLength(1);
+      expect(issues[0]?.code).toBe('not-a-text-file');
+      expect(issues[0]?.message).toMatch(pattern);
+    }
+  });
+
+  it('a detail line with a broken quotation mark is refused with its row, not silently altered', () => {
+    for (const bad of ['"# title: unclosed', '"# title: a"b"', '# title: x,"y']) {
+      const text = `${bad}\n${GOOD.split('\n').slice(1).join('\n')}`;
+      const r = parseTableCsv(text);
+      expect(r.ok).toBe(false);
+      const quote = problems(r).find((i) => i.code === 'csv-syntax');
+      expect(quote?.line).toBe(1);
+      expect(quote?.message).toMatch(/^Row 1: The detail line has a quotation mark/);
+    }
+  });
+
+  it('a well-quoted detail line with doubled quotation marks is read as written', () => {
+    const r = parseTableCsv(`"# title: the ""north"" table"\n${GOOD.split('\n').slice(1).join('\n')}`);
+    expect(r.ok && r.value.title).toBe('the "north" table');
+  });
+
+  it('cuts a problem about an enormous cell to a readable length', () => {
+    const huge = 'x'.repeat(5000);
+    const issues = problems(parseTableCsv(`${DETAILS}sex,age_from,age_to,risk\nany,0,120,${huge}\n`));
+    expect(issues[0]?.code).toBe('not-a-number');
+    expect(issues[0]?.message.length).toBeLessThanOrEqual(300);
+    expect(issues[0]?.message.endsWith('…')).toBe(true);
+  });
+});
+
+describe('spreadsheet formulas in exported files', () => {
+  // Stratum values chosen to look like formulas (issue 14 item 2); the numbers are illustrative.
+  const formulaTable: PopulationTable = {
+    id: 'formula-cells',
+    title: '=HYPERLINK("http://example.invalid","click")',
+    outcome: 'an outcome',
+    horizonYears: 10,
+    population: 'test population',
+    source: 'test source',
+    year: 2024,
+    illustrative: true,
+    strata: [
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: '=HYPERLINK("http://example.invalid","x")' }, risk: 0.1 },
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: '+cmd|calc' }, risk: 0.2 },
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: '@SUM(A1)' }, risk: 0.3 },
+      { sex: 'any', ageFrom: 0, ageTo: 120, extra: { site: "'-north" }, risk: 0.4 },
+    ],
+  };
+
+  it('writes no cell that a spreadsheet would read as a formula', () => {
+    const text = exportTableCsv(formulaTable);
+    const cells = text.split('\n').flatMap((line) => line.split(','));
+    const bare = cells.map((c) => c.replace(/^"/, ''));
+    expect(bare.filter((c) => /^[=+\-@\t\r]/.test(c))).toEqual([]);
+    expect(text).toContain(`"'=HYPERLINK(""http://example.invalid"",""x"")"`);
+    expect(text).toContain("''-north");
+  });
+
+  it('reads the guarded cells back to the original values', () => {
+    const r = parseTableCsv(exportTableCsv(formulaTable));
+    expect(r.ok ? r.value : r.issues).toEqual(formulaTable);
+  });
+
+  it('property: stratum values starting with =, +, -, @ or quotation marks survive export then import', () => {
+    const formulaText = fc
+      .tuple(fc.constantFrom('=', '+', '-', '@', "'", "''=", "'+", ''), textArb(10))
+      .map(([lead, rest]) => `${lead}${rest}`.trim())
+      .filter((s) => s.length > 0 && s.length <= 100);
+    fc.assert(
+      fc.property(fc.uniqueArray(formulaText, { minLength: 1, maxLength: 3 }), (values) => {
+        const t: PopulationTable = { ...formulaTable, strata: values.map((site, i) => ({ sex: 'any', ageFrom: 0, ageTo: 120, extra: { site }, risk: (i + 1) / 10 })) };
+        fc.pre(parseTable(t).ok);
+        const r = parseTableCsv(exportTableCsv(t));
+        expect(r.ok ? r.value : r.issues).toEqual(t);
+      }),
+      { numRuns: 500 },
+    );
+  });
+});
+
 describe('reading in blocks', () => {
   it('cuts only at line ends outside quotes', () => {
     const body = 'a,b\n"x\ny",1\nc,d\n';
