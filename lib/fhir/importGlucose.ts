@@ -13,7 +13,7 @@
  * usable Observation is not: it returns no checkups and the full skipped list.
  */
 import { fail, ok, type Result } from '../result';
-import { fpgReadingsAgree, hba1cReadingsAgree, readingText } from '../glycaemia/merge';
+import { fpgReadingsAgree, hba1cReadingsAgree, preferLater, readingText } from '../glycaemia/merge';
 import type { Checkup, FpgReading, Hba1cReading, HistoryOptions } from '../glycaemia/schema';
 import { readObservation, type ObservationReading } from './observation';
 
@@ -112,18 +112,22 @@ export function importFhirGlucose(json: unknown, options: HistoryOptions): Resul
     agree: (a: R, b: R) => boolean,
     label: string,
   ): { reading: R; entry: number | null } | null {
-    const [first, ...rest] = group;
-    if (!first) return null;
-    const firstReading = first.reading as R;
-    if (rest.every((r) => agree(firstReading, r.reading as R))) {
+    const [head, ...others] = group;
+    if (!head) return null;
+    if (others.every((r) => agree(head.reading as R, r.reading as R))) {
+      // One sample in two units: keep the reading in the criteria set's own unit when it is known,
+      // whichever came first (issue 11 item 2); else the first.
+      const first = others.find((r) => preferLater(r.test, head.reading, r.reading, options.criteria)) ?? head;
+      const rest = group.filter((r) => r !== first);
+      const own = first !== head || (options.criteria !== undefined && rest.some((r) => r.reading.unit !== first.reading.unit)) ? `; kept in ${first.reading.unit}, the unit the criteria set writes its thresholds in` : '; kept once';
       for (const r of rest) {
         skipped.push({
           entry: r.entry,
           id: r.id,
-          reason: `the same ${label} result as ${where(first.entry)} on ${r.date} (${readingText(r.reading)} and ${readingText(first.reading)}); kept once`,
+          reason: `the same ${label} result as ${where(first.entry)} on ${r.date} (${readingText(r.reading)} and ${readingText(first.reading)})${own}`,
         });
       }
-      return { reading: firstReading, entry: first.entry };
+      return { reading: first.reading as R, entry: first.entry };
     }
     const values = group.map((r) => `${readingText(r.reading)} in ${where(r.entry)}`).join(', ');
     for (const r of group) {

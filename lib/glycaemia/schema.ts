@@ -14,7 +14,7 @@
  * The schemas that check dates are therefore functions of {@link HistoryOptions}.
  */
 import { z } from 'zod';
-import { CRITERIA_SETS } from './exposure';
+import { CRITERIA_SETS, type CriteriaSet } from './exposure';
 import { GLUCOSE_UNITS, type GlucoseUnit } from './glucose';
 import { HBA1C_UNITS, type Hba1cUnit } from './hba1c';
 import { parseIsoDate } from './dates';
@@ -93,6 +93,12 @@ export interface HistoryOptions {
    * "checkup [i]". The screen passes "row n".
    */
   readonly checkupName?: (index: number) => string;
+  /**
+   * The criteria set the history will be classified under, when known: one sample reported in
+   * both units on one day keeps the reading in this body's own unit, whichever came first
+   * (issue 11 item 2). parseGlucoseHistory takes it from the input's `criteria`.
+   */
+  readonly criteria?: CriteriaSet | undefined;
 }
 
 export function checkupDateSchema({ today }: HistoryOptions) {

@@ -100,7 +100,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
     const file = event.target.files?.[0];
     if (!file) return;
     const text = await file.text();
-    const result = importFhirGlucoseJson(text, { today: day });
+    const result = importFhirGlucoseJson(text, { today: day, criteria });
     if (!result.ok) {
       setFhirReport({ summary: `${file.name} could not be read:`, lines: result.issues.map((i) => i.message), error: true });
       return;
