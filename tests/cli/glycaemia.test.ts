@@ -187,7 +187,7 @@ describe('hundredfold glycaemia --fhir', () => {
     expect(out.checkups[1]).toMatchObject({ date: '2023-03-01', category: 'prediabetes', decidedBy: 'both', hba1cPercent: 6.2, fpgMmolL: 5.7 });
     expect(out.persistence).toMatchObject({ category: 'prediabetes', checkups: 2 });
     expect(out.skipped).toEqual([
-      { entry: 3, id: 'prelim', reason: 'status "preliminary": only final and amended results are used' },
+      { entry: 3, id: 'prelim', reason: 'status "preliminary": only final, amended and corrected results are used' },
       { entry: 4, id: 'p', reason: 'a Patient resource, not an Observation' },
     ]);
     expect(out.resources).toBe(5);

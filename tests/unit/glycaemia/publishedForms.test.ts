@@ -24,7 +24,7 @@ describe('a result exactly at a published cut-point, in the unit the lab printed
     ['ADA', { fpg: { value: 5.6, unit: 'mmol/L' } }, 'prediabetes', 'ADA prints 100 mg/dL (5.6 mmol/L)'],
     ['ADA', { hba1c: { value: 48, unit: 'mmol/mol' } }, 'diabetes-range', 'ADA prints 6.5% (48 mmol/mol)'],
     ['ADA', { hba1c: { value: 39, unit: 'mmol/mol' } }, 'prediabetes', 'ADA prints 5.7% (39 mmol/mol)'],
-  ] as const)('%s %j → %s (%s)', (criteria, tests, expected) => {
+  ] as const)('%s %j → %s (%s)', (criteria, tests, expected, _source) => {
     const c = classifyCheckup({ date: '2023-03-01', ...tests } as Checkup, criteria);
     expect(c.category).toBe(expected);
   });
