@@ -44,6 +44,9 @@ export interface FhirGlucoseImport {
 
 type Located = ObservationReading & { readonly entry: number | null };
 
+/** Most conflicting values one skip reason lists; the rest are counted (issue 14 item 6). */
+export const CONFLICT_LISTED = 3;
+
 function isObject(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
 }
@@ -129,10 +132,30 @@ export function importFhirGlucose(json: unknown, options: HistoryOptions): Resul
       }
       return { reading: first.reading as R, entry: first.entry };
     }
-    const values = group.map((r) => `${readingText(r.reading)} in ${where(r.entry)}`).join(', ');
-    for (const r of group) {
-      skipped.push({ entry: r.entry, id: r.id, reason: `different ${label} results on ${r.date} (${values}): the import cannot choose one` });
+    // Summarised once per day (issue 14 item 6): the first reading's reason names at most
+    // CONFLICT_LISTED values and the span of the rest; every other reading points at it. Linear in
+    // the number of readings, where listing every value in every reason was quadratic.
+    const listed = group.slice(0, CONFLICT_LISTED).map((r) => `${readingText(r.reading)} in ${where(r.entry)}`);
+    let values = listed.join(', ');
+    if (group.length > CONFLICT_LISTED) {
+      let low = Infinity;
+      let high = -Infinity;
+      for (const r of group) {
+        low = Math.min(low, r.reading.value);
+        high = Math.max(high, r.reading.value);
+      }
+      const units = new Set(group.map((r) => r.reading.unit));
+      const span = units.size === 1 ? `, from ${readingText({ ...head.reading, value: low })} to ${readingText({ ...head.reading, value: high })}` : '';
+      values += ` and ${(group.length - CONFLICT_LISTED).toLocaleString('en')} more${span}`;
     }
+    const summary = `different ${label} results on ${head.date} (${values}): the import cannot choose one`;
+    group.forEach((r, i) => {
+      skipped.push({
+        entry: r.entry,
+        id: r.id,
+        reason: i === 0 || group.length <= CONFLICT_LISTED ? summary : `one of ${group.length.toLocaleString('en')} different ${label} results on ${r.date} (see ${where(head.entry)}): the import cannot choose one`,
+      });
+    });
     return null;
   }
 
