@@ -193,6 +193,36 @@ function classifyTest(
 }
 
 /**
+ * Values possible in both units of a test (lib/glycaemia/schema.ts's plausible ranges overlap):
+ * HbA1c 9–20 (9–20 % and 9–195 mmol/mol), fasting glucose 18–50 (1–50 mmol/L and 18–900 mg/dL).
+ */
+export const AMBIGUOUS_VALUES = { hba1c: { min: 9, max: 20 }, fpg: { min: 18, max: 50 } } as const;
+
+const OTHER_UNIT: Readonly<Record<ValueUnit, ValueUnit>> = { '%': 'mmol/mol', 'mmol/mol': '%', 'mg/dL': 'mmol/L', 'mmol/L': 'mg/dL' };
+/** The unit in which a value from the overlap is very low (the other, very high). */
+const LOW_READING_UNIT: Readonly<Record<TestName, ValueUnit>> = { hba1c: 'mmol/mol', fpg: 'mg/dL' };
+
+/**
+ * A unit slip (issue 11 item 8): a value possible in both units whose category changes with the
+ * unit gets a note asking to confirm the unit ("12 mmol/mol is a very low HbA1c: is it 12%?").
+ */
+function unitSlipNote(test: TestName, entered: { readonly value: number; readonly unit: ValueUnit }, category: GlycaemicCategory | null, thresholds: TestThresholds<ValueUnit>, body: string): Warning | null {
+  const range = AMBIGUOUS_VALUES[test];
+  if (entered.value < range.min || entered.value > range.max) return null;
+  const other = OTHER_UNIT[entered.unit];
+  const otherCategory = categoryFor(entered.value, cutPointsIn(test, thresholds, other));
+  if (otherCategory === category) return null;
+  const asEntered = withUnit(entered.value, entered.unit);
+  const asOther = withUnit(entered.value, other);
+  const where = otherCategory === null ? `not classified (${body})` : `in the ${rangeName(otherCategory)} (${body})`;
+  const message =
+    entered.unit === LOW_READING_UNIT[test]
+      ? `${asEntered} is a very low ${TEST_LABELS[test]}: is it ${asOther}? As ${asOther} it would be ${where}; confirm the unit the lab printed`
+      : `${asEntered} is a very high ${TEST_LABELS[test]}: is it ${asOther}? As ${asOther} it would be ${where}; confirm the unit the lab printed`;
+  return { code: 'unit-check', message };
+}
+
+/**
  * Classify one checkup under one criteria set.
  *
  * @example
@@ -208,11 +238,15 @@ export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): Classi
     const { result, note } = classifyTest('hba1c', checkup.hba1c, hba1cIn(body.hba1c.unit, checkup.hba1c), body.hba1c, body.id);
     hba1c = result;
     if (note) notes.push(note);
+    const slip = unitSlipNote('hba1c', checkup.hba1c, result.category, body.hba1c, body.id);
+    if (slip) notes.push(slip);
   }
   if (checkup.fpg) {
     const { result, note } = classifyTest('fpg', checkup.fpg, glucoseIn(body.fpg.unit, checkup.fpg), body.fpg, body.id);
     fpg = result;
     if (note) notes.push(note);
+    const slip = unitSlipNote('fpg', checkup.fpg, result.category, body.fpg, body.id);
+    if (slip) notes.push(slip);
   }
 
   const classifying = [hba1c, fpg].filter((t): t is TestClassification & { category: GlycaemicCategory } => t !== null && t.category !== null);

@@ -90,3 +90,28 @@ describe('the same test reported twice on one day in two units gives the same ca
     }
   });
 });
+
+describe('unit slips where the plausible ranges of the two units overlap (issue 11 item 8)', () => {
+  it('asks to confirm 12 mmol/mol, a very low HbA1c that as 12% is in the diabetes range', () => {
+    // Plausible ranges (lib/glycaemia/schema.ts): HbA1c 3–20 % and 9–195 mmol/mol overlap on 9–20.
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 12, unit: 'mmol/mol' } }, 'ADA');
+    expect(c.notes.find((n) => n.code === 'unit-check')?.message).toBe(
+      '12 mmol/mol is a very low HbA1c: is it 12.0%? As 12.0% it would be in the diabetes range (ADA); confirm the unit the lab printed',
+    );
+  });
+  it('asks to confirm 20 mg/dL, a very low fasting glucose that as 20 mmol/L is in the diabetes range', () => {
+    const c = classifyCheckup({ date: '2023-03-01', fpg: { value: 20, unit: 'mg/dL' } }, 'WHO');
+    expect(c.notes.map((n) => n.code)).toContain('unit-check');
+  });
+  it('says nothing when the category is the same in both units, or the value is possible in one unit only', () => {
+    // 6.1% is not a plausible mmol/mol value (below 9); 100 mg/dL is not a plausible mmol/L value (above 50).
+    expect(classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.1, unit: '%' } }, 'ADA').notes).toEqual([]);
+    expect(classifyCheckup({ date: '2023-03-01', fpg: { value: 100, unit: 'mg/dL' } }, 'ADA').notes).toEqual([]);
+  });
+  it('carries the note into the command’s report', async () => {
+    const { glycaemiaReport } = await import('@/lib/glycaemia/report');
+    const h = parseGlucoseHistory({ criteria: 'ADA', checkups: [{ date: '2023-03-01', hba1c: { value: 12, unit: 'mmol/mol' } }] }, { today: TODAY });
+    if (!h.ok) throw new Error('expected a history');
+    expect(JSON.stringify(glycaemiaReport(h.value))).toContain('is it 12.0%?');
+  });
+});
