@@ -60,6 +60,14 @@ export const DESIGN_CHOICES = fromLabels(['', ...STUDY_DESIGNS], {
       'Controls were drawn from people still at risk when each case occurred, so the odds ratio estimates the rate (hazard) ratio without any rare-disease assumption.',
   },
   'case-cohort': { label: 'Case-cohort', explanation: 'Controls were drawn from the whole cohort at its start, so the odds ratio estimates the risk ratio.' },
+  'matched-case-control': {
+    label: 'Matched case-control, controls from people without the outcome',
+    explanation: 'A conditional odds ratio, adjusted for the matching factors; converted with the baseline risk like a risk odds ratio.',
+  },
+  'matched-risk-set-case-control': {
+    label: 'Matched case-control with risk-set sampling',
+    explanation: 'A conditional odds ratio from controls still at risk when each case occurred: read as a rate (hazard) ratio.',
+  },
 });
 
 /** "0.95" → "95%": the interval levels the scenario schema accepts, most common first. */

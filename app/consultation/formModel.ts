@@ -47,6 +47,8 @@ export const SEX_CHOICES = choiceValues(SEX_CHOICES_FOR_FORM);
 export const formInputSchema = z.object({
   baselineSource: z.enum(BASELINE_SOURCES),
   tableId: z.string(),
+  /** The exposure's prevalence typed for a table baseline; overrides the table's (issue 11 item 3). */
+  tablePrevalence: z.string(),
   person: z.object({ age: z.string(), sex: z.enum(SEX_CHOICES) }),
   riskBaseline: z.object({ risk: z.string(), years: z.string() }),
   rateBaseline: z.object({ rate: z.string(), perPersonYears: z.string() }),
@@ -73,6 +75,7 @@ export type ConsultationFormValues = z.infer<typeof formInputSchema>;
 export const EMPTY_FORM_VALUES: ConsultationFormValues = {
   baselineSource: 'table',
   tableId: '',
+  tablePrevalence: '',
   person: { age: '', sex: '' },
   riskBaseline: { risk: '', years: '' },
   rateBaseline: { rate: '', perPersonYears: '' },
@@ -128,7 +131,7 @@ const FIRST_BASELINE_FIELD: Record<Exclude<BaselineSource, 'table'>, string> = {
 export function formPathFor(scenarioPath: readonly (string | number)[], source: BaselineSource): (string | number)[] {
   const [head, ...rest] = scenarioPath;
   if (head === 'baseline') {
-    if (source === 'table') return ['tableId'];
+    if (source === 'table') return rest[0] === 'exposurePrevalence' ? ['tablePrevalence'] : ['tableId'];
     return [BASELINE_FIELD_GROUP[source], ...(rest.length > 0 ? rest : [FIRST_BASELINE_FIELD[source]])];
   }
   if (head === 'tableId' || head === 'extra') return ['tableId'];
@@ -201,7 +204,7 @@ function baselinePart(
       // The person schema checks the age (whole years, 0 to 120) before the lookup uses it.
       const checked = checkedPerson(person);
       if (!checked.ok) return fail(checked.issues);
-      const found = lookupStratum(table, person);
+      const found = lookupStratum(table, person, {}, { exposurePrevalence: numberFromText(values.tablePrevalence) });
       if (!found.ok) return fail(found.issues);
       return ok({
         baseline: found.value.baseline,

@@ -4,12 +4,14 @@
  * names the field ("The risk must be less than 1 …"), so a message is usable as it stands on
  * the form, on the command line and in an import report.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 
 /** Longest horizon or follow-up accepted, in years: a human life span (common practice). */
 export const MAX_YEARS = 100;
 /** Largest ratio accepted: beyond this, a typing slip is far likelier than a real effect. */
 export const MAX_RATIO = 1000;
+/** Smallest ratio accepted, symmetric with {@link MAX_RATIO} on the log scale (1/1000). */
+export const MIN_RATIO = 0.001;
 /** Longest free-text field (wording, citation), in characters. */
 export const MAX_TEXT = 500;
 
@@ -38,10 +40,11 @@ export function years(what: string) {
     .lte(MAX_YEARS, { error: `${what} must be at most ${MAX_YEARS} years` });
 }
 
-/** A ratio (OR, RR, HR or a limit), above 0 and at most {@link MAX_RATIO}. */
+/** A ratio (OR, RR, HR or a limit), from {@link MIN_RATIO} to {@link MAX_RATIO}. */
 export function ratio(what: string) {
   return numberField(what)
     .gt(0, { error: `${what} must be greater than 0 (ratios are positive)` })
+    .gte(MIN_RATIO, { error: `${what} must be at least ${MIN_RATIO} (1/${MAX_RATIO}; smaller is almost always a typing slip)` })
     .lte(MAX_RATIO, { error: `${what} must be at most ${MAX_RATIO}` });
 }
 

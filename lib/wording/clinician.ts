@@ -52,7 +52,10 @@ export function clinicianText(result: ComputeResult, wording?: Wording): Clinici
     absoluteRisks: `Absolute risk ${time}: ${p1Text} (${ci} ${formatPercent(p1.lower)} to ${formatPercent(p1.upper)}) ${exposedGroup}; ${p0Text} ${comparisonGroup}.`,
     riskRatio: `Risk ratio at this baseline: ${formatRatio(rr.estimate)} (${ci} ${formatRatio(rr.lower)} to ${formatRatio(rr.upper)}), from the reported ${MEASURE_NAMES[result.measure]}; ${both} ${time}.`,
     riskDifference: `Risk difference ${time}: ${formatPercentagePoints(rd.estimate)} percentage points (${ci} ${formatPercentagePoints(rd.lower)} to ${formatPercentagePoints(rd.upper)}); ${both}.`,
-    numberNeeded: `${result.numberNeeded.text} ${time}; ${formatCount(counts.exposedEvents)} vs ${formatCount(counts.referenceEvents)} out of ${d} (${both}).`,
+    numberNeeded: `${result.numberNeeded.text} ${time}; ${formatCount(counts.exposedEvents)} vs ${formatCount(counts.referenceEvents)} out of ${d} (${both}).${
+      // Issue 11 item 15: the same count in both pictures beside a finite number needed.
+      counts.exposedEvents === counts.referenceEvents && rd.estimate !== 0 ? ` The difference is less than one person in the picture of ${d}.` : ''
+    }`,
     intervalNote: 'The intervals come from the ratio\u2019s interval with the baseline held fixed; they leave out any uncertainty in the baseline (Cochrane Handbook \u00a712.5.4.5).',
     warnings: result.warnings,
   };

@@ -123,7 +123,7 @@ export function GlucoseHistory({ history }: GlucoseHistoryProps) {
     const text = await file.text();
     // The same file chosen again must be read again.
     input.value = '';
-    const result = importFhirGlucoseJson(text, { today: history.today });
+    const result = importFhirGlucoseJson(text, { today: history.today, criteria });
     if (!result.ok) {
       setFhirReport({ summary: `${file.name} could not be read:`, lines: readableLines(result.issues.map((i) => i.message)), error: true });
       return;

@@ -154,7 +154,7 @@ export async function glycaemia(io: CommandIo, options: GlycaemiaOptions = {}): 
   }
 
   if (args.fhir && args.criteria !== null) {
-    const imported = importFhirGlucoseJson(read.text, { today });
+    const imported = importFhirGlucoseJson(read.text, { today, criteria: args.criteria });
     if (!imported.ok) return complain(io, `glycaemia: ${issuesLine(imported.issues, (i) => `checkups[${i}]`)}`);
     const { checkups, sources, skipped, resources } = imported.value;
     if (checkups.length === 0) {

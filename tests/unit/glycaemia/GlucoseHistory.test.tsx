@@ -147,7 +147,7 @@ describe('GlucoseHistory', () => {
     const file = new File([JSON.stringify(bundle)], 'export.json', { type: 'application/json' });
     await user.upload(screen.getByLabelText('Load a FHIR file (Bundle or Observation, JSON)'), file);
     expect(await screen.findByText('export.json: Read 3 resources: 2 checkups added, 1 resource skipped:')).toBeInTheDocument();
-    expect(screen.getByText('Entry 2: status "preliminary": only final and amended results are used')).toBeInTheDocument();
+    expect(screen.getByText('Entry 2: status "preliminary": only final, amended and corrected results are used')).toBeInTheDocument();
     expect(screen.getAllByTestId('glucose-row')).toHaveLength(2);
     expect(within(result()).getByText('2 checkups, classified under ADA.')).toBeInTheDocument();
   });

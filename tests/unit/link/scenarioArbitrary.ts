@@ -11,6 +11,9 @@ import {
   EFFECT_MEASURES,
   INTERVAL_LEVELS,
   MAX_RATIO,
+  MIN_RATIO,
+  MIN_INTERVAL_LEVEL,
+  MAX_INTERVAL_LEVEL,
   MAX_TEXT,
   MAX_YEARS,
   STUDY_DESIGNS,
@@ -23,16 +26,17 @@ import {
 const plain = { noNullPrototype: true } as const;
 
 /** Open interval (min, max) of doubles, plus round decimals as people type them. */
-function openDouble(min: number, max: number, inclusiveMax = false): fc.Arbitrary<number> {
+function openDouble(min: number, max: number, inclusiveMax = false, inclusiveMin = false): fc.Arbitrary<number> {
   return fc.oneof(
-    fc.double({ min, max, minExcluded: true, maxExcluded: !inclusiveMax, noNaN: true }),
+    fc.double({ min, max, minExcluded: !inclusiveMin, maxExcluded: !inclusiveMax, noNaN: true }),
     fc.integer({ min: 1, max: 999 }).map((n) => min + ((max - min) * n) / 1000),
   );
 }
 
 const fractionArb = openDouble(0, 1);
 const yearsArb = openDouble(0, MAX_YEARS, true);
-const ratioArb = openDouble(0, MAX_RATIO, true);
+// [0.001, 1000]: the schema's ratio range (issue 14 item 14 added the lower bound).
+const ratioArb = openDouble(MIN_RATIO, MAX_RATIO, true, true);
 
 const baselineArb: fc.Arbitrary<Baseline> = fc.oneof(
   fc.record({ risk: fractionArb, years: yearsArb }, plain),
@@ -53,7 +57,7 @@ const effectArb: fc.Arbitrary<Effect> = fc
     fc.record(
       {
         measure: fc.constantFrom(...EFFECT_MEASURES),
-        level: fc.constantFrom(...INTERVAL_LEVELS),
+        level: fc.oneof(fc.constantFrom(...INTERVAL_LEVELS), fc.double({ min: MIN_INTERVAL_LEVEL, max: MAX_INTERVAL_LEVEL, noNaN: true })),
         design: fc.constantFrom(...STUDY_DESIGNS),
         followUpYears: yearsArb,
         adjusted: fc.boolean(),

@@ -109,10 +109,11 @@ describe('encodeScenarioLink', () => {
   it('writes numbers as the shortest decimal that reads back as the same double', () => {
     // String(n) for these doubles, ECMA-262 Number::toString (from memory); each reads back exactly.
     const s: Scenario = {
-      baseline: { risk: 0.1 + 0.2, years: 1e-7 },
-      effect: { measure: 'OR', estimate: 5e-324, lower: 5e-324, upper: 1000 },
+      // Ratios below 0.001 are refused since issue 14 item 14, so the smallest double moved to the period.
+      baseline: { risk: 0.1 + 0.2, years: 5e-324 },
+      effect: { measure: 'OR', estimate: 0.001, lower: 0.001, upper: 1000 },
     };
-    expect(scenarioFragment(s)).toBe('#br=0.30000000000000004&by=1e-7&em=OR&ee=5e-324&el=5e-324&eu=1000');
+    expect(scenarioFragment(s)).toBe('#br=0.30000000000000004&by=5e-324&em=OR&ee=0.001&el=0.001&eu=1000');
     expect(decoded(scenarioFragment(s))).toStrictEqual(s);
   });
 
@@ -256,7 +257,8 @@ describe('decodeScenarioQuery: bad links', () => {
     });
     expect(issuesOf(good.replace('em=RR', 'em=rr'))[0]).toMatchObject({ code: 'invalid-choice', path: ['effect', 'measure'] });
     expect(issuesOf(`${good}&ed=survey`)[0]).toMatchObject({ code: 'invalid-choice', path: ['effect', 'design'] });
-    expect(issuesOf(`${good}&ec=0.8`)[0]).toMatchObject({ code: 'invalid-choice', path: ['effect', 'level'] });
+    // Any level from 0.8 to 0.999 is valid since issue 11 item 10; 0.79 is outside it.
+    expect(issuesOf(`${good}&ec=0.79`)[0]).toMatchObject({ code: 'out-of-range', path: ['effect', 'level'] });
     expect(issuesOf(`${good}&n=10`)[0]).toMatchObject({ code: 'invalid-choice', path: ['denominator'] });
     expect(issuesOf(`${good}&pa=40.5`)[0]).toMatchObject({ path: ['person', 'age'] });
     expect(issuesOf(`${good}&t=`)[0]).toMatchObject({ path: ['tableId'] });
