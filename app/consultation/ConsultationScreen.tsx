@@ -184,11 +184,9 @@ export function ConsultationScreen({
   // after "Clear the form") fills the form. The fragment is read after hydration (the page is
   // static): app/link/useScenarioLink.ts.
   useEffect(() => {
-    if (link === undefined) return;
-    if (link === '') {
-      setLinkReading(undefined);
-      return;
-    }
+    // No scenario in the address (a plain visit, or after "Clear the form"): nothing to read;
+    // the notice below is shown only while the address holds a link.
+    if (link === undefined || link === '') return;
     let current = true;
     void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(async ([{ readScenarioLink }, { scenarioToFormValues }]) => {
       if (!current) return;
@@ -259,7 +257,7 @@ export function ConsultationScreen({
                 </button>
               </p>
             ) : null}
-            <LinkNotice reading={linkReading} refused="This link could not be read, so the form starts empty:" />
+            <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
           </div>
           <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
             <Baseline tables={allTables} />
