@@ -71,7 +71,7 @@ function bytesOf(total: number, fill = 0x78, before = '', after = ''): Readable 
 
 describe('commands are looked up in a Map (item 10)', () => {
   it.each(['__proto__', 'constructor', 'toString', 'hasOwnProperty', 'valueOf'])('"%s" is an unknown command', async (name) => {
-    expectOneLine(await run([name]), new RegExp(`^hundredfold: unknown command "${name}"; commands are: compute, link, glycaemia, table\\n$`));
+    expectOneLine(await run([name]), new RegExp(`^hundredfold: unknown command "${name}"; commands are: compute, link, glycaemia, table, checkups\\n$`));
   });
 });
 

@@ -370,7 +370,7 @@ describe('readScenarioLink: what mail programs and chat tools do to a link', () 
     const wide = '中'.repeat(500);
     const longest: Scenario = {
       baseline: { populationRisk: 0.30000000000000004, exposurePrevalence: 0.30000000000000004, years: 0.30000000000000004 },
-      effect: { measure: 'OR', estimate: 1.0000000000000002, lower: 1.0000000000000002e-10, upper: 999.9999999999999, level: 0.95, design: 'risk-set-case-control', followUpYears: 99.99999999999999, adjusted: true },
+      effect: { measure: 'OR', estimate: 1.0000000000000002, lower: 0.0010000000000000002, upper: 999.9999999999999, level: 0.95, design: 'risk-set-case-control', followUpYears: 99.99999999999999, adjusted: true },
       horizonYears: 99.99999999999999,
       denominator: 1000,
       wording: { outcome: wide, exposure: wide, comparison: wide, population: wide, citation: wide },
