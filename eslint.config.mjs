@@ -5,6 +5,8 @@ const config = [
   {
     ignores: [
       '.next/**',
+      'out-headers/**',
+      'public/sw.js',
       'out/**',
       'dist/**',
       'next-env.d.ts',

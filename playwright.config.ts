@@ -66,7 +66,7 @@ export default defineConfig({
   projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'], launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS } } }],
   webServer: {
     // A production build, so the tests see the real bundle and the production CSP.
-    command: `npx next build && npx next start -p ${E2E_PORT} -H 127.0.0.1`,
+    command: `npm run build && npx next start -p ${E2E_PORT} -H 127.0.0.1`,
     url: `http://127.0.0.1:${E2E_PORT}/`,
     timeout: 180_000,
     reuseExistingServer: !process.env.CI,

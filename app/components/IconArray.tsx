@@ -1,16 +1,17 @@
 /**
- * One icon array: the whole group as person figures, filled row by row from the top-left
+ * One icon array: the whole group as figures (iconStyle.ts), filled row by row from the top-left
  * corner in the order the engine laid out (lib/engine/iconArray.ts). Used on the consultation
  * screen and the handout alike, so every picture in the app is drawn the same way.
  *
  * The picture's text alternative is the sentence printed under it (`description`), so a screen
- * reader hears exactly what a sighted reader reads. Each icon carries `data-kind` and
- * `data-uncertain` so tests can count what is drawn.
+ * reader hears exactly what a sighted reader reads. Each icon is one `<use>` carrying `data-kind`
+ * and `data-uncertain` so tests can count what is drawn; the range's band is drawn behind the
+ * icons as plain rectangles.
  */
 import { memo } from 'react';
 import type { IconArrayLayout } from '@/lib/engine/iconArray';
 import { IconPatterns } from './IconPatterns';
-import { ICON_HEIGHT, ICON_WIDTH, iconLook, PERSON_PATH } from './iconStyle';
+import { ICON_COLOURS, ICON_HEIGHT, ICON_WIDTH, iconLook, PERSON_PATH } from './iconStyle';
 
 export interface IconArrayProps {
   readonly layout: IconArrayLayout;
@@ -41,8 +42,9 @@ function IconArrayView({ layout, title, description, idPrefix }: IconArrayProps)
   const { columns, cells } = layout;
   const rows = Math.ceil(cells.length / columns);
   const last = position(columns * rows - 1, columns);
-  const width = last.x + ICON_WIDTH + 1;
-  const height = last.y + ICON_HEIGHT + 1;
+  // Room around the icons for the range's band, which reaches half a gap beyond the outer icons.
+  const width = last.x + ICON_WIDTH + GAP_X;
+  const height = last.y + ICON_HEIGHT + GAP_Y;
   const symbolId = `${idPrefix}-person`;
   const titleId = `${idPrefix}-title`;
   const descriptionId = `${idPrefix}-description`;
@@ -55,7 +57,7 @@ function IconArrayView({ layout, title, description, idPrefix }: IconArrayProps)
         className={`icon-array__picture icon-array__picture--${columns}`}
         role="img"
         aria-labelledby={descriptionId}
-        viewBox={`-0.5 -0.5 ${width} ${height}`}
+        viewBox={`${-GAP_X / 2} ${-GAP_Y / 2} ${width} ${height}`}
         preserveAspectRatio="xMidYMin meet"
       >
         <IconPatterns idPrefix={idPrefix} />
@@ -64,6 +66,14 @@ function IconArrayView({ layout, title, description, idPrefix }: IconArrayProps)
             <path d={PERSON_PATH} />
           </symbol>
         </defs>
+        {/* The range: a pale tile behind each "could be" icon; neighbouring tiles join into one band. */}
+        <g className="icon-array__range" aria-hidden="true">
+          {cells.map((cell, index) => {
+            if (!cell.uncertain) return null;
+            const { x, y } = position(index, columns);
+            return <rect key={index} x={x - GAP_X / 2} y={y - GAP_Y / 2} width={ICON_WIDTH + GAP_X} height={ICON_HEIGHT + GAP_Y} fill={ICON_COLOURS.zone} />;
+          })}
+        </g>
         {cells.map((cell, index) => {
           const { x, y } = position(index, columns);
           const look = iconLook(cell.kind, cell.uncertain, idPrefix);

@@ -43,6 +43,7 @@ export function IconLegend({ entries, idPrefix, heading = 'Key to the pictures' 
             <li key={`${entry.kind}-${entry.uncertain === true}`} className="icon-legend__item">
               <svg className="icon-legend__swatch" viewBox={`-1 -1 ${ICON_WIDTH + 2} ${ICON_HEIGHT + 2}`} aria-hidden="true" focusable="false">
                 <IconPatterns idPrefix={swatchPrefix} />
+                {look.zone ? <rect x={-1} y={-1} width={ICON_WIDTH + 2} height={ICON_HEIGHT + 2} fill={look.zone} /> : null}
                 <path d={PERSON_PATH} fill={look.fill} stroke={look.stroke} strokeWidth={look.strokeWidth} strokeDasharray={look.strokeDasharray} />
               </svg>
               <span>{entry.label}</span>

@@ -1,34 +1,42 @@
 /**
- * How each icon of an icon array is drawn: one person figure, one palette, shared by the
- * arrays and their legend so a legend swatch always looks exactly like the icon it explains.
+ * How each icon of an icon array is drawn: one figure, one palette, shared by the arrays and
+ * their legend so a legend swatch always looks exactly like the icon it explains.
  *
- * Palette (our own; contrast measured against the white page, WCAG 2.2 SC 1.4.11 needs ≥ 3:1):
- * - reference events: dark blue #1f4e8a, solid (8.35:1)
- * - added events: orange #c05a00 with white diagonal stripes, outlined #8a3c00 (7.70:1)
- * - avoided events: white with orange diagonal stripes, outlined #8a3c00 (7.70:1)
- * - no event: pale grey #e8ebef, outlined mid grey #6b7280 (4.83:1)
- * - "could be" (inside the interval): a dashed dark-orange outline #8a3c00 (7.70:1); an icon
- *   that has no event at the estimate is also tinted light orange #f5d2b3.
- * Blue against orange avoids the red/green pair; the two event colours also differ in
- * lightness (1.87:1), and the stripes and the dashed outline are a second cue that survives
- * greyscale print (WCAG 2.2 SC 1.4.1).
+ * The look is Hundredfold's own (the app's teal and ochre, from its mark in public/icon.svg):
+ * - the figure: a round head over a bell-shaped body, narrow at the neck and wide at the base;
+ * - reference events ("would have it anyway"): deep teal #0b4d4a, solid (9.66:1 on white);
+ * - added events ("extra"): ochre #a3620a sprinkled with white dots, outlined dark ochre #6e4300
+ *   (fill 4.87:1, outline 8.52:1);
+ * - avoided events: white sprinkled with ochre dots, outlined #6e4300;
+ * - no event: pale stone #e9e6df, outlined warm grey #78716a (4.81:1);
+ * - the range ("could be", inside the interval): each icon stands on a pale gold tile #f6e2b3,
+ *   the tiles of neighbouring icons joining into one band, so the range reads as a block at any
+ *   size; the icon also gets a dashed dark-ochre outline (8.52:1), and one with no event at the
+ *   estimate is filled cream #fff7e6.
+ * Contrast ratios against the white page, WCAG 2.2 SC 1.4.11 (graphics ≥ 3:1), are checked in
+ * tests/unit/components/iconStyle.test.ts.
+ *
+ * Teal against ochre runs along the blue–yellow axis that red–green colour vision keeps, and the
+ * two also differ in lightness (about 2:1), so they stay apart in greyscale; the dots, the band
+ * and the dashed outline are second cues that survive black-and-white print (WCAG 2.2 SC 1.4.1).
  */
 import type { IconKind } from '@/lib/engine/iconArray';
 
 export const ICON_COLOURS = {
-  event: '#1f4e8a',
-  added: '#c05a00',
-  edge: '#8a3c00',
-  none: '#e8ebef',
-  noneEdge: '#6b7280',
-  couldBe: '#f5d2b3',
+  event: '#0b4d4a',
+  added: '#a3620a',
+  edge: '#6e4300',
+  none: '#e9e6df',
+  noneEdge: '#78716a',
+  couldBe: '#fff7e6',
+  zone: '#f6e2b3',
   paper: '#ffffff',
 } as const;
 
-/** The person figure in a 10 × 12 box: a round head over rounded shoulders. */
+/** The figure in a 10 × 12 box: a round head over a bell-shaped body. */
 export const PERSON_PATH =
-  'M7.3 2.5A2.3 2.3 0 1 1 2.7 2.5A2.3 2.3 0 1 1 7.3 2.5Z' +
-  'M1.2 12V7.7C1.2 6 2.4 5.3 3.9 5.3H6.1C7.6 5.3 8.8 6 8.8 7.7V12Z';
+  'M7.05 2.35A2.05 2.05 0 1 1 2.95 2.35A2.05 2.05 0 1 1 7.05 2.35Z' +
+  'M1.3 12L1.85 8.3C2.15 6.2 3.35 5.15 5 5.15C6.65 5.15 7.85 6.2 8.15 8.3L8.7 12Z';
 
 export const ICON_WIDTH = 10;
 export const ICON_HEIGHT = 12;
@@ -38,6 +46,8 @@ export interface IconLook {
   readonly stroke: string;
   readonly strokeWidth: number;
   readonly strokeDasharray?: string;
+  /** The tile the icon stands on when it is inside the range; absent outside it. */
+  readonly zone?: string;
 }
 
 /** Pattern ids are prefixed so two arrays on one page never share an id. */
@@ -47,17 +57,18 @@ export function patternIds(idPrefix: string): { added: string; avoided: string }
 
 export function iconLook(kind: IconKind, uncertain: boolean, idPrefix: string): IconLook {
   const ids = patternIds(idPrefix);
-  const dashed = uncertain ? { strokeDasharray: '1.6 1' } : {};
+  const range = uncertain ? { strokeDasharray: '1.5 0.9', zone: ICON_COLOURS.zone } : {};
+  const edgeWidth = uncertain ? 1.1 : 0.6;
   switch (kind) {
     case 'event':
-      return { fill: ICON_COLOURS.event, stroke: uncertain ? ICON_COLOURS.edge : ICON_COLOURS.event, strokeWidth: uncertain ? 1 : 0.6, ...dashed };
+      return { fill: ICON_COLOURS.event, stroke: uncertain ? ICON_COLOURS.edge : ICON_COLOURS.event, strokeWidth: edgeWidth, ...range };
     case 'added':
-      return { fill: `url(#${ids.added})`, stroke: ICON_COLOURS.edge, strokeWidth: uncertain ? 1 : 0.6, ...dashed };
+      return { fill: `url(#${ids.added})`, stroke: ICON_COLOURS.edge, strokeWidth: edgeWidth, ...range };
     case 'avoided':
-      return { fill: `url(#${ids.avoided})`, stroke: ICON_COLOURS.edge, strokeWidth: uncertain ? 1 : 0.6, ...dashed };
+      return { fill: `url(#${ids.avoided})`, stroke: ICON_COLOURS.edge, strokeWidth: edgeWidth, ...range };
     case 'none':
       return uncertain
-        ? { fill: ICON_COLOURS.couldBe, stroke: ICON_COLOURS.edge, strokeWidth: 1, ...dashed }
+        ? { fill: ICON_COLOURS.couldBe, stroke: ICON_COLOURS.edge, strokeWidth: edgeWidth, ...range }
         : { fill: ICON_COLOURS.none, stroke: ICON_COLOURS.noneEdge, strokeWidth: 0.6 };
   }
 }

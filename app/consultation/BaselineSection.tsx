@@ -37,6 +37,13 @@ export function BaselineSection({ tables }: { tables: readonly PopulationTable[]
             </div>
           ) : null}
           {table ? (
+            <TextField
+              name="tablePrevalence"
+              label="Share of the population exposed (optional)"
+              hint="A fraction: 0.3 means 30 in 100. Replaces the table’s own figure; used to take the exposed people out of the table’s average."
+            />
+          ) : null}
+          {table ? (
             <Suspense fallback={<p className="lookup lookup__pending">Looking up the table…</p>}>
               <LookupSummary table={table} person={{ age, sex }} />
             </Suspense>

@@ -8,24 +8,18 @@
  */
 import { memo } from 'react';
 import { Area, Bar, CartesianGrid, Cell, ComposedChart, ErrorBar, Line, ResponsiveContainer, Text, XAxis, YAxis } from 'recharts';
-import { absoluteRiskBars } from '@/lib/chart/absoluteRisk';
-import { describeRiskByHorizon, formatPercentValue, type RiskAtHorizon } from '@/lib/chart/riskByHorizon';
-import type { ComputeResult } from '@/lib/engine/types';
-import { intervalLabel } from '@/lib/wording/format';
+import type { ChartsView } from '@/lib/consultation';
+import { ICON_COLOURS } from '@/app/components/iconStyle';
 
-const BLUE = '#1f4e8a';
-const ORANGE = '#c05a00';
+/** The pictures' colours (iconStyle.ts): reference group teal, exposed group ochre. */
+const BLUE = ICON_COLOURS.event;
+const ORANGE = ICON_COLOURS.added;
 const INK = '#1b1f24';
 const GRID = '#d5d9df';
 
 export interface ChartsProps {
-  readonly result: ComputeResult;
-  readonly points: readonly RiskAtHorizon[];
-  /** Sentence for the first chart: lib/wording's clinician "absolute risks" line. */
-  readonly absoluteSentence: string;
-  readonly groups: { readonly exposed: string; readonly comparison: string };
-  /** Capitalised short names of the groups, for axis labels. */
-  readonly names: { readonly exposed: string; readonly comparison: string };
+  /** Data and words from lib/consultation (consultationDetails). */
+  readonly view: ChartsView;
 }
 
 /** A group name under its bar, wrapped onto several lines instead of running into the next. */
@@ -37,25 +31,18 @@ function GroupTick({ x, y, payload }: { x?: number | string; y?: number | string
   );
 }
 
-function ChartsInner({ result, points, absoluteSentence, groups, names }: ChartsProps) {
-  // The reference group's risk is held fixed, so it gets no whisker at all.
-  const bars = absoluteRiskBars(result).map((bar) => ({
-    ...bar,
-    name: bar.group === 'exposed' ? names.exposed : names.comparison,
-    whisker: bar.group === 'exposed' ? bar.whiskerPercent : undefined,
-  }));
-  const horizonSentence = describeRiskByHorizon(points, groups, result.level);
-  const ci = intervalLabel(result.level);
+function ChartsInner({ view }: ChartsProps) {
+  const { bars, points, names, intervalLabel: ci } = view;
   const tickStyle = { fill: INK, fontSize: 12 };
   return (
     <section className="charts" aria-labelledby="charts-heading">
       <h3 id="charts-heading">Charts</h3>
       <div className="charts__grid">
         <figure className="chart" data-testid="chart-absolute">
-          <figcaption id="chart-absolute-caption">{absoluteSentence}</figcaption>
+          <figcaption id="chart-absolute-caption">{view.absoluteSentence}</figcaption>
           <div className="chart__frame" role="img" aria-labelledby="chart-absolute-caption">
             <ResponsiveContainer width="100%" height={280}>
-              <ComposedChart data={bars} margin={{ top: 12, right: 12, bottom: 4, left: 0 }} accessibilityLayer={false}>
+              <ComposedChart data={[...bars]} margin={{ top: 12, right: 12, bottom: 4, left: 0 }} accessibilityLayer={false}>
                 <CartesianGrid stroke={GRID} vertical={false} />
                 <XAxis dataKey="name" tick={<GroupTick />} interval={0} stroke={INK} height={64} />
                 <YAxis unit="%" tick={tickStyle} stroke={INK} width={48} domain={[0, 'auto']} />
@@ -69,7 +56,7 @@ function ChartsInner({ result, points, absoluteSentence, groups, names }: Charts
             </ResponsiveContainer>
           </div>
           <table className="data-table data-table--compact">
-            <caption>Chart data: risk over {points[points.length - 1]?.horizonYears ?? result.horizonYears} years</caption>
+            <caption>{view.absoluteTableCaption}</caption>
             <thead>
               <tr>
                 <th scope="col">Group</th>
@@ -81,8 +68,8 @@ function ChartsInner({ result, points, absoluteSentence, groups, names }: Charts
               {bars.map((bar) => (
                 <tr key={bar.group}>
                   <th scope="row">{bar.name}</th>
-                  <td>{formatPercentValue(bar.riskPercent)}</td>
-                  <td>{bar.group === 'exposed' ? `${formatPercentValue(bar.lowerPercent)} to ${formatPercentValue(bar.upperPercent)}` : 'held fixed'}</td>
+                  <td>{bar.riskText}</td>
+                  <td>{bar.intervalText}</td>
                 </tr>
               ))}
             </tbody>
@@ -90,7 +77,7 @@ function ChartsInner({ result, points, absoluteSentence, groups, names }: Charts
         </figure>
 
         <figure className="chart" data-testid="chart-horizon">
-          <figcaption id="chart-horizon-caption">{horizonSentence}</figcaption>
+          <figcaption id="chart-horizon-caption">{view.horizonSentence}</figcaption>
           <div className="chart__frame" role="img" aria-labelledby="chart-horizon-caption">
             <ResponsiveContainer width="100%" height={240}>
               <ComposedChart data={[...points]} margin={{ top: 12, right: 16, bottom: 4, left: 0 }} accessibilityLayer={false}>
@@ -104,8 +91,8 @@ function ChartsInner({ result, points, absoluteSentence, groups, names }: Charts
             </ResponsiveContainer>
           </div>
           <p className="chart__key">
-            <span className="chart__key-item chart__key-item--reference">Solid line: {names.comparison}</span>
-            <span className="chart__key-item chart__key-item--exposed">Dashed line: {names.exposed} (shaded: {ci})</span>
+            <span className="chart__key-item chart__key-item--reference">{view.keyReference}</span>
+            <span className="chart__key-item chart__key-item--exposed">{view.keyExposed}</span>
           </p>
           <details className="chart__data">
             <summary>Chart data by year</summary>
@@ -120,14 +107,12 @@ function ChartsInner({ result, points, absoluteSentence, groups, names }: Charts
                 </tr>
               </thead>
               <tbody>
-                {points.map((p) => (
-                  <tr key={p.horizonYears}>
-                    <th scope="row">{p.horizonYears.toLocaleString('en', { maximumFractionDigits: 1 })}</th>
-                    <td>{formatPercentValue(p.referencePercent)}</td>
-                    <td>{formatPercentValue(p.exposedPercent)}</td>
-                    <td>
-                      {formatPercentValue(p.exposedLowerPercent)} to {formatPercentValue(p.exposedUpperPercent)}
-                    </td>
+                {view.horizonRows.map((row) => (
+                  <tr key={row.years}>
+                    <th scope="row">{row.years}</th>
+                    <td>{row.reference}</td>
+                    <td>{row.exposed}</td>
+                    <td>{row.interval}</td>
                   </tr>
                 ))}
               </tbody>

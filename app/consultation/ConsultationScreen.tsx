@@ -2,31 +2,36 @@
 /**
  * The consultation screen on `/`: the form on one side, the result on the other.
  *
- * - react-hook-form with a zod resolver built on the engine's schemas (./formModel.ts).
- * - The result is recomputed from the current values on every change, through the same
- *   pipeline as the resolver; when any input is invalid there is no result at all.
+ * Data flow, once per change (DEVELOPERS.md "Follow a number"):
+ * - react-hook-form holds the text as typed. The list of tables (bundled plus those taken from
+ *   the clinic library) is derived while rendering and handed to the resolver as its context.
+ * - The resolver and the result ask one pipeline (./pipeline.ts → ./formModel.ts
+ *   formToFigures) for the same values; it runs the engine once and answers both.
+ * - The result panel renders the view model from lib/consultation (consultationView); it
+ *   computes nothing.
  * - The address holds the whole scenario through the link codec (lib/link): a link opens
  *   exactly that screen, and reloading keeps it. Nothing is sent anywhere while typing.
  */
-import { zodResolver } from '@hookform/resolvers/zod';
-import { memo, useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { flushSync } from 'react-dom';
-import { FormProvider, useForm, useWatch, type Control, type Resolver } from 'react-hook-form';
-import type { z } from 'zod';
+import { toNestErrors } from '@hookform/resolvers';
+import { memo, useCallback, useEffect, useMemo, useState } from 'react';
+import { FormProvider, useForm, useWatch, type FieldError, type Resolver } from 'react-hook-form';
+import { checkEntry, type EntryCheck, type WordingField } from '@/lib/consultation/entry';
 import { DEMO_EVIDENCE, DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import type { HistoryMatch } from '@/lib/glycaemia/match';
-import { fail, type Issue, type Warning } from '@/lib/result';
+import type { LinkReading } from '@/lib/link';
+import { LinkNotice } from '@/app/link/LinkNotice';
+import { pushEmptyScenarioLink, useScenarioLink, writeScenarioLink } from '@/app/link/useScenarioLink';
+import { useGlucoseHistory } from '@/app/components/glucose/useGlucoseHistory';
 import { DEMO_HEART_FAILURE_10Y, DEMO_TABLES } from '@/lib/tables/demo';
+import { SEE_RESULT, SEE_STILL_NEEDED } from '@/lib/wording/screen';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { BaselineSection } from './BaselineSection';
 import { EvidenceSection } from './EvidenceSection';
-import { EMPTY_FORM_VALUES, formInputSchema, formToOutcome, makeConsultationSchema, type ConsultationFormValues } from './formModel';
+import { EMPTY_FORM_VALUES, formInputSchema, type ConsultationFormValues } from './formModel';
 import { GlucoseSection, LibrarySection } from './OptionalSections';
+import { createFormPipeline, sameFormValues, type FormPipeline } from './pipeline';
 import { preloadFigures, ResultPanel } from './ResultPanel';
 import { SettingsSection } from './SettingsSection';
-
-type Schema = ReturnType<typeof makeConsultationSchema>;
 
 /**
  * The link codec is only needed once the page is running (to read the address, and to write
@@ -41,6 +46,27 @@ function loadLinkCodec(): Promise<typeof import('@/lib/link')> {
 const Baseline = memo(BaselineSection);
 const Evidence = memo(EvidenceSection);
 const Settings = memo(SettingsSection);
+const Glucose = memo(GlucoseSection);
+const Library = memo(LibrarySection);
+
+/** What the resolver is handed on every run: the tables the clinician can pick from now. */
+interface ResolverContext {
+  readonly tables: readonly PopulationTable[];
+}
+
+/** A resolver over the shared pipeline: the pipeline's issues become field errors. */
+function pipelineResolver(pipeline: FormPipeline): Resolver<ConsultationFormValues, ResolverContext> {
+  return (values, context, options) => {
+    const outcome = pipeline(values, context?.tables ?? []);
+    if (outcome.ok) return { values, errors: {} };
+    const flat: Record<string, FieldError> = {};
+    for (const issue of outcome.issues) {
+      const name = issue.path.join('.');
+      if (name !== '' && flat[name] === undefined) flat[name] = { type: issue.code, message: issue.message };
+    }
+    return { values: {}, errors: toNestErrors(flat, options) };
+  };
+}
 
 /** An example the clinician can load with one click: demo table and demo evidence, both invented. */
 export async function exampleValues(): Promise<ConsultationFormValues> {
@@ -55,38 +81,10 @@ export async function exampleValues(): Promise<ConsultationFormValues> {
   };
 }
 
-interface LiveResultProps {
-  readonly control: Control<z.input<Schema>, unknown, z.output<Schema>>;
-  readonly tables: readonly PopulationTable[];
-  /** Cautions from outside the engine (the glucose history's match), shown with the engine's. */
-  readonly extraWarnings: readonly Warning[];
-}
+const NO_ENTRY: EntryCheck = { noLongerApplies: false, leftoverFields: [], illustrative: false };
 
-function LiveResult({ control, tables, extraWarnings }: LiveResultProps) {
-  const values = useWatch({ control });
-  // The form re-announces its values after every validation; the result is rebuilt only when
-  // they differ, so the screen below redraws once per change.
-  const key = JSON.stringify(values);
-  const outcome = useMemo(() => {
-    const shaped = formInputSchema.safeParse(JSON.parse(key));
-    if (!shaped.success) return fail<never>([{ code: 'invalid', path: [], message: 'The form is incomplete' }]);
-    return formToOutcome(shaped.data, tables);
-  }, [key, tables]);
-
-  useEffect(() => {
-    if (!outcome.ok) return;
-    let current = true;
-    void loadLinkCodec().then(({ encodeScenarioLink }) => {
-      if (!current) return;
-      const path = encodeScenarioLink(outcome.value.scenario);
-      if (path !== `${window.location.pathname}${window.location.search}`) window.history.replaceState(null, '', path);
-    });
-    return () => {
-      current = false;
-    };
-  }, [outcome]);
-
-  return <ResultPanel outcome={outcome} extraWarnings={extraWarnings} />;
+function unique<T extends { id: string }>(bundled: readonly T[], added: readonly T[]): readonly T[] {
+  return [...bundled, ...added.filter((item) => !bundled.some((b) => b.id === item.id))];
 }
 
 export function ConsultationScreen({
@@ -99,39 +97,44 @@ export function ConsultationScreen({
   // Tables and entries the clinician takes from the clinic library join the bundled ones.
   const [libraryTables, setLibraryTables] = useState<readonly PopulationTable[]>([]);
   const [libraryEntries, setLibraryEntries] = useState<readonly EvidenceEntry[]>([]);
-  const [match, setMatch] = useState<HistoryMatch | null>(null);
-  const allTables = useMemo(() => [...tables, ...libraryTables.filter((t) => !tables.some((d) => d.id === t.id))], [tables, libraryTables]);
-  const allEntries = useMemo(() => [...entries, ...libraryEntries.filter((e) => !entries.some((d) => d.id === e.id))], [entries, libraryEntries]);
-  const tablesRef = useRef(allTables);
-  useEffect(() => {
-    tablesRef.current = allTables;
-  }, [allTables]);
-  // The resolver reads the current tables when it runs (never during render), keeping one
-  // schema per list of tables.
-  const resolverCache = useRef<{ tables: readonly PopulationTable[]; resolve: Resolver<z.input<Schema>, unknown, z.output<Schema>> } | null>(null);
-  const resolver = useCallback<Resolver<z.input<Schema>, unknown, z.output<Schema>>>((values, context, options) => {
-    const current = tablesRef.current;
-    if (resolverCache.current?.tables !== current) {
-      resolverCache.current = { tables: current, resolve: zodResolver(makeConsultationSchema(current)) };
-    }
-    return resolverCache.current.resolve(values, context, options);
-  }, []);
-  const extraWarnings = useMemo(() => [match?.diabetesRangeNote, match?.warning].filter((w): w is Warning => w !== undefined), [match]);
-  const methods = useForm<z.input<Schema>, unknown, z.output<Schema>>({
+  const [linkReading, setLinkReading] = useState<LinkReading | undefined>(undefined);
+  const link = useScenarioLink();
+  const allTables = useMemo(() => unique(tables, libraryTables), [tables, libraryTables]);
+  const allEntries = useMemo(() => unique(entries, libraryEntries), [entries, libraryEntries]);
+  const [pipeline] = useState(createFormPipeline);
+  const [resolver] = useState(() => pipelineResolver(pipeline));
+  const methods = useForm<ConsultationFormValues, ResolverContext>({
     resolver,
+    context: { tables: allTables },
     defaultValues: EMPTY_FORM_VALUES,
     mode: 'onChange',
     delayError: 350,
   });
-  const [linkIssues, setLinkIssues] = useState<readonly Issue[]>([]);
-  const { reset, setValue, getValues } = methods;
+  const { reset, setValue, getValues, control, trigger } = methods;
+  const values = useWatch({ control });
+  const figures = pipeline(values, allTables);
+  // Whether the saved entry the form started from still applies, and which of its words are left.
+  const [kept, setKept] = useState<Partial<Record<WordingField, string>>>({});
+  const entryCheck = useMemo(() => {
+    const shaped = formInputSchema.safeParse(values);
+    if (!shaped.success) return NO_ENTRY;
+    return checkEntry(allEntries.find((e) => e.id === shaped.data.evidenceId), shaped.data, kept);
+  }, [values, allEntries, kept]);
+  const keepWording = useCallback((field: WordingField, text: string) => setKept((k) => ({ ...k, [field]: text })), []);
+  // The glucose rows live here, so closing their section keeps them; the match is derived from them.
+  const glucose = useGlucoseHistory({ exposure: allEntries.find((e) => e.id === values.evidenceId)?.exposureDefinition });
+
+  // When the list of tables changes (one taken from the library, or read back for a link), the
+  // form is checked again against the new list: the resolver gets it as its context.
+  useEffect(() => {
+    if (libraryTables.length > 0) void trigger();
+  }, [libraryTables, trigger]);
 
   const takeLibraryTable = useCallback(
     (table: PopulationTable) => {
-      // The new option must be in the list before the select can take it.
-      flushSync(() => setLibraryTables((list) => [...list.filter((t) => t.id !== table.id), table]));
-      tablesRef.current = [...tablesRef.current.filter((t) => t.id !== table.id), table];
-      const options = { shouldValidate: true, shouldDirty: true, shouldTouch: true } as const;
+      setLibraryTables((list) => [...list.filter((t) => t.id !== table.id), table]);
+      // Checked once the list holds the table (the effect above), not now against the old list.
+      const options = { shouldDirty: true, shouldTouch: true } as const;
       setValue('baselineSource', 'table', options);
       setValue('tableId', table.id, options);
     },
@@ -140,7 +143,7 @@ export function ConsultationScreen({
 
   const takeLibraryEntry = useCallback(
     async (entry: EvidenceEntry) => {
-      flushSync(() => setLibraryEntries((list) => [...list.filter((e) => e.id !== entry.id), entry]));
+      setLibraryEntries((list) => [...list.filter((e) => e.id !== entry.id), entry]);
       const { evidenceToFormValues } = await import('./fromScenario');
       const filled = evidenceToFormValues(entry);
       const options = { shouldValidate: true, shouldDirty: true, shouldTouch: true } as const;
@@ -150,6 +153,22 @@ export function ConsultationScreen({
     },
     [setValue],
   );
+
+  const useEvidence = useCallback((entry: EvidenceEntry) => void takeLibraryEntry(entry), [takeLibraryEntry]);
+
+  // The address follows a valid scenario.
+  const scenario = figures.ok ? figures.value.scenario : undefined;
+  useEffect(() => {
+    if (!scenario) return;
+    let current = true;
+    void loadLinkCodec().then(({ encodeScenarioLink }) => {
+      if (!current) return;
+      writeScenarioLink(encodeScenarioLink(scenario));
+    });
+    return () => {
+      current = false;
+    };
+  }, [scenario]);
 
   // The result's drawing code is fetched once the page is idle, before any result is due.
   useEffect(() => {
@@ -161,35 +180,53 @@ export function ConsultationScreen({
     });
   }, []);
 
-  // A scenario in the address (a copied link, a reload, a `hundredfold link` path) fills the form.
+  // A scenario in the address (a copied link, a reload, a `hundredfold link` path, or Back
+  // after "Clear the form") fills the form. The fragment is read after hydration (the page is
+  // static): app/link/useScenarioLink.ts.
   useEffect(() => {
-    // The address is outside React and is read once, after hydration (the page is static).
-    const query = window.location.search.replace(/^\?/, '');
-    if (query === '') return;
-    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(async ([{ decodeScenarioQuery }, { scenarioToFormValues }]) => {
-      const decoded = decodeScenarioQuery(query);
-      if (!decoded.ok) {
-        setLinkIssues(decoded.issues);
-        return;
-      }
-      const first = scenarioToFormValues(decoded.value, tablesRef.current);
+    // No scenario in the address (a plain visit, or after "Clear the form"): nothing to read;
+    // the notice below is shown only while the address holds a link.
+    if (link === undefined || link === '') return;
+    let current = true;
+    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(async ([{ readScenarioLink }, { scenarioToFormValues }]) => {
+      if (!current) return;
+      const reading = readScenarioLink(link);
+      setLinkReading(reading);
+      const decoded = reading.result;
+      if (!decoded.ok) return;
+      const first = scenarioToFormValues(decoded.value, tables);
       reset(first);
       // A table from this browser's clinic library: once it is read, the form names it as the
       // baseline's source again (only if its stratum still gives the same baseline, which
       // scenarioToFormValues checks, and only if the clinician has not started typing).
       const tableId = decoded.value.tableId;
-      if (tableId === undefined || tablesRef.current.some((t) => t.id === tableId)) return;
+      if (tableId === undefined || tables.some((t) => t.id === tableId)) return;
       const { openLibrary } = await import('@/app/storage/library');
       const opened = await openLibrary();
       if (!opened.ok) return;
       const got = await opened.value.getTable(tableId);
-      if (!got.ok || JSON.stringify(getValues()) !== JSON.stringify(first)) return;
+      if (!current || !got.ok || !sameFormValues(getValues(), first)) return;
       const table = got.value.table;
-      flushSync(() => setLibraryTables((list) => [...list.filter((t) => t.id !== table.id), table]));
-      tablesRef.current = [...tablesRef.current.filter((t) => t.id !== table.id), table];
-      reset(scenarioToFormValues(decoded.value, tablesRef.current));
+      setLibraryTables((list) => [...list.filter((t) => t.id !== table.id), table]);
+      reset(scenarioToFormValues(decoded.value, [...tables, table]));
     });
-  }, [reset, getValues]);
+    return () => {
+      current = false;
+    };
+  }, [reset, getValues, tables, link]);
+
+  const [cleared, setCleared] = useState<ConsultationFormValues | null>(null);
+  function clearForm() {
+    const previous = getValues();
+    reset(EMPTY_FORM_VALUES);
+    // The scenario stays in the history: Back brings it back.
+    if (window.location.hash !== '') pushEmptyScenarioLink('/');
+    setCleared(sameFormValues(previous, EMPTY_FORM_VALUES) ? null : previous);
+  }
+  function undoClear() {
+    if (cleared) reset(cleared);
+    setCleared(null);
+  }
 
   return (
     <FormProvider {...methods}>
@@ -205,34 +242,36 @@ export function ConsultationScreen({
               updates as you type. Nothing you type is sent anywhere: the scenario stays in this page and its address.
             </p>
             <div className="intro__actions">
-              <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((values) => reset(values))} data-testid="load-example">
+              <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((example) => reset(example))} data-testid="load-example">
                 Fill in an example (illustrative numbers)
               </button>
-              <button type="button" className="button button--quiet" onClick={() => { reset(EMPTY_FORM_VALUES); window.history.replaceState(null, '', '/'); }}>
+              <button type="button" className="button button--quiet" onClick={clearForm} data-testid="clear-form">
                 Clear the form
               </button>
             </div>
-            {linkIssues.length > 0 ? (
-              <div className="link-problem" role="alert">
-                <p>This link could not be read, so the form starts empty:</p>
-                <ul>
-                  {linkIssues.map((issue) => (
-                    <li key={`${issue.path.join('.')}-${issue.code}`}>{issue.message}</li>
-                  ))}
-                </ul>
-              </div>
+            {cleared ? (
+              <p className="cleared" role="status" data-testid="cleared">
+                The form was cleared.{' '}
+                <button type="button" className="button button--quiet" onClick={undoClear} data-testid="undo-clear">
+                  Undo
+                </button>
+              </p>
             ) : null}
+            <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
           </div>
           <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
             <Baseline tables={allTables} />
-            <Evidence entries={allEntries} />
+            <Evidence entries={allEntries} entryCheck={entryCheck} onKeepWording={keepWording} />
             <Settings />
           </form>
-          <GlucoseSection entries={allEntries} onMatchChange={setMatch} />
-          <LibrarySection tables={allTables} entries={allEntries} onUseTable={takeLibraryTable} onUseEvidence={(entry) => void takeLibraryEntry(entry)} />
+          <Glucose history={glucose} />
+          <a className="see-result" href="#result" data-testid="see-result">
+            {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
+          </a>
+          <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
         </div>
         <div className="screen__result">
-          <LiveResult control={methods.control} tables={allTables} extraWarnings={extraWarnings} />
+          <ResultPanel figures={figures} extraWarnings={glucose.warnings} entry={entryCheck} />
         </div>
       </div>
     </FormProvider>

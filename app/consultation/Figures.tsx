@@ -1,20 +1,17 @@
 'use client';
 /**
- * A valid result, in order: the caution (first, not dismissible), who the figures are for,
- * "Copy link" and "Prepare handout", the pictures and sentences for the person, the clinician's
- * figures and warnings, the charts and how it was all worked out.
+ * A valid result, in order: the caution (first, not dismissible), the illustrative band for
+ * demo data, who the figures are for, "Copy link" and "Prepare handout", the pictures and
+ * sentences for the person, the clinician's figures and warnings, the charts and how it was
+ * all worked out. Everything shown comes from the view model (lib/consultation).
  */
 import { lazy, Suspense, useEffect, useMemo, useState } from 'react';
 import { Caution } from '@/app/components/Caution';
-import { riskByHorizon } from '@/lib/chart/riskByHorizon';
-import { explainSteps } from '@/lib/explain/steps';
-import type { Warning } from '@/lib/result';
-import { clinicianText } from '@/lib/wording/clinician';
-import { formatCount, overTheNext } from '@/lib/wording/format';
-import { patientText } from '@/lib/wording/patient';
+import { consultationDetails, type ConsultationView } from '@/lib/consultation';
 import { ClinicianPanel } from './ClinicianPanel';
-import type { FormOutcome } from './formModel';
+import type { FormFigures } from './formModel';
 import { PatientView } from './PatientView';
+import { IssueLinks } from './IssueLinks';
 import { ShareBar } from './ShareBar';
 import { WorkedOut } from './WorkedOut';
 
@@ -37,78 +34,56 @@ function useSettled<T>(value: T): T {
   return settled;
 }
 
-const NO_WARNINGS: readonly Warning[] = [];
-
-export function Figures({ outcome, extraWarnings = NO_WARNINGS }: { outcome: FormOutcome; extraWarnings?: readonly Warning[] }) {
-  const { scenario, result, table } = outcome;
-  const patientResult = useMemo(
-    () => patientText({ result, wording: scenario.wording, people: outcome.people, horizonYears: result.horizonYears }),
-    [result, scenario.wording, outcome.people],
-  );
-  const clinician = useMemo(() => {
-    const text = clinicianText(result, scenario.wording);
-    return extraWarnings.length > 0 ? { ...text, warnings: [...text.warnings, ...extraWarnings] } : text;
-  }, [result, scenario.wording, extraWarnings]);
-  const rangeNote = extraWarnings.find((w) => w.code === 'diabetes-range-latest');
+export function Figures({ figures, view }: { figures: FormFigures; view: ConsultationView }) {
   // The pictures, sentences and figures update at once; the charts and the worked-out steps
   // follow once typing pauses, so a keystroke is never held up by drawing the charts.
-  const later = useSettled(outcome);
-  const waiting = later !== outcome;
-  const points = useMemo(() => riskByHorizon(later.scenario, later.result.horizonYears), [later.scenario, later.result.horizonYears]);
-  const steps = useMemo(
-    () => explainSteps({ scenario: later.scenario, result: later.result, table: later.table, stratum: later.lookup?.stratum }),
-    [later],
-  );
-  const laterClinician = useMemo(() => clinicianText(later.result, later.scenario.wording), [later.result, later.scenario.wording]);
-  // Group names for the charts, from the same wording the sentences use.
-  const laterPatient = useMemo(
-    () => patientText({ result: later.result, wording: later.scenario.wording, people: later.people, horizonYears: later.result.horizonYears }),
-    [later],
-  );
-  const groupWords = laterPatient.ok
-    ? [laterPatient.value.exposedGroup, laterPatient.value.comparisonGroup, laterPatient.value.exposed.heading, laterPatient.value.reference.heading]
-    : ['', '', '', ''];
-  const [exposedGroup = '', comparisonGroup = '', exposedName = '', comparisonName = ''] = groupWords;
-  const chartGroups = useMemo(() => ({ exposed: exposedGroup, comparison: comparisonGroup }), [exposedGroup, comparisonGroup]);
-  const chartNames = useMemo(() => ({ exposed: exposedName, comparison: comparisonName }), [exposedName, comparisonName]);
+  const later = useSettled(figures);
+  const waiting = later !== figures;
+  const details = useMemo(() => consultationDetails(later), [later]);
 
-  if (!patientResult.ok) {
-    // The form checks what the sentences need, so this should not happen; if it does, no figure is shown.
-    return (
-      <div className="pending" data-testid="no-result">
-        <p className="pending__lead">No result: the sentences cannot be written.</p>
-        <ul>
-          {patientResult.issues.map((issue) => (
-            <li key={`${issue.path.join('.')}-${issue.code}`}>{issue.message}</li>
-          ))}
-        </ul>
-      </div>
-    );
-  }
-  const patient = patientResult.value;
-  const counts = result.iconArray;
   return (
     <div className="result__body" data-testid="result">
       <Caution />
-      {rangeNote ? (
+      {view.illustrativeBand ? (
+        <p className="illustrative-band" role="note" data-testid="illustrative-band">
+          {view.illustrativeBand}
+        </p>
+      ) : null}
+      {view.rangeNote ? (
         <p className="range-note" role="note" data-testid="diabetes-range-note">
-          <strong>For the clinician:</strong> {rangeNote.message}
+          <strong>For the clinician:</strong> {view.rangeNote.message}
         </p>
       ) : null}
       <p className="result__context" data-testid="result-context">
-        {`Figures for ${outcome.people}, ${overTheNext(result.horizonYears)}. Each picture shows ${formatCount(counts.denominator)} people (${counts.automatic ? 'number chosen automatically' : 'number chosen by the clinician'}).`}
-        {table ? ` Baseline from “${table.title}”.` : ''}
+        {view.contextLine}
       </p>
-      <ShareBar scenario={scenario} />
-      <PatientView text={patient} />
-      <ClinicianPanel text={clinician} teachBack={patient.teachBack} teachBackIntro={patient.teachBackIntro} />
+      {view.entryNotice ? (
+        <p className="entry-notice" role="note" data-testid="entry-notice">
+          {view.entryNotice}
+        </p>
+      ) : null}
+      <ShareBar scenario={figures.scenario} handoutAllowed={view.handoutAllowed} />
+      {view.capped ? (
+        <div className="capped" role="note" data-testid="capped">
+          <p className="capped__title">{view.capped.title}</p>
+          <p>{view.capped.text}</p>
+        </div>
+      ) : null}
+      {view.wordsNeeded.issues.length > 0 ? (
+        <div className="words-needed" data-testid="words-needed">
+          <p id="words-needed-heading">{view.wordsNeeded.lead}</p>
+          <IssueLinks issues={view.wordsNeeded.issues} labelledBy="words-needed-heading" />
+        </div>
+      ) : null}
+      {view.patient ? <PatientView view={view.patient} /> : null}
+      <ClinicianPanel view={view.clinician} />
       <div className={waiting ? 'settling settling--busy' : 'settling'} aria-busy={waiting} data-testid="settling">
-        {points.ok && laterPatient.ok ? (
+        {details.charts ? (
           <Suspense fallback={<p className="charts__loading">Loading the charts…</p>}>
-            <Charts result={later.result} points={points.value} absoluteSentence={laterClinician.absoluteRisks} groups={chartGroups} names={chartNames} />
+            <Charts view={details.charts} />
           </Suspense>
         ) : null}
-        <WorkedOut steps={steps} />
+        <WorkedOut steps={details.steps} />
       </div>
     </div>
   );

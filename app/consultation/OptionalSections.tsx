@@ -1,68 +1,43 @@
 'use client';
 /**
  * Two optional parts of the consultation, each opened by a button and loaded only then:
- * the person's glucose history (app/components/glucose) and the clinic library
- * (app/components/library). Neither is needed for a result, so neither weighs on the page's
- * first load.
+ * the person's glucose history (app/components/glucose/GlucoseSection.tsx, re-exported here) and
+ * the clinic library (app/components/library). Neither is needed for a result, so neither weighs
+ * on the page's first load.
  */
 import { lazy, Suspense, useState } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import type { HistoryMatch } from '@/lib/glycaemia/match';
 import type { PopulationTable } from '@/lib/tables/schema';
-import { formInputSchema, formToOutcome, type ConsultationFormValues } from './formModel';
+import type { Result } from '@/lib/result';
+import type { ConsultationFormValues, FormFigures } from './formModel';
 
-const GlucoseHistory = lazy(() => import('@/app/components/glucose/GlucoseHistory').then((m) => ({ default: m.GlucoseHistory })));
 const LibraryPanel = lazy(() => import('./LibraryPanel'));
 
 function Loading({ what }: { what: string }) {
   return <p className="charts__loading">Loading {what}…</p>;
 }
 
-export function GlucoseSection({ entries, onMatchChange }: { entries: readonly EvidenceEntry[]; onMatchChange: (match: HistoryMatch | null) => void }) {
-  const [open, setOpen] = useState(false);
-  const { control } = useFormContext<ConsultationFormValues>();
-  const evidenceId = useWatch({ control, name: 'evidenceId' });
-  const exposure = entries.find((e) => e.id === evidenceId)?.exposureDefinition;
-  return (
-    <div className="optional" data-testid="glucose-section">
-      <button
-        type="button"
-        className="button button--secondary"
-        aria-expanded={open}
-        onClick={() => {
-          if (open) onMatchChange(null);
-          setOpen(!open);
-        }}
-      >
-        {open ? 'Close the glucose history' : 'Check the person’s glucose history against the study’s exposure'}
-      </button>
-      {open ? (
-        <Suspense fallback={<Loading what="the glucose history" />}>
-          <GlucoseHistory exposure={exposure} onMatchChange={onMatchChange} />
-        </Suspense>
-      ) : null}
-    </div>
-  );
-}
+export { GlucoseSection } from '@/app/components/glucose/GlucoseSection';
 
 interface LibrarySectionProps {
   readonly tables: readonly PopulationTable[];
   readonly entries: readonly EvidenceEntry[];
   readonly onUseTable: (table: PopulationTable) => void;
   readonly onUseEvidence: (entry: EvidenceEntry) => void;
+  /** The figures on screen (./pipeline.ts), computed once by the screen. */
+  readonly figures: Result<FormFigures>;
 }
 
-function OpenLibrary({ tables, entries, onUseTable, onUseEvidence }: LibrarySectionProps) {
+function OpenLibrary({ entries, onUseTable, onUseEvidence, figures }: LibrarySectionProps) {
   const { control } = useFormContext<ConsultationFormValues>();
-  const values = useWatch({ control });
-  const shaped = formInputSchema.safeParse(values);
-  const outcome = shaped.success ? formToOutcome(shaped.data, tables) : undefined;
-  const entry = shaped.success ? entries.find((e) => e.id === shaped.data.evidenceId) : undefined;
-  const current = outcome?.ok
+  const [tableId, evidenceId] = useWatch({ control, name: ['tableId', 'evidenceId'] });
+  const entry = entries.find((e) => e.id === evidenceId);
+  const current =
+    figures.ok && figures.value.wordsNeeded.length === 0
     ? {
-        effect: outcome.value.scenario.effect,
-        wording: outcome.value.scenario.wording,
+        effect: figures.value.scenario.effect,
+        wording: figures.value.scenario.wording,
         exposureDefinition: entry?.exposureDefinition,
         illustrative: entry?.illustrative === true,
       }
@@ -72,7 +47,7 @@ function OpenLibrary({ tables, entries, onUseTable, onUseEvidence }: LibrarySect
       <LibraryPanel
         onUseTable={onUseTable}
         onUseEvidence={onUseEvidence}
-        selectedTableId={shaped.success ? shaped.data.tableId : undefined}
+        selectedTableId={tableId}
         selectedEvidenceId={entry?.id}
         current={current}
       />

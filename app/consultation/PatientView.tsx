@@ -1,22 +1,22 @@
 /**
  * What the person in the chair sees: the two icon arrays with one denominator, each with its
- * sentence, key and a small table of what it draws; then the two groups side by side in words.
- * Every string comes from lib/wording/patient.ts; every count from the engine.
+ * sentence, key and a small table of what it draws (adding up to the denominator, the range in
+ * its own row); then the two groups side by side in words. Rendered from the view model
+ * (lib/consultation/view.ts); nothing is computed here.
  */
 import { memo } from 'react';
-import { IconArray } from '@/app/components/IconArray';
-import { IconLegend, legendEntriesFrom } from '@/app/components/IconLegend';
-import type { ArrayText, PatientText } from '@/lib/wording/patient';
-import { formatCount } from '@/lib/wording/format';
 import { GroupsTable } from '@/app/components/GroupsTable';
+import { IconArray } from '@/app/components/IconArray';
+import { IconLegend } from '@/app/components/IconLegend';
+import type { PatientPanelView, PictureView } from '@/lib/consultation';
 
-function ArrayBlock({ text, idPrefix }: { text: ArrayText; idPrefix: string }) {
+function ArrayBlock({ picture, idPrefix }: { picture: PictureView; idPrefix: string }) {
   return (
-    <div className="array-block" data-testid={`array-${text.key}`}>
-      <IconArray layout={text.layout} title={text.title} description={text.alt} idPrefix={idPrefix} />
-      <IconLegend entries={legendEntriesFrom(text.legend)} idPrefix={`${idPrefix}-legend`} heading="Key" />
+    <div className="array-block" data-testid={`array-${picture.key}`}>
+      <IconArray layout={picture.layout} title={picture.title} description={picture.description} idPrefix={idPrefix} />
+      <IconLegend entries={picture.keyEntries} idPrefix={`${idPrefix}-legend`} heading="Key" />
       <table className="data-table data-table--compact">
-        <caption>What the picture shows, out of {formatCount(text.layout.denominator)}</caption>
+        <caption>{picture.tableCaption}</caption>
         <thead>
           <tr>
             <th scope="col">Icon</th>
@@ -24,45 +24,56 @@ function ArrayBlock({ text, idPrefix }: { text: ArrayText; idPrefix: string }) {
           </tr>
         </thead>
         <tbody>
-          {text.legend.map((item) => (
-            <tr key={item.kind}>
-              <th scope="row">{item.label}</th>
-              <td data-testid={`count-${text.key}-${item.kind}`}>{formatCount(item.count)}</td>
+          {picture.rows.map((row) => (
+            <tr key={row.kind} className={row.kind === 'total' ? 'data-table__total' : undefined}>
+              <th scope="row">{row.label}</th>
+              <td data-testid={`count-${picture.key}-${row.kind}`}>{row.count}</td>
             </tr>
           ))}
         </tbody>
+        {picture.rangeRow ? (
+          <tbody className="data-table__range">
+            <tr>
+              <th scope="row">{picture.rangeRow.label}</th>
+              <td data-testid={`count-${picture.key}-range`}>{picture.rangeRow.count}</td>
+            </tr>
+          </tbody>
+        ) : null}
       </table>
     </div>
   );
 }
 
-function PatientViewInner({ text }: { text: PatientText }) {
+function PatientViewInner({ view }: { view: PatientPanelView }) {
+  const [reference, exposed] = view.pictures;
   return (
-    <section className="patient" aria-labelledby="patient-heading">
-      <h3 id="patient-heading">For the person: out of {formatCount(text.denominator)} people like you</h3>
+    <section className="patient" aria-labelledby="patient-heading" data-testid="patient">
+      <h3 id="patient-heading">{view.heading}</h3>
       <div className="arrays">
-        <ArrayBlock text={text.reference} idPrefix="array-reference" />
-        <ArrayBlock text={text.exposed} idPrefix="array-exposed" />
+        <ArrayBlock picture={reference} idPrefix="array-reference" />
+        <ArrayBlock picture={exposed} idPrefix="array-exposed" />
       </div>
-      <GroupsTable text={text} className="data-table" testId="groups-table" />
-      <div className="meaning">
-        <div>
-          <h4>What these numbers mean</h4>
-          <ul>
-            {text.means.map((line) => (
-              <li key={line}>{line}</li>
-            ))}
-          </ul>
+      <GroupsTable text={view.groupsTable} className="data-table" testId="groups-table" />
+      {view.sentencesReady ? (
+        <div className="meaning">
+          <div>
+            <h4>What these numbers mean</h4>
+            <ul>
+              {view.means.map((line) => (
+                <li key={line}>{line}</li>
+              ))}
+            </ul>
+          </div>
+          <div>
+            <h4>What they do not mean</h4>
+            <ul>
+              {view.doesNotMean.map((line) => (
+                <li key={line}>{line}</li>
+              ))}
+            </ul>
+          </div>
         </div>
-        <div>
-          <h4>What they do not mean</h4>
-          <ul>
-            {text.doesNotMean.map((line) => (
-              <li key={line}>{line}</li>
-            ))}
-          </ul>
-        </div>
-      </div>
+      ) : null}
     </section>
   );
 }

@@ -1,14 +1,14 @@
 'use client';
 /**
- * The result: the caution first, then the pictures and sentences for the person, the
- * clinician's figures and warnings, the charts and how it was all worked out. Shown only for a
- * complete, valid scenario; otherwise a list of what is still needed, never an old result.
+ * The result: the view model of lib/consultation (consultationView), rendered. Shown as soon
+ * as the numbers are valid; otherwise a list of what is still needed, never an old result.
  */
-import { lazy, memo, Suspense, useEffect, useState } from 'react';
+import { lazy, memo, Suspense, useEffect, useMemo, useState } from 'react';
+import { consultationView, ENTRY_NO_LONGER_APPLIES, leftoverIssues, type EntryCheck } from '@/lib/consultation';
 import type { Issue, Result, Warning } from '@/lib/result';
-import { formatCount, overTheNext } from '@/lib/wording/format';
-import { fieldDomId, type FieldName } from './fields';
-import type { FormOutcome } from './formModel';
+import { NO_RESULT_ANNOUNCEMENT, NO_RESULT_LEAD } from '@/lib/wording/screen';
+import type { FormFigures } from './formModel';
+import { IssueLinks } from './IssueLinks';
 
 /**
  * The figures are drawn by a separate chunk: the page needs the form first, and a result only
@@ -34,52 +34,62 @@ function useQuietAnnouncement(text: string): string {
   return announced;
 }
 
-const SHOWN_ISSUES = 8;
 const NO_WARNINGS: readonly Warning[] = [];
 
 function Pending({ issues }: { issues: readonly Issue[] }) {
-  const shown = issues.slice(0, SHOWN_ISSUES);
   return (
     <div className="pending" data-testid="no-result">
-      <p className="pending__lead">No result yet. It appears here as soon as the inputs are complete and valid.</p>
-      {shown.length > 0 ? (
+      <p className="pending__lead">{NO_RESULT_LEAD}</p>
+      {issues.length > 0 ? (
         <>
           <p id="pending-list-heading">Still needed or to correct:</p>
-          <ul aria-labelledby="pending-list-heading">
-            {shown.map((issue) => (
-              <li key={`${issue.path.join('.')}-${issue.code}`}>
-                <a href={`#${fieldDomId(issue.path.join('.') as FieldName)}`}>{issue.message}</a>
-              </li>
-            ))}
-          </ul>
-          {issues.length > shown.length ? <p>…and {issues.length - shown.length} more.</p> : null}
+          <IssueLinks issues={issues} labelledBy="pending-list-heading" />
         </>
       ) : null}
     </div>
   );
 }
 
-function ResultPanelView({ outcome, extraWarnings = NO_WARNINGS }: { outcome: Result<FormOutcome>; extraWarnings?: readonly Warning[] }) {
-  const summary = outcome.ok
-    ? `Result updated: figures for ${outcome.value.people}, ${overTheNext(outcome.value.result.horizonYears)}, out of ${formatCount(outcome.value.result.iconArray.denominator)} people.`
-    : 'No result: some inputs are missing or need correcting.';
-  const announced = useQuietAnnouncement(summary);
+const NO_ENTRY: EntryCheck = { noLongerApplies: false, leftoverFields: [], illustrative: false };
+
+interface ResultPanelProps {
+  readonly figures: Result<FormFigures>;
+  readonly extraWarnings?: readonly Warning[];
+  /** Whether the saved entry the form started from still applies (lib/consultation/entry.ts). */
+  readonly entry?: EntryCheck;
+}
+
+function ResultPanelView({ figures, extraWarnings = NO_WARNINGS, entry = NO_ENTRY }: ResultPanelProps) {
+  const view = useMemo(() => {
+    if (!figures.ok) return undefined;
+    const { scenario, result, context, wordsNeeded } = figures.value;
+    return consultationView({
+      scenario,
+      result,
+      context,
+      wordsNeeded: [...wordsNeeded, ...leftoverIssues(entry)],
+      extraWarnings,
+      illustrativeEvidence: entry.illustrative,
+      entryNotice: entry.noLongerApplies ? ENTRY_NO_LONGER_APPLIES : undefined,
+    });
+  }, [figures, extraWarnings, entry]);
+  const announced = useQuietAnnouncement(view ? view.announcement : NO_RESULT_ANNOUNCEMENT);
   return (
     <section className="result" id="result" aria-labelledby="result-heading">
       <h2 id="result-heading">Result</h2>
       <p className="visually-hidden" role="status" aria-live="polite">
         {announced}
       </p>
-      {outcome.ok ? (
+      {figures.ok && view ? (
         <Suspense fallback={<p className="charts__loading">Preparing the result…</p>}>
-          <Figures outcome={outcome.value} extraWarnings={extraWarnings} />
+          <Figures figures={figures.value} view={view} />
         </Suspense>
       ) : (
-        <Pending issues={outcome.issues} />
+        <Pending issues={figures.ok ? [] : figures.issues} />
       )}
     </section>
   );
 }
 
-/** Redraws only when the outcome or the extra warnings change. */
+/** Redraws only when the figures, the extra warnings or the entry check change. */
 export const ResultPanel = memo(ResultPanelView);

@@ -1,14 +1,18 @@
 'use client';
 /**
  * "Copy link" and "Prepare handout". The link is the scenario through the link codec
- * (lib/link), so opening it shows exactly this screen; the handout opens the same query.
- * Plain anchors, not prefetching links: nothing is requested until the clinician asks.
+ * (lib/link), so opening it shows exactly this screen; the handout opens the same fragment.
+ * The scenario is in the fragment, which is never sent; plain anchors, not prefetching links.
  */
 import { useState } from 'react';
-import { encodeScenarioLink, scenarioQuery } from '@/lib/link';
+import { encodeScenarioLink, scenarioLinkIssues } from '@/lib/link';
 import type { Scenario } from '@/lib/scenario/schema';
 
-export function ShareBar({ scenario }: { scenario: Scenario }) {
+/**
+ * @param handoutAllowed - false while the patient sentences lack words or the result is capped
+ *   (lib/consultation/view.ts): then there is no handout to prepare.
+ */
+export function ShareBar({ scenario, handoutAllowed }: { scenario: Scenario; handoutAllowed: boolean }) {
   const [status, setStatus] = useState<{ text: string; link?: string }>({ text: '' });
   const path = encodeScenarioLink(scenario);
 
@@ -28,10 +32,17 @@ export function ShareBar({ scenario }: { scenario: Scenario }) {
         <button type="button" className="button" onClick={copy} data-testid="copy-link">
           Copy link
         </button>
-        <a className="button button--secondary" href={`/handout${scenarioQuery(scenario)}`} data-testid="prepare-handout">
-          Prepare handout
-        </a>
+        {handoutAllowed ? (
+          <a className="button button--secondary" href={encodeScenarioLink(scenario, '/handout')} data-testid="prepare-handout">
+            Prepare handout
+          </a>
+        ) : null}
       </div>
+      {scenarioLinkIssues(scenario).map((issue) => (
+        <p key={issue.path.join('.')} className="link-problem" data-testid="link-leaves-out">
+          {issue.message}
+        </p>
+      ))}
       <p className="share__status" role="status">
         {status.text}
       </p>

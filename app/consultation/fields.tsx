@@ -1,24 +1,30 @@
 'use client';
 /**
- * Form controls wired to react-hook-form: a visible label, an optional hint, and the field's
- * error inline — linked with aria-describedby and announced politely (aria-live). An error shows
- * once the clinician has touched or changed the field, so an untouched blank field is not
- * scolded while the clinician is still working further up the form.
+ * One family of form controls wired to react-hook-form, for any form (the consultation form
+ * here; the evidence editor and the glucose rows can use the same): a visible label, an
+ * optional hint, an optional flag (e.g. a wording left over from a saved entry), and the
+ * field's error inline — linked with aria-describedby and announced politely (aria-live). An
+ * error shows once the field has been touched or changed, so an untouched blank field is not
+ * scolded while the user is still working further up the form.
+ *
+ * Each component is generic over the form's values: `TextField<MyValues>` checks `name`
+ * against that form. The default is the consultation form.
  */
 import { useId, type ReactNode } from 'react';
-import { useFormContext, useFormState, type FieldPath, type RegisterOptions } from 'react-hook-form';
+import { useFormContext, useFormState, useWatch, type FieldPath, type FieldValues, type RegisterOptions } from 'react-hook-form';
+import type { Choice } from './choices';
 import type { ConsultationFormValues } from './formModel';
 
-export type FieldName = FieldPath<ConsultationFormValues>;
+export type FieldName<T extends FieldValues = ConsultationFormValues> = FieldPath<T>;
 
 /** The DOM id of a field's control, derived from its name so links and tests can find it. */
-export function fieldDomId(name: FieldName): string {
+export function fieldDomId(name: string): string {
   return `field-${name.replace(/\./g, '-')}`;
 }
 
-function useVisibleError(name: FieldName): string | undefined {
-  const { getFieldState } = useFormContext<ConsultationFormValues>();
-  const formState = useFormState<ConsultationFormValues>({ name, exact: true });
+function useVisibleError<T extends FieldValues>(name: FieldPath<T>): string | undefined {
+  const { getFieldState } = useFormContext<T>();
+  const formState = useFormState<T>({ name, exact: true });
   const state = getFieldState(name, formState);
   if (!state.error?.message) return undefined;
   return state.isTouched || state.isDirty ? state.error.message : undefined;
@@ -38,13 +44,16 @@ function ErrorText({ id, message }: { id: string; message: string | undefined })
 }
 
 /** What every field derives from its name: the visible error, the control's id and its aria wiring. */
-function useFieldWiring(name: FieldName, hasHint: boolean) {
-  const error = useVisibleError(name);
+function useFieldWiring<T extends FieldValues>(name: FieldPath<T>, hasHint: boolean, hasFlag: boolean) {
+  const error = useVisibleError<T>(name);
   const id = fieldDomId(name);
   const hintId = `${id}-hint`;
+  const flagId = `${id}-flag`;
   const errorId = `${id}-error`;
-  return { error, id, hintId, errorId, describedBy: describedBy(hasHint ? hintId : undefined, error ? errorId : undefined) };
+  return { error, id, hintId, flagId, errorId, describedBy: describedBy(hasHint ? hintId : undefined, hasFlag ? flagId : undefined, error ? errorId : undefined) };
 }
+
+type Wiring = ReturnType<typeof useFieldWiring>;
 
 function Hint({ id, hint }: { id: string; hint: ReactNode }) {
   return hint ? (
@@ -54,37 +63,51 @@ function Hint({ id, hint }: { id: string; hint: ReactNode }) {
   ) : null;
 }
 
-/** A labelled single control (text box or select) with its hint and inline error. */
-function FieldFrame({ wiring, label, hint, size, children }: { wiring: ReturnType<typeof useFieldWiring>; label: string; hint: ReactNode; size: 'short' | 'long'; children: ReactNode }) {
+function Flag({ id, flag }: { id: string; flag: ReactNode }) {
+  return flag ? (
+    <div id={id} className="field__flag-box">
+      {flag}
+    </div>
+  ) : null;
+}
+
+/** A labelled single control (text box or select) with its hint, flag and inline error. */
+function FieldFrame({ wiring, label, hint, flag, size, children }: { wiring: Wiring; label: string; hint: ReactNode; flag: ReactNode; size: 'short' | 'long'; children: ReactNode }) {
   return (
-    <div className={`field field--${size}${wiring.error ? ' field--invalid' : ''}`}>
+    <div className={`field field--${size}${wiring.error ? ' field--invalid' : ''}${flag ? ' field--flagged' : ''}`}>
       <label htmlFor={wiring.id} className="field__label">
         {label}
       </label>
       <Hint id={wiring.hintId} hint={hint} />
       {children}
+      <Flag id={wiring.flagId} flag={flag} />
       <ErrorText id={wiring.errorId} message={wiring.error} />
     </div>
   );
 }
 
-interface TextFieldProps {
-  readonly name: FieldName;
+interface CommonProps<T extends FieldValues> {
+  readonly name: FieldPath<T>;
   readonly label: string;
   readonly hint?: ReactNode;
-  /** "decimal" for numbers (the default), "text" for words. */
+  /** Something the user must look at, shown under the control (and linked to it). */
+  readonly flag?: ReactNode;
+}
+
+interface TextFieldProps<T extends FieldValues> extends CommonProps<T> {
+  /** "decimal" for numbers (the default), "numeric" for whole numbers, "text" for words. */
   readonly kind?: 'decimal' | 'numeric' | 'text';
   readonly size?: 'short' | 'long';
-  readonly deps?: FieldName[];
+  readonly deps?: FieldPath<T>[];
   readonly placeholder?: string;
 }
 
-export function TextField({ name, label, hint, kind = 'decimal', size = 'short', deps, placeholder }: TextFieldProps) {
-  const { register } = useFormContext<ConsultationFormValues>();
-  const wiring = useFieldWiring(name, Boolean(hint));
-  const options: RegisterOptions<ConsultationFormValues, FieldName> = deps ? { deps } : {};
+export function TextField<T extends FieldValues = ConsultationFormValues>({ name, label, hint, flag, kind = 'decimal', size = 'short', deps, placeholder }: TextFieldProps<T>) {
+  const { register } = useFormContext<T>();
+  const wiring = useFieldWiring<T>(name, Boolean(hint), Boolean(flag));
+  const options: RegisterOptions<T, FieldPath<T>> = deps ? { deps } : {};
   return (
-    <FieldFrame wiring={wiring} label={label} hint={hint} size={size}>
+    <FieldFrame wiring={wiring} label={label} hint={hint} flag={flag} size={size}>
       <input
         id={wiring.id}
         type="text"
@@ -101,28 +124,32 @@ export function TextField({ name, label, hint, kind = 'decimal', size = 'short',
   );
 }
 
-export interface Choice {
-  readonly value: string;
-  readonly label: string;
-  /** One plain sentence saying what the choice means. */
-  readonly explanation?: string;
-}
+export type { Choice };
 
-interface SelectFieldProps {
-  readonly name: FieldName;
-  readonly label: string;
-  readonly hint?: ReactNode;
+interface ChoiceFieldProps<T extends FieldValues> extends CommonProps<T> {
   readonly choices: readonly Choice[];
   readonly onChosen?: (value: string) => void;
 }
 
-export function SelectField({ name, label, hint, choices, onChosen }: SelectFieldProps) {
-  const { register } = useFormContext<ConsultationFormValues>();
-  const wiring = useFieldWiring(name, Boolean(hint));
+/**
+ * A select whose shown value follows the form's value on every render, so an option added in
+ * the same render as the value (a table taken from the library) is shown chosen at once.
+ */
+export function SelectField<T extends FieldValues = ConsultationFormValues>({ name, label, hint, flag, choices, onChosen }: ChoiceFieldProps<T>) {
+  const { register, control } = useFormContext<T>();
+  const value: unknown = useWatch({ control, name });
+  const wiring = useFieldWiring<T>(name, Boolean(hint), Boolean(flag));
   const registered = register(name, onChosen ? { onChange: (event: { target: { value: string } }) => onChosen(event.target.value) } : {});
   return (
-    <FieldFrame wiring={wiring} label={label} hint={hint} size="long">
-      <select id={wiring.id} className="field__input" aria-invalid={wiring.error ? true : undefined} aria-describedby={wiring.describedBy} {...registered}>
+    <FieldFrame wiring={wiring} label={label} hint={hint} flag={flag} size="long">
+      <select
+        id={wiring.id}
+        className="field__input"
+        aria-invalid={wiring.error ? true : undefined}
+        aria-describedby={wiring.describedBy}
+        {...registered}
+        value={typeof value === 'string' ? value : ''}
+      >
         {choices.map((choice) => (
           <option key={choice.value} value={choice.value}>
             {choice.label}
@@ -133,25 +160,18 @@ export function SelectField({ name, label, hint, choices, onChosen }: SelectFiel
   );
 }
 
-interface RadioFieldProps {
-  readonly name: FieldName;
+interface RadioFieldProps<T extends FieldValues> extends Omit<ChoiceFieldProps<T>, 'label' | 'flag'> {
   readonly legend: string;
-  readonly hint?: ReactNode;
-  readonly choices: readonly Choice[];
   readonly layout?: 'row' | 'column';
-  readonly onChosen?: (value: string) => void;
 }
 
-export function RadioField({ name, legend, hint, choices, layout = 'column', onChosen }: RadioFieldProps) {
-  const { register } = useFormContext<ConsultationFormValues>();
-  const { error, id: base, hintId, errorId, describedBy: described } = useFieldWiring(name, Boolean(hint));
+export function RadioField<T extends FieldValues = ConsultationFormValues>({ name, legend, hint, choices, layout = 'column', onChosen }: RadioFieldProps<T>) {
+  const { register } = useFormContext<T>();
+  const { error, id: base, hintId, errorId, describedBy: described } = useFieldWiring<T>(name, Boolean(hint), false);
   const uid = useId();
   const registered = register(name, onChosen ? { onChange: (event: { target: { value: string } }) => onChosen(event.target.value) } : {});
   return (
-    <fieldset
-      className={`field field--choices field--${layout}${error ? ' field--invalid' : ''}`}
-      aria-describedby={described}
-    >
+    <fieldset className={`field field--choices field--${layout}${error ? ' field--invalid' : ''}`} aria-describedby={described}>
       <legend className="field__label">{legend}</legend>
       <Hint id={hintId} hint={hint} />
       <div className="choices">

@@ -9,45 +9,58 @@
  * command line use) and {@link computeScenario} — and their issues are mapped back onto the form
  * fields, so every message the clinician sees is the engine's message for that field.
  */
-import { z } from 'zod';
+import { z } from '@/lib/zod';
 import { computeScenario } from '@/lib/engine/compute';
 import type { ComputeResult } from '@/lib/engine/types';
 import { fail, ok, type Issue, type Result } from '@/lib/result';
 import { parseScenario } from '@/lib/scenario/parse';
-import { toIssues } from '@/lib/scenario/issues';
-import { EFFECT_MEASURES, personSchema, STUDY_DESIGNS, type Scenario } from '@/lib/scenario/schema';
+import { toIssues } from '@/lib/validation/issues';
+import { personSchema, type Scenario } from '@/lib/scenario/schema';
 import { lookupStratum, tableNeeds, type StratumLookup } from '@/lib/tables/lookup';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { scenarioContext, type ScenarioContext } from '@/lib/context';
+import {
+  ADJUSTED_CHOICES_FOR_FORM,
+  BASELINE_SOURCE_CHOICES,
+  choiceValues,
+  DENOMINATOR_CHOICES_FOR_FORM,
+  DESIGN_CHOICES,
+  LEVEL_CHOICES_FOR_FORM,
+  MEASURE_CHOICES,
+  SEX_CHOICES_FOR_FORM,
+} from './choices';
 import { numberFromText, optionalText, phraseText } from '@/lib/text';
 
 export { numberFromText };
 
 /** Where the baseline comes from: a bundled table, or one of the engine's three forms typed in. */
-export const BASELINE_SOURCES = ['table', 'risk', 'rate', 'population'] as const;
+export const BASELINE_SOURCES = choiceValues(BASELINE_SOURCE_CHOICES);
 export type BaselineSource = (typeof BASELINE_SOURCES)[number];
 
-export const DENOMINATOR_CHOICES = ['auto', '100', '1000'] as const;
-export const LEVEL_CHOICES = ['', '0.9', '0.95', '0.99'] as const;
-export const ADJUSTED_CHOICES = ['', 'yes', 'no'] as const;
-export const SEX_CHOICES = ['', 'female', 'male'] as const;
+// The zod enums are the values of the form's own choice lists (./choices.ts): one list each.
+export const DENOMINATOR_CHOICES = choiceValues(DENOMINATOR_CHOICES_FOR_FORM);
+export const LEVEL_CHOICES = choiceValues(LEVEL_CHOICES_FOR_FORM);
+export const ADJUSTED_CHOICES = choiceValues(ADJUSTED_CHOICES_FOR_FORM);
+export const SEX_CHOICES = choiceValues(SEX_CHOICES_FOR_FORM);
 
 /** The raw form: every field is text as typed, or the value of a choice ("" = not stated). */
 export const formInputSchema = z.object({
   baselineSource: z.enum(BASELINE_SOURCES),
   tableId: z.string(),
+  /** The exposure's prevalence typed for a table baseline; overrides the table's (issue 11 item 3). */
+  tablePrevalence: z.string(),
   person: z.object({ age: z.string(), sex: z.enum(SEX_CHOICES) }),
   riskBaseline: z.object({ risk: z.string(), years: z.string() }),
   rateBaseline: z.object({ rate: z.string(), perPersonYears: z.string() }),
   populationBaseline: z.object({ populationRisk: z.string(), exposurePrevalence: z.string(), years: z.string() }),
   evidenceId: z.string(),
   effect: z.object({
-    measure: z.enum(['', ...EFFECT_MEASURES]),
+    measure: z.enum(['', ...choiceValues(MEASURE_CHOICES)]),
     estimate: z.string(),
     lower: z.string(),
     upper: z.string(),
     level: z.enum(LEVEL_CHOICES),
-    design: z.enum(['', ...STUDY_DESIGNS]),
+    design: z.enum(choiceValues(DESIGN_CHOICES)),
     followUpYears: z.string(),
     adjusted: z.enum(ADJUSTED_CHOICES),
   }),
@@ -62,6 +75,7 @@ export type ConsultationFormValues = z.infer<typeof formInputSchema>;
 export const EMPTY_FORM_VALUES: ConsultationFormValues = {
   baselineSource: 'table',
   tableId: '',
+  tablePrevalence: '',
   person: { age: '', sex: '' },
   riskBaseline: { risk: '', years: '' },
   rateBaseline: { rate: '', perPersonYears: '' },
@@ -73,17 +87,23 @@ export const EMPTY_FORM_VALUES: ConsultationFormValues = {
   denominator: 'auto',
 };
 
-/** Everything the screen shows, made from valid form values. */
-export interface FormOutcome {
+/** The figures, made from valid numbers; the words may still be missing. */
+export interface FormFigures {
   readonly scenario: Scenario;
   readonly result: ComputeResult;
   /** The table and stratum the baseline was looked up in, when it was. */
   readonly table?: PopulationTable;
   readonly lookup?: StratumLookup;
-  /** Who "people like you" are, e.g. "women aged 40 to 49". */
-  readonly people: string;
   /** Who the figures are about and where they come from (lib/context), worked out once. */
   readonly context: ScenarioContext;
+  /** What the patient sentences and the handout still need, each on its form field. */
+  readonly wordsNeeded: readonly Issue[];
+}
+
+/** Everything the screen shows, made from valid form values with their words. */
+export interface FormOutcome extends FormFigures {
+  /** Who "people like you" are, e.g. "women aged 40 to 49". */
+  readonly people: string;
 }
 
 /**
@@ -111,7 +131,7 @@ const FIRST_BASELINE_FIELD: Record<Exclude<BaselineSource, 'table'>, string> = {
 export function formPathFor(scenarioPath: readonly (string | number)[], source: BaselineSource): (string | number)[] {
   const [head, ...rest] = scenarioPath;
   if (head === 'baseline') {
-    if (source === 'table') return ['tableId'];
+    if (source === 'table') return rest[0] === 'exposurePrevalence' ? ['tablePrevalence'] : ['tableId'];
     return [BASELINE_FIELD_GROUP[source], ...(rest.length > 0 ? rest : [FIRST_BASELINE_FIELD[source]])];
   }
   if (head === 'tableId' || head === 'extra') return ['tableId'];
@@ -184,7 +204,7 @@ function baselinePart(
       // The person schema checks the age (whole years, 0 to 120) before the lookup uses it.
       const checked = checkedPerson(person);
       if (!checked.ok) return fail(checked.issues);
-      const found = lookupStratum(table, person);
+      const found = lookupStratum(table, person, {}, { exposurePrevalence: numberFromText(values.tablePrevalence) });
       if (!found.ok) return fail(found.issues);
       return ok({
         baseline: found.value.baseline,
@@ -199,15 +219,17 @@ function baselinePart(
 }
 
 /**
- * Valid form values → scenario and result; otherwise the issues, each on its form field.
+ * Valid numbers → scenario, result and context, with the words the patient sentences still
+ * need (`wordsNeeded`, each on its form field); otherwise the issues, each on its form field.
+ * The figures do not wait for the words: the screen shows them as soon as the numbers are valid.
  *
  * @param tables - the population tables the clinician can pick from
  * @example
- * formToOutcome({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
+ * formToFigures({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
  *   effect: { ...EMPTY_FORM_VALUES.effect, measure: 'RR', estimate: '1.5', lower: '1.2', upper: '1.9' } }, [])
- * //=> { ok: true, value: { scenario: { baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', … } }, result: { … } } }
+ * //=> { ok: true, value: { scenario: { baseline: { risk: 0.08, years: 10 }, … }, result: { … }, wordsNeeded: [{ code: 'population-required', … }, { code: 'outcome-required', … }] } }
  */
-export function formToOutcome(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormOutcome> {
+export function formToFigures(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormFigures> {
   const source = values.baselineSource;
   const base = baselinePart(values, tables);
   const { effect: e, wording: w } = values;
@@ -259,17 +281,32 @@ export function formToOutcome(values: ConsultationFormValues, tables: readonly P
   if (phraseText(scenario.wording?.outcome) === '') {
     textIssues.push({ code: 'outcome-required', path: ['wording', 'outcome'], message: OUTCOME_REQUIRED_MESSAGE });
   }
-  if (!people.ok || textIssues.length > 0) {
-    return fail(dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))));
-  }
   return ok({
     scenario,
     result,
     ...(table ? { table } : {}),
     ...(lookup ? { lookup } : {}),
-    people: people.value,
     context,
+    wordsNeeded: dedupe(textIssues.map((issue) => ({ ...issue, path: textPathFor(issue.path) }))),
   });
+}
+
+/**
+ * Valid form values with the words the sentences need → scenario and result; otherwise the
+ * issues, each on its form field (the figures' issues, else the missing words).
+ *
+ * @param tables - the population tables the clinician can pick from
+ * @example
+ * formToOutcome({ ...EMPTY_FORM_VALUES, baselineSource: 'risk', riskBaseline: { risk: '0.08', years: '10' },
+ *   effect: { ...EMPTY_FORM_VALUES.effect, measure: 'RR', estimate: '1.5', lower: '1.2', upper: '1.9' } }, [])
+ * //=> { ok: false, issues: [{ code: 'population-required', path: ['wording', 'population'], … }, { code: 'outcome-required', … }] }
+ */
+export function formToOutcome(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormOutcome> {
+  const figures = formToFigures(values, tables);
+  if (!figures.ok) return figures;
+  const { context, wordsNeeded } = figures.value;
+  if (!context.people.ok || wordsNeeded.length > 0) return fail(wordsNeeded);
+  return ok({ ...figures.value, people: context.people.value });
 }
 
 /**

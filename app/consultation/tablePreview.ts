@@ -33,10 +33,13 @@ export function tablePreview(table: PopulationTable, person: { age: string; sex:
   }
   const { baseline } = found.value;
   const group = scenarioContext({ person: candidate, tableId: table.id }, { table, lookup: found.value }).people;
+  const exposed = 'exposurePrevalence' in baseline && baseline.exposurePrevalence !== undefined ? ` (a population average with ${formatPercent(baseline.exposurePrevalence)} exposed)` : '';
   const figure =
     'risk' in baseline
       ? `a risk of ${formatPercent(baseline.risk)} over ${formatYears(baseline.years)} years`
-      : `${formatRate(baseline.rate)} events per ${formatCount(baseline.perPersonYears)} person-years${table.horizonYears !== undefined ? `; the suggested horizon is ${formatYears(table.horizonYears)} years` : ''}`;
+      : 'populationRisk' in baseline
+        ? `a risk of ${formatPercent(baseline.populationRisk)} over ${formatYears(baseline.years)} years${exposed}`
+        : `${formatRate(baseline.rate)} events per ${formatCount(baseline.perPersonYears)} person-years${exposed}${table.horizonYears !== undefined ? `; the suggested horizon is ${formatYears(table.horizonYears)} years` : ''}`;
   return { ok: true, group: group.ok ? capitalise(group.value) : 'Everyone in the table', figure };
 }
 

@@ -1,10 +1,11 @@
 /**
- * /handout: the one printed page a patient takes home. The scenario comes in the URL query,
- * the same query the consultation screen uses (lib/link), so a `hundredfold link` query opens
- * its handout here.
+ * /handout: the one printed page a patient takes home. The scenario comes in the URL fragment,
+ * the same one the consultation screen writes (lib/link), read in the browser
+ * (app/link/HandoutFromLink.tsx), so the page is static and the server never sees the scenario;
+ * a `hundredfold link` fragment after /handout opens its handout here.
  */
 import type { Metadata } from 'next';
-import { HandoutScreen } from '@/app/components/handout/HandoutScreen';
+import { HandoutFromLink } from '@/app/link/HandoutFromLink';
 import '@/app/components/handout/handout.css';
 
 export const metadata: Metadata = {
@@ -12,18 +13,6 @@ export const metadata: Metadata = {
   description: 'A one-page handout in plain language for the person in the consultation.',
 };
 
-type SearchParams = Record<string, string | string[] | undefined>;
-
-/** Rebuilds the query as it arrived, repeated parameters included, for the link codec to judge. */
-function queryString(params: SearchParams): string {
-  const out = new URLSearchParams();
-  for (const [key, value] of Object.entries(params)) {
-    for (const v of Array.isArray(value) ? value : value === undefined ? [] : [value]) out.append(key, v);
-  }
-  const text = out.toString();
-  return text ? `?${text}` : '';
-}
-
-export default async function HandoutPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  return <HandoutScreen query={queryString(await searchParams)} />;
+export default function HandoutPage() {
+  return <HandoutFromLink />;
 }

@@ -33,7 +33,7 @@ import { parseEvidenceEntry } from '@/lib/evidence/parse';
 import { evidenceEntrySchema, type EvidenceEntry } from '@/lib/evidence/schema';
 import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
 import { exportEvidenceJson, parseEvidenceJson } from '@/lib/evidence/file';
-import { toIssues } from '@/lib/scenario/issues';
+import { toIssues } from '@/lib/validation/issues';
 import { deleteRecord, getRecord, importRecords, listRecords, saveRecord, updateRecord, type Db, type Listing, type RecordSpec } from './recordStore';
 
 export { RESERVED_ID_PREFIX } from '@/lib/storage/policy';

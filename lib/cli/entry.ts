@@ -8,15 +8,15 @@
  *
  * The same file, started as a worker thread, computes --ndjson batches instead.
  */
-import { readFile } from 'node:fs/promises';
 import { computeBatch } from './commands/compute';
 import { isNdjsonWorker, registerWorkerScript, serveBatches } from './commands/ndjsonPool';
-import { EXIT_BAD_INPUT } from './io';
+import { EXIT_BAD_INPUT, readTextFile } from './io';
+import { escapeForTerminal } from './terminal';
 import { main } from './main';
 
 function oneLine(error: unknown): string {
   const message = error instanceof Error ? error.message : String(error);
-  return `hundredfold: internal error: ${message.replace(/\s+/g, ' ').trim()}\n`;
+  return `hundredfold: internal error: ${escapeForTerminal(message.replace(/\s+/g, ' ').trim())}\n`;
 }
 
 function runCommand(): void {
@@ -39,7 +39,7 @@ function runCommand(): void {
     stdin: process.stdin,
     stdout: process.stdout,
     stderr: process.stderr,
-    readFile: (path) => readFile(path, 'utf8'),
+    readFile: readTextFile,
   }).then(
     (code) => {
       process.exitCode = code;

@@ -14,7 +14,7 @@ export const USAGE = `Usage: hundredfold <command> [options]
 
 Commands:
   compute [--input FILE] [--ndjson]   one scenario as JSON (stdin or FILE) -> one result as JSON
-  link [--input FILE]                 print the path and query that open the scenario in the app
+  link [--input FILE]                 print the path and fragment (/#…) that open the scenario in the app
   glycaemia [--input FILE] [--fhir] [--criteria ADA|WHO|NICE]
                                       classify serial HbA1c / fasting glucose results
   table check FILE                    validate a population-table CSV file
@@ -23,7 +23,14 @@ Commands:
 
 Exit codes: 0 done, 1 some --ndjson lines (or checkup rows) failed, 2 bad input or usage.`;
 
-const COMMANDS: Readonly<Record<string, Command>> = { compute, link, glycaemia, table, checkups };
+/** A Map, not an object: "__proto__", "constructor" or "toString" must be unknown commands, not inherited members. */
+const COMMANDS: ReadonlyMap<string, Command> = new Map<string, Command>([
+  ['compute', compute],
+  ['link', link],
+  ['glycaemia', glycaemia],
+  ['table', table],
+  ['checkups', checkups],
+]);
 
 export async function main(io: CommandIo): Promise<number> {
   const [name, ...rest] = io.args;
@@ -32,13 +39,15 @@ export async function main(io: CommandIo): Promise<number> {
     return EXIT_OK;
   }
   if (name === undefined) return complain(io, 'no command given; run "hundredfold --help" for the commands');
-  const command = COMMANDS[name];
-  if (!command) return complain(io, `unknown command "${name}"; commands are: ${Object.keys(COMMANDS).join(', ')}`);
+  const command = COMMANDS.get(name);
+  if (!command) return complain(io, `unknown command ${JSON.stringify(name)}; commands are: ${[...COMMANDS.keys()].join(', ')}`);
   try {
     return await command({ ...io, args: rest });
   } catch (error) {
-    // A bug, not bad input: still one line, never a stack trace.
     const message = error instanceof Error ? error.message : String(error);
+    // Input that readAll (io.ts) refused: bad input, said as such.
+    if (typeof error === 'object' && error !== null && (error as { code?: unknown }).code === 'HUNDREDFOLD_INPUT') return complain(io, `input: ${message}`);
+    // A bug, not bad input: still one line, never a stack trace.
     return complain(io, `internal error: ${message}`);
   }
 }

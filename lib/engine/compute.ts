@@ -19,7 +19,7 @@ import { exposedRiskCapped } from './exposedRisk';
 import { iconArrayCounts } from './iconArray';
 import { numberNeeded } from './numberNeeded';
 import type { ComputeResult, Conversion } from './types';
-import { scenarioWarnings } from './warnings';
+import { scenarioWarnings, standingAssumptions } from './warnings';
 
 /**
  * A reference risk the engine can work with: above 0, and further than a billionth from
@@ -41,7 +41,13 @@ export function resolveHorizonYears(scenario: Scenario): number {
 /** P0 over the horizon, from whichever baseline form the scenario has. */
 export function referenceRiskOverHorizon(scenario: Scenario, conversion: Conversion, horizonYears: number): number {
   const { baseline } = scenario;
-  if ('rate' in baseline) return riskFromRate(baseline.rate / baseline.perPersonYears, horizonYears);
+  if ('rate' in baseline) {
+    const atHorizon = riskFromRate(baseline.rate / baseline.perPersonYears, horizonYears);
+    // A population-average rate (a table stating the exposure's prevalence): turned into a risk
+    // over the horizon first, then corrected as a population-average risk (methods guide, "Baselines").
+    if (baseline.exposurePrevalence === undefined) return atHorizon;
+    return referenceRiskFromPopulation(conversion, atHorizon, scenario.effect.estimate, baseline.exposurePrevalence);
+  }
   if ('populationRisk' in baseline) {
     const atBaselineYears = referenceRiskFromPopulation(
       conversion,
@@ -76,6 +82,15 @@ export function computeScenario(scenario: Scenario): Result<ComputeResult> {
       },
     ]);
   }
+  if (!isUsableRisk(p0) && 'rate' in scenario.baseline && scenario.baseline.exposurePrevalence !== undefined && p0 >= 1 - 1e-9) {
+    return fail([
+      {
+        code: 'population-risk-inconsistent',
+        path: ['baseline', 'rate'],
+        message: `No reference-group risk fits a population rate of ${scenario.baseline.rate} per ${scenario.baseline.perPersonYears} person-years with ${scenario.baseline.exposurePrevalence} exposed and a ratio of ${effect.estimate}; check the rate and the prevalence`,
+      },
+    ]);
+  }
   if (!isUsableRisk(p0)) {
     return fail([
       {
@@ -103,7 +118,8 @@ export function computeScenario(scenario: Scenario): Result<ComputeResult> {
     riskDifference,
     numberNeeded: numberNeeded(riskDifference, level),
     iconArray: iconArrayCounts(p0, exposedRisk, scenario.denominator),
-    warnings: scenarioWarnings({ effect, conversion, referenceRisk: p0, horizonYears }),
+    warnings: scenarioWarnings({ effect, conversion, referenceRisk: p0, horizonYears, baseline: scenario.baseline, tableId: scenario.tableId }),
+    assumptions: standingAssumptions(level),
     measure: effect.measure,
     design,
     level,

@@ -11,6 +11,7 @@
  */
 import type { Direction, NumberNeeded, NumberNeededLimit } from './types';
 import type { Estimate } from './types';
+import { intervalLabel } from '../wording/format';
 
 /**
  * Rounds up, forgiving floating-point noise: 1/(0.12 − 0.08) computes as 25.000000000000004
@@ -38,6 +39,17 @@ function label(direction: Direction): string {
 }
 
 /**
+ * Beyond a million people the number needed says nothing a clinician can use, and its digits are
+ * floating-point noise (1/RD of a risk difference near 1e-17); the text says "more than a million"
+ * (issue 11 item 13). The figures themselves stay exact in `value` and `display`.
+ */
+export const NUMBER_NEEDED_TEXT_LIMIT = 1_000_000;
+
+function count(display: number): string {
+  return display > NUMBER_NEEDED_TEXT_LIMIT ? 'more than a million' : String(display);
+}
+
+/**
  * @param riskDifference - RD with its interval (lower ≤ estimate ≤ upper)
  * @param level - the interval level, e.g. 0.95, used in the text only
  * @example
@@ -49,19 +61,22 @@ export function numberNeeded(riskDifference: Estimate, level: number): NumberNee
   const from = limitOf(riskDifference.lower);
   const to = limitOf(riskDifference.upper);
   const crossesNull = riskDifference.lower <= 0 && riskDifference.upper >= 0;
-  const ci = `${Math.round(level * 100)}% CI`;
+  const ci = intervalLabel(level);
 
-  const head = point.display === null ? 'No difference' : `${label(point.direction)} ${point.display}`;
+  const head = point.display === null ? 'No difference' : `${label(point.direction)} ${count(point.display)}`;
   let range: string;
   if (crossesNull) {
-    const benefitSide = from.display === null ? '∞' : `NNTB ${from.display} to ∞`;
-    const harmSide = to.display === null ? '' : ` to NNTH ${to.display}`;
-    range = from.display === null ? `∞${harmSide}` : `${benefitSide}${harmSide}`;
+    // A limit exactly at no effect is the infinite end: write the interval from its finite end
+    // ("NNTH 8 to ∞", not "∞ to NNTH 8"; issue 11 item 12).
+    if (from.display === null && to.display === null) range = '∞';
+    else if (from.display === null) range = `NNTH ${count(to.display ?? 0)} to ∞`;
+    else if (to.display === null) range = `NNTB ${count(from.display)} to ∞`;
+    else range = `NNTB ${count(from.display)} to ∞ to NNTH ${count(to.display)}`;
   } else {
     // Both limits on one side: smaller number first.
     const a = from.display ?? Infinity;
     const b = to.display ?? Infinity;
-    range = `${label(from.direction)} ${Math.min(a, b)} to ${Math.max(a, b)}`;
+    range = `${label(from.direction)} ${count(Math.min(a, b))} to ${count(Math.max(a, b))}`;
   }
   return {
     direction: point.direction,

@@ -74,6 +74,12 @@ export interface ComputeResult {
   readonly numberNeeded: NumberNeeded;
   readonly iconArray: IconArrayCounts;
   readonly warnings: readonly Warning[];
+  /**
+   * Standing notes that hold for every result (issue 11 item 9): the interval leaves out the
+   * baseline's own uncertainty, and the relative effect is assumed constant across baselines and
+   * within the study's follow-up. Codes in {@link import('./warnings').ASSUMPTION_CODES}.
+   */
+  readonly assumptions: readonly Warning[];
   readonly measure: EffectMeasure;
   readonly design: StudyDesign;
   readonly level: IntervalLevel;

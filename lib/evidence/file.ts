@@ -15,10 +15,10 @@
  * Reading validates every entry and refuses the whole file on any problem, naming the entry
  * and the field; nothing is half-imported.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { capProblems } from '../files/problems';
 import { fail, ok, type Issue, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { evidenceEntrySchema, type EvidenceEntry } from './schema';
 
 export const EVIDENCE_FILE_FORMAT = 'hundredfold-evidence';

@@ -1,6 +1,6 @@
 /** Validates anything that claims to be an {@link EvidenceEntry}: a stored entry, an import, the form. */
 import { fail, ok, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { evidenceEntrySchema, type EvidenceEntry } from './schema';
 
 /**

@@ -5,7 +5,7 @@
  * It reuses the scenario's own schemas for the effect and the wording, and the glycaemia
  * module's exposure definition, so an entry drops into a scenario unchanged.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { effectSchema, wordingSchema } from '../scenario/schema';
 import { exposureDefinitionSchema } from '../glycaemia/exposure';
 import { ID_PATTERN, MAX_ID } from '../tables/schema';

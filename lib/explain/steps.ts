@@ -46,7 +46,7 @@ export interface ExplainInput {
   readonly scenario: Scenario;
   readonly result: ComputeResult;
   /** The table and stratum the baseline was looked up in, when it was. */
-  readonly table?: Pick<PopulationTable, 'title' | 'source' | 'year' | 'illustrative'> | undefined;
+  readonly table?: Pick<PopulationTable, 'title' | 'source' | 'year' | 'illustrative' | 'exposurePrevalence'> | undefined;
   readonly stratum?: Stratum | undefined;
 }
 
@@ -64,7 +64,8 @@ const SOURCES = {
   rateRatio: 'Proportional hazards, S1 = S0^HR (Altman & Andersen 1999, BMJ 319:1492); limits at a fixed baseline: Cochrane Handbook §12.5.4.5',
   riskSetOddsRatio:
     'Greenland & Thomas 1982, Am J Epidemiol 116:547 (a risk-set sampled odds ratio estimates the rate ratio); then proportional hazards (Altman & Andersen 1999, BMJ 319:1492)',
-  caseCohortOddsRatio: 'Rodrigues & Kirkwood 1990, Int J Epidemiol 19:205 (a case-cohort odds ratio estimates the risk ratio)',
+  caseCohortOddsRatio:
+    'Rodrigues & Kirkwood 1990, Int J Epidemiol 19:205 (a case-cohort odds ratio estimates the risk ratio, assuming the subcohort was drawn from the whole cohort at its start, future cases included)',
   difference: 'Definition; Cochrane Handbook §12.5.4.5 for the interval at a fixed baseline',
   numberNeeded: 'Cochrane Handbook §12.5.4.1; Altman 1998, BMJ 317:1309 for an interval through infinity',
   iconCounts:
@@ -79,13 +80,16 @@ function baselineStep({ scenario, result, table, stratum }: ExplainInput): Expla
   const { baseline } = scenario;
   if ('rate' in baseline) {
     const lambda = baseline.rate / baseline.perPersonYears;
+    const pe = baseline.exposurePrevalence;
     return {
       id: 'baseline',
-      title: 'Baseline: the event rate',
-      formula: 'λ = events ÷ person-years',
-      numbers: `λ = ${sig(baseline.rate)} ÷ ${sig(baseline.perPersonYears)}`,
+      title: pe === undefined ? 'Baseline: the event rate' : 'Baseline: the event rate, a population average',
+      formula: pe === undefined ? 'λ = events ÷ person-years' : 'λ = events ÷ person-years; its risk over the horizon is then solved for P0 from Ppop = (1 − pe)·P0 + pe·P1(P0)',
+      numbers: `λ = ${sig(baseline.rate)} ÷ ${sig(baseline.perPersonYears)}${pe === undefined ? '' : `; pe = ${sig(pe)}`}`,
       result: `λ = ${sig(lambda)} events per person-year`,
-      source: table ? tableSource(table, stratum) : 'Entered by the clinician',
+      source:
+        (table ? tableSource(table, stratum) : 'Entered by the clinician') +
+        (pe === undefined ? '' : `; ${SOURCES.population}; ${table ? prevalenceWords(pe, table, stratum) : 'the prevalence was entered by the clinician'}`),
     };
   }
   if ('populationRisk' in baseline) {
@@ -96,7 +100,9 @@ function baselineStep({ scenario, result, table, stratum }: ExplainInput): Expla
       formula: 'Ppop = (1 − pe)·P0 + pe·P1(P0), solved for P0, with P1 from the conversion below at the estimate',
       numbers: `${sig(baseline.populationRisk)} = (1 − ${sig(baseline.exposurePrevalence)})·P0 + ${sig(baseline.exposurePrevalence)}·P1(P0), ratio ${sig(scenario.effect.estimate)} (solved at the estimate; P0 is then held fixed for the interval's limits)`,
       result: `P0 = ${sig(p0)} (${pct(p0)}) over ${sig(baseline.years)} years`,
-      source: `${SOURCES.population}; the population risk and prevalence were entered by the clinician`,
+      source: table
+        ? `${SOURCES.population}; population risk from ${tableSource(table, stratum)}; ${prevalenceWords(baseline.exposurePrevalence, table, stratum)}`
+        : `${SOURCES.population}; the population risk and prevalence were entered by the clinician`,
     };
   }
   return {
@@ -107,6 +113,14 @@ function baselineStep({ scenario, result, table, stratum }: ExplainInput): Expla
     result: `P0 = ${pct(baseline.risk)} over ${sig(baseline.years)} years`,
     source: table ? tableSource(table, stratum) : 'Entered by the clinician',
   };
+}
+
+/** Which exposure prevalence corrected a table's population average: the stratum's, the table's, or the clinician's. */
+function prevalenceWords(used: number, table: NonNullable<ExplainInput['table']>, stratum: Stratum | undefined): string {
+  const value = `exposure prevalence ${sig(used)} (${pct(used)})`;
+  if (stratum?.exposurePrevalence === used) return `${value} from the table, for this group`;
+  if (stratum?.exposurePrevalence === undefined && table.exposurePrevalence === used) return `${value} from the table, for its whole population`;
+  return `${value} entered by the clinician`;
 }
 
 function tableSource(table: NonNullable<ExplainInput['table']>, stratum: Stratum | undefined): string {
@@ -121,6 +135,16 @@ function horizonStep({ scenario, result }: ExplainInput): ExplainStep {
   const h = result.horizonYears;
   if ('rate' in baseline) {
     const lambda = baseline.rate / baseline.perPersonYears;
+    if (baseline.exposurePrevalence !== undefined) {
+      return {
+        id: 'horizon',
+        title: `Baseline risk over the horizon of ${sig(h)} years`,
+        formula: 'Ppop = 1 − exp(−λ·H); then P0 from Ppop = (1 − pe)·P0 + pe·P1(P0)',
+        numbers: `Ppop = 1 − exp(−${sig(lambda)} × ${sig(h)}); pe = ${sig(baseline.exposurePrevalence)}, ratio ${sig(scenario.effect.estimate)}`,
+        result: `P0 = ${sig(result.referenceRisk)} (${pct(result.referenceRisk)})`,
+        source: `${SOURCES.rates}; ${SOURCES.population}`,
+      };
+    }
     return {
       id: 'horizon',
       title: `Baseline risk over the horizon of ${sig(h)} years`,

@@ -13,7 +13,7 @@
  * usable Observation is not: it returns no checkups and the full skipped list.
  */
 import { fail, ok, type Result } from '../result';
-import { fpgReadingsAgree, hba1cReadingsAgree, readingText } from '../glycaemia/merge';
+import { fpgReadingsAgree, hba1cReadingsAgree, preferLater, readingText } from '../glycaemia/merge';
 import type { Checkup, FpgReading, Hba1cReading, HistoryOptions } from '../glycaemia/schema';
 import { readObservation, type ObservationReading } from './observation';
 
@@ -43,6 +43,9 @@ export interface FhirGlucoseImport {
 }
 
 type Located = ObservationReading & { readonly entry: number | null };
+
+/** Most conflicting values one skip reason lists; the rest are counted (issue 14 item 6). */
+export const CONFLICT_LISTED = 3;
 
 function isObject(value: unknown): value is Record<string, unknown> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
@@ -112,23 +115,47 @@ export function importFhirGlucose(json: unknown, options: HistoryOptions): Resul
     agree: (a: R, b: R) => boolean,
     label: string,
   ): { reading: R; entry: number | null } | null {
-    const [first, ...rest] = group;
-    if (!first) return null;
-    const firstReading = first.reading as R;
-    if (rest.every((r) => agree(firstReading, r.reading as R))) {
+    const [head, ...others] = group;
+    if (!head) return null;
+    if (others.every((r) => agree(head.reading as R, r.reading as R))) {
+      // One sample in two units: keep the reading in the criteria set's own unit when it is known,
+      // whichever came first (issue 11 item 2); else the first.
+      const first = others.find((r) => preferLater(r.test, head.reading, r.reading, options.criteria)) ?? head;
+      const rest = group.filter((r) => r !== first);
+      const own = first !== head || (options.criteria !== undefined && rest.some((r) => r.reading.unit !== first.reading.unit)) ? `; kept in ${first.reading.unit}, the unit the criteria set writes its thresholds in` : '; kept once';
       for (const r of rest) {
         skipped.push({
           entry: r.entry,
           id: r.id,
-          reason: `the same ${label} result as ${where(first.entry)} on ${r.date} (${readingText(r.reading)} and ${readingText(first.reading)}); kept once`,
+          reason: `the same ${label} result as ${where(first.entry)} on ${r.date} (${readingText(r.reading)} and ${readingText(first.reading)})${own}`,
         });
       }
-      return { reading: firstReading, entry: first.entry };
+      return { reading: first.reading as R, entry: first.entry };
     }
-    const values = group.map((r) => `${readingText(r.reading)} in ${where(r.entry)}`).join(', ');
-    for (const r of group) {
-      skipped.push({ entry: r.entry, id: r.id, reason: `different ${label} results on ${r.date} (${values}): the import cannot choose one` });
+    // Summarised once per day (issue 14 item 6): the first reading's reason names at most
+    // CONFLICT_LISTED values and the span of the rest; every other reading points at it. Linear in
+    // the number of readings, where listing every value in every reason was quadratic.
+    const listed = group.slice(0, CONFLICT_LISTED).map((r) => `${readingText(r.reading)} in ${where(r.entry)}`);
+    let values = listed.join(', ');
+    if (group.length > CONFLICT_LISTED) {
+      let low = Infinity;
+      let high = -Infinity;
+      for (const r of group) {
+        low = Math.min(low, r.reading.value);
+        high = Math.max(high, r.reading.value);
+      }
+      const units = new Set(group.map((r) => r.reading.unit));
+      const span = units.size === 1 ? `, from ${readingText({ ...head.reading, value: low })} to ${readingText({ ...head.reading, value: high })}` : '';
+      values += ` and ${(group.length - CONFLICT_LISTED).toLocaleString('en')} more${span}`;
     }
+    const summary = `different ${label} results on ${head.date} (${values}): the import cannot choose one`;
+    group.forEach((r, i) => {
+      skipped.push({
+        entry: r.entry,
+        id: r.id,
+        reason: i === 0 || group.length <= CONFLICT_LISTED ? summary : `one of ${group.length.toLocaleString('en')} different ${label} results on ${r.date} (see ${where(head.entry)}): the import cannot choose one`,
+      });
+    });
     return null;
   }
 

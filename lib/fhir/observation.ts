@@ -4,23 +4,23 @@
  * and nothing throws.
  *
  * Rules (FHIR R4 Observation; LOINC codes in ./loinc.ts):
- * - status must be "final" or "amended"; every other status (registered, preliminary,
- *   corrected, cancelled, entered-in-error, unknown) is skipped with its name. ("corrected" is a
- *   kind of amended result in R4, from memory; it is skipped here because the issue asks for
- *   final and amended only — see the report.)
+ * - status must be "final", "amended" or "corrected" (R4 defines "corrected" as a kind of
+ *   "amended": a final result changed to correct an error; FHIR R4 ObservationStatus value set,
+ *   from memory); every other status (registered, preliminary, cancelled, entered-in-error,
+ *   unknown) is skipped with its name.
  * - code: a LOINC coding for HbA1c or fasting glucose; a random glucose is not a fasting one.
  * - valueQuantity with a numeric value, no comparator ("<", ">" mark a limit, not a result), and
  *   a UCUM unit — `code` when given, else `unit` — that fits the test: "%" or "mmol/mol" for
- *   HbA1c, "mg/dL" or "mmol/L" for glucose. UCUM is case-sensitive, but "l" and "L" are both the
- *   litre (UCUM §4.2, from memory), so "mg/dl" and "mmol/l" are the same units.
+ *   HbA1c, "mg/dL" or "mmol/L" for glucose, read by lib/glycaemia/schema.ts's canonicalUnit (the
+ *   same spellings as typed input: "mg/dl", "mmol/l", annotations such as "%{HbA1c}").
  * - effectiveDateTime with at least a full day; a time part is dropped and the day kept as
  *   written (the day in the record's own time zone).
  * - the value and day then pass the same checks as any typed checkup (lib/glycaemia/schema.ts).
  */
-import { checkupDateSchema, fpgReadingSchema, hba1cReadingSchema, type FpgReading, type Hba1cReading, type HistoryOptions } from '../glycaemia/schema';
+import { canonicalUnit, checkupDateSchema, fpgReadingSchema, hba1cReadingSchema, type FpgReading, type Hba1cReading, type HistoryOptions } from '../glycaemia/schema';
 import { LOINC_SYSTEMS, loincKind, type LoincKind } from './loinc';
 
-export const USABLE_STATUSES = ['final', 'amended'] as const;
+export const USABLE_STATUSES = ['final', 'amended', 'corrected'] as const;
 export const UCUM_SYSTEM = 'http://unitsofmeasure.org';
 
 export type ObservationReading =
@@ -39,15 +39,6 @@ function text(value: unknown): string | null {
   return typeof value === 'string' ? value : null;
 }
 
-/** The UCUM unit spellings accepted for each canonical unit. */
-const UNIT_SPELLINGS: Readonly<Record<string, '%' | 'mmol/mol' | 'mg/dL' | 'mmol/L'>> = {
-  '%': '%',
-  'mmol/mol': 'mmol/mol',
-  'mg/dL': 'mg/dL',
-  'mg/dl': 'mg/dL',
-  'mmol/L': 'mmol/L',
-  'mmol/l': 'mmol/L',
-};
 
 function loincCodes(code: unknown): string[] {
   if (!isObject(code) || !Array.isArray(code.coding)) return [];
@@ -80,7 +71,7 @@ export function readObservation(resource: unknown, options: HistoryOptions): Obs
 
   const status = text(resource.status);
   if (status === null) return skip('no status');
-  if (!(USABLE_STATUSES as readonly string[]).includes(status)) return skip(`status "${status}": only final and amended results are used`);
+  if (!(USABLE_STATUSES as readonly string[]).includes(status)) return skip(`status "${status}": only final, amended and corrected results are used`);
 
   const codes = loincCodes(resource.code);
   const kind = pickTest(codes);
@@ -109,7 +100,7 @@ export function readObservation(resource: unknown, options: HistoryOptions): Obs
   if (system !== null && system !== UCUM_SYSTEM) return skip(`the unit is not a UCUM unit (system ${system})`);
   const unitText = text(quantity.code) ?? text(quantity.unit);
   if (unitText === null) return skip('valueQuantity has no unit');
-  const unit = UNIT_SPELLINGS[unitText];
+  const unit = canonicalUnit(unitText);
   const allowed = test === 'hba1c' ? ['%', 'mmol/mol'] : ['mg/dL', 'mmol/L'];
   if (!unit || !allowed.includes(unit)) {
     return skip(`unit "${unitText}" is not ${test === 'hba1c' ? 'an HbA1c unit (% or mmol/mol)' : 'a glucose unit (mg/dL or mmol/L)'}`);

@@ -1,8 +1,11 @@
 /**
  * One checkup's glycaemic category under one criteria set.
  *
- * Each test is first expressed in the body's own unit (./criteria.ts) — the measurement is
- * converted, the threshold never is — then placed in a range:
+ * Each test is compared in the unit it was entered in, against the body's threshold as the body
+ * itself prints it in that unit (./criteria.ts: "7.0 mmol/L (126 mg/dL)", "48 mmol/mol (6.5%)"),
+ * so a lab's 126 mg/dL under WHO is in the diabetes range as WHO's own text says. Only where the
+ * body prints no form in that unit (NICE's 5.5 mmol/L has no mg/dL form) is the own-unit threshold
+ * converted. Then:
  *
  *     value ≥ diabetesRangeFrom                 → diabetes-range
  *     prediabetesFrom ≤ value < diabetesRangeFrom → prediabetes
@@ -15,10 +18,10 @@
  * checkup in different ranges; under WHO an HbA1c below 6.5% is silent below the diabetes range,
  * so it is discordant only with a fasting glucose in the diabetes range.
  *
- * A converted value within the rounding of a threshold (it would fall on the other side once
- * rounded as the lab would print it in the body's unit) gets a note, because then the unit the
- * lab reported in decides: WHO's 7.0 mmol/L is 126.1 mg/dL, so 126 mg/dL is 6.99 mmol/L, just
- * under it.
+ * Notes (code `conversion-near-threshold`): a value that falls between the two published forms of
+ * one cut-point (WHO's 126 mg/dL is 6.99 mmol/L, under its 7.0 mmol/L) is placed by the form in the
+ * unit the lab printed, and the note says so; a value compared with a converted threshold (no
+ * published form in its unit) that rounding would put on the other side gets a note too.
  *
  * Converted values within 1e-9 (relative) of a threshold count as at the threshold: that is
  * floating-point round-off from the conversion, not a clinical tolerance.
@@ -27,8 +30,8 @@ import type { Warning } from '../result';
 import { CRITERIA, type TestThresholds } from './criteria';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
 import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, thresholdText, withUnit, type ValueUnit } from './format';
-import { glucoseIn } from './glucose';
-import { hba1cIn } from './hba1c';
+import { glucoseIn, type GlucoseUnit } from './glucose';
+import { hba1cIn, type Hba1cUnit } from './hba1c';
 import { REPORTING_STEP } from './merge';
 import type { Checkup } from './schema';
 
@@ -89,10 +92,49 @@ function atOrAbove(value: number, threshold: number): boolean {
  * categoryFor(6.49, CRITERIA.ADA.hba1c)  //=> 'prediabetes'
  * categoryFor(6.0, CRITERIA.WHO.hba1c)   //=> null (WHO: HbA1c below 6.5% does not classify)
  */
-export function categoryFor(value: number, thresholds: TestThresholds<string>): GlycaemicCategory | null {
+export function categoryFor(value: number, thresholds: Pick<TestThresholds<string>, 'prediabetesFrom' | 'diabetesRangeFrom'>): GlycaemicCategory | null {
   if (atOrAbove(value, thresholds.diabetesRangeFrom)) return 'diabetes-range';
   if (thresholds.prediabetesFrom === null) return null;
   return atOrAbove(value, thresholds.prediabetesFrom) ? 'prediabetes' : 'normal';
+}
+
+/** Cut-points in one unit: the body's published form where it prints one, else the own-unit one converted. */
+export interface CutPoints {
+  readonly unit: ValueUnit;
+  readonly prediabetesFrom: number | null;
+  readonly diabetesRangeFrom: number;
+  /** For each cut-point, whether the body prints it in this unit (false: converted). */
+  readonly publishedPrediabetes: boolean;
+  readonly publishedDiabetes: boolean;
+}
+
+function convert(test: TestName, value: number, from: ValueUnit, to: ValueUnit): number {
+  return test === 'hba1c'
+    ? hba1cIn(to as Hba1cUnit, { value, unit: from as Hba1cUnit })
+    : glucoseIn(to as GlucoseUnit, { value, unit: from as GlucoseUnit });
+}
+
+/**
+ * A test's cut-points in a unit, as the body writes them there.
+ *
+ * @example
+ * cutPointsIn('fpg', CRITERIA.WHO.fpg, 'mg/dL') //=> { unit: 'mg/dL', prediabetesFrom: 110, diabetesRangeFrom: 126, … }
+ */
+export function cutPointsIn(test: TestName, thresholds: TestThresholds<ValueUnit>, unit: ValueUnit): CutPoints {
+  if (unit === thresholds.unit) {
+    return { unit, prediabetesFrom: thresholds.prediabetesFrom, diabetesRangeFrom: thresholds.diabetesRangeFrom, publishedPrediabetes: true, publishedDiabetes: true };
+  }
+  const published = thresholds.published?.unit === unit ? thresholds.published : undefined;
+  const pre = thresholds.prediabetesFrom;
+  const publishedPre = published?.prediabetesFrom ?? null;
+  const publishedDia = published?.diabetesRangeFrom ?? null;
+  return {
+    unit,
+    prediabetesFrom: pre === null ? null : (publishedPre ?? convert(test, pre, thresholds.unit, unit)),
+    diabetesRangeFrom: publishedDia ?? convert(test, thresholds.diabetesRangeFrom, thresholds.unit, unit),
+    publishedPrediabetes: pre === null || publishedPre !== null,
+    publishedDiabetes: publishedDia !== null,
+  };
 }
 
 /** A converted value rounded for display without crossing a threshold (at most 6 decimals). */
@@ -112,23 +154,72 @@ function classifyTest(
   entered: { readonly value: number; readonly unit: ValueUnit },
   value: number,
   thresholds: TestThresholds<ValueUnit>,
+  body: string,
 ): { result: TestClassification; note: Warning | null } {
   const converted = entered.unit !== thresholds.unit;
-  const category = categoryFor(value, thresholds);
+  const cuts = cutPointsIn(test, thresholds, entered.unit);
+  // The category comes from the value as entered, against the body's form in that unit.
+  const category = categoryFor(entered.value, cuts);
   const text = converted ? sidePreservingText(value, thresholds) : withUnit(entered.value, entered.unit);
   const result: TestClassification = { test, value, unit: thresholds.unit, entered, converted, text, category };
   if (!converted) return { result, note: null };
+  const enteredText = withUnit(entered.value, entered.unit);
+  const ownCategory = categoryFor(value, thresholds);
+  const pairs = [
+    { own: thresholds.prediabetesFrom, there: cuts.prediabetesFrom, published: cuts.publishedPrediabetes },
+    { own: thresholds.diabetesRangeFrom, there: cuts.diabetesRangeFrom, published: cuts.publishedDiabetes },
+  ].filter((p): p is { own: number; there: number; published: boolean } => p.own !== null && p.there !== null);
+  const nearest = pairs.reduce((best, p) => (Math.abs(p.own - value) < Math.abs(best.own - value) ? p : best));
+  if (ownCategory !== category) {
+    // Between the two published forms of one cut-point: the form in the lab's unit decides.
+    return {
+      result,
+      note: {
+        code: 'conversion-near-threshold',
+        message: `The ${TEST_LABELS[test]} ${enteredText} is ${text}, within rounding of the ${thresholdText(nearest.own, thresholds.unit)} limit, which ${body} also publishes as ${thresholdText(nearest.there, entered.unit)}: the value falls between the two published forms of one cut-point, so it is placed by the form in the unit the lab printed (${entered.unit}), in the ${category === null ? 'range below' : rangeName(category)}`,
+      },
+    };
+  }
+  if (nearest.published) return { result, note: null };
   const rounded = roundToStep(value, REPORTING_STEP[thresholds.unit]);
-  if (categoryFor(rounded, thresholds) === category) return { result, note: null };
-  const limits = [thresholds.prediabetesFrom, thresholds.diabetesRangeFrom].filter((t): t is number => t !== null);
-  const nearest = limits.reduce((best, t) => (Math.abs(t - value) < Math.abs(best - value) ? t : best));
+  if (categoryFor(rounded, thresholds) === ownCategory) return { result, note: null };
   return {
     result,
     note: {
       code: 'conversion-near-threshold',
-      message: `The ${TEST_LABELS[test]} ${withUnit(entered.value, entered.unit)} is ${text}, within rounding of the ${thresholdText(nearest, thresholds.unit)} limit: the range depends on the unit the lab reported in, so check the lab's own ${thresholds.unit} value`,
+      message: `The ${TEST_LABELS[test]} ${enteredText} is ${text}, within rounding of the ${thresholdText(nearest.own, thresholds.unit)} limit, which ${body} gives in ${thresholds.unit} only: it was compared after conversion, and a lab result printed in ${thresholds.unit} could fall on the other side`,
     },
   };
+}
+
+/**
+ * Values possible in both units of a test (lib/glycaemia/schema.ts's plausible ranges overlap):
+ * HbA1c 9–20 (9–20 % and 9–195 mmol/mol), fasting glucose 18–50 (1–50 mmol/L and 18–900 mg/dL).
+ */
+export const AMBIGUOUS_VALUES = { hba1c: { min: 9, max: 20 }, fpg: { min: 18, max: 50 } } as const;
+
+const OTHER_UNIT: Readonly<Record<ValueUnit, ValueUnit>> = { '%': 'mmol/mol', 'mmol/mol': '%', 'mg/dL': 'mmol/L', 'mmol/L': 'mg/dL' };
+/** The unit in which a value from the overlap is very low (the other, very high). */
+const LOW_READING_UNIT: Readonly<Record<TestName, ValueUnit>> = { hba1c: 'mmol/mol', fpg: 'mg/dL' };
+
+/**
+ * A unit slip (issue 11 item 8): a value possible in both units whose category changes with the
+ * unit gets a note asking to confirm the unit ("12 mmol/mol is a very low HbA1c: is it 12%?").
+ */
+function unitSlipNote(test: TestName, entered: { readonly value: number; readonly unit: ValueUnit }, category: GlycaemicCategory | null, thresholds: TestThresholds<ValueUnit>, body: string): Warning | null {
+  const range = AMBIGUOUS_VALUES[test];
+  if (entered.value < range.min || entered.value > range.max) return null;
+  const other = OTHER_UNIT[entered.unit];
+  const otherCategory = categoryFor(entered.value, cutPointsIn(test, thresholds, other));
+  if (otherCategory === category) return null;
+  const asEntered = withUnit(entered.value, entered.unit);
+  const asOther = withUnit(entered.value, other);
+  const where = otherCategory === null ? `not classified (${body})` : `in the ${rangeName(otherCategory)} (${body})`;
+  const message =
+    entered.unit === LOW_READING_UNIT[test]
+      ? `${asEntered} is a very low ${TEST_LABELS[test]}: is it ${asOther}? As ${asOther} it would be ${where}; confirm the unit the lab printed`
+      : `${asEntered} is a very high ${TEST_LABELS[test]}: is it ${asOther}? As ${asOther} it would be ${where}; confirm the unit the lab printed`;
+  return { code: 'unit-check', message };
 }
 
 /**
@@ -144,14 +235,18 @@ export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): Classi
   let hba1c: TestClassification | null = null;
   let fpg: TestClassification | null = null;
   if (checkup.hba1c) {
-    const { result, note } = classifyTest('hba1c', checkup.hba1c, hba1cIn(body.hba1c.unit, checkup.hba1c), body.hba1c);
+    const { result, note } = classifyTest('hba1c', checkup.hba1c, hba1cIn(body.hba1c.unit, checkup.hba1c), body.hba1c, body.id);
     hba1c = result;
     if (note) notes.push(note);
+    const slip = unitSlipNote('hba1c', checkup.hba1c, result.category, body.hba1c, body.id);
+    if (slip) notes.push(slip);
   }
   if (checkup.fpg) {
-    const { result, note } = classifyTest('fpg', checkup.fpg, glucoseIn(body.fpg.unit, checkup.fpg), body.fpg);
+    const { result, note } = classifyTest('fpg', checkup.fpg, glucoseIn(body.fpg.unit, checkup.fpg), body.fpg, body.id);
     fpg = result;
     if (note) notes.push(note);
+    const slip = unitSlipNote('fpg', checkup.fpg, result.category, body.fpg, body.id);
+    if (slip) notes.push(slip);
   }
 
   const classifying = [hba1c, fpg].filter((t): t is TestClassification & { category: GlycaemicCategory } => t !== null && t.category !== null);

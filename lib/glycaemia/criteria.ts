@@ -1,7 +1,16 @@
 /**
- * The three criteria sets for glycaemic categories, each with its thresholds in the body's own
- * unit (methods guide, "Glycaemic categories"). A measurement is converted to the body's unit
- * before it is compared; a threshold is never converted (./classify.ts).
+ * The three criteria sets for glycaemic categories, each with its thresholds as the body writes
+ * them: in its own unit, and in the other unit where it prints an equivalent ("7.0 mmol/L
+ * (126 mg/dL)", "48 mmol/mol (6.5%)"; methods guide, "Glycaemic categories"). A result is compared
+ * in the unit it was entered in, against the body's published form in that unit (./classify.ts);
+ * only where the body prints no form in that unit is the own-unit threshold converted.
+ *
+ * Published forms in the other unit (from memory for each document's exact wording):
+ * | body | HbA1c                               | FPG                                           |
+ * |------|-------------------------------------|-----------------------------------------------|
+ * | ADA  | 5.7% (39 mmol/mol), 6.5% (48)       | 100 mg/dL (5.6 mmol/L), 126 mg/dL (7.0)       |
+ * | WHO  | 6.5% (48 mmol/mol)                  | 6.1 mmol/L (110 mg/dL), 7.0 mmol/L (126)      |
+ * | NICE | 42 mmol/mol (6.0%), 48 (6.5%)       | 5.5 mmol/L (no mg/dL form), 7.0 (126 mg/dL, as WHO) |
  *
  * Ranges are half-open: "prediabetes 5.7–6.4%" means 5.7 ≤ HbA1c < 6.5, because the next range
  * starts at 6.5; a converted 6.45% is therefore in the prediabetes range, not in a hole between
@@ -44,6 +53,15 @@ export interface TestThresholds<U extends string> {
   readonly prediabetesFrom: number | null;
   /** Lowest value in the diabetes range. */
   readonly diabetesRangeFrom: number;
+  /**
+   * The same cut-points as the body prints them in the test's other unit; a cut-point is null
+   * where the body prints no form in that unit (it is then converted from the own unit).
+   */
+  readonly published?: {
+    readonly unit: string;
+    readonly prediabetesFrom: number | null;
+    readonly diabetesRangeFrom: number | null;
+  };
 }
 
 export interface CriteriaDefinition {
@@ -63,24 +81,24 @@ export const CRITERIA: Readonly<Record<CriteriaSet, CriteriaDefinition>> = {
     id: 'ADA',
     name: 'American Diabetes Association (ADA)',
     prediabetesTerm: 'prediabetes',
-    hba1c: { unit: '%', prediabetesFrom: 5.7, diabetesRangeFrom: 6.5 },
-    fpg: { unit: 'mg/dL', prediabetesFrom: 100, diabetesRangeFrom: 126 },
+    hba1c: { unit: '%', prediabetesFrom: 5.7, diabetesRangeFrom: 6.5, published: { unit: 'mmol/mol', prediabetesFrom: 39, diabetesRangeFrom: 48 } },
+    fpg: { unit: 'mg/dL', prediabetesFrom: 100, diabetesRangeFrom: 126, published: { unit: 'mmol/L', prediabetesFrom: 5.6, diabetesRangeFrom: 7.0 } },
     source: 'ADA Standards of Care in Diabetes, section 2 (2021–2025)',
   },
   WHO: {
     id: 'WHO',
     name: 'World Health Organization (WHO)',
     prediabetesTerm: 'impaired fasting glucose',
-    hba1c: { unit: '%', prediabetesFrom: null, diabetesRangeFrom: 6.5 },
-    fpg: { unit: 'mmol/L', prediabetesFrom: 6.1, diabetesRangeFrom: 7.0 },
+    hba1c: { unit: '%', prediabetesFrom: null, diabetesRangeFrom: 6.5, published: { unit: 'mmol/mol', prediabetesFrom: null, diabetesRangeFrom: 48 } },
+    fpg: { unit: 'mmol/L', prediabetesFrom: 6.1, diabetesRangeFrom: 7.0, published: { unit: 'mg/dL', prediabetesFrom: 110, diabetesRangeFrom: 126 } },
     source: 'WHO/IDF 2006 (fasting glucose); WHO 2011 (HbA1c)',
   },
   NICE: {
     id: 'NICE',
     name: 'National Institute for Health and Care Excellence (NICE)',
     prediabetesTerm: 'non-diabetic hyperglycaemia',
-    hba1c: { unit: 'mmol/mol', prediabetesFrom: 42, diabetesRangeFrom: 48 },
-    fpg: { unit: 'mmol/L', prediabetesFrom: 5.5, diabetesRangeFrom: 7.0 },
+    hba1c: { unit: 'mmol/mol', prediabetesFrom: 42, diabetesRangeFrom: 48, published: { unit: '%', prediabetesFrom: 6.0, diabetesRangeFrom: 6.5 } },
+    fpg: { unit: 'mmol/L', prediabetesFrom: 5.5, diabetesRangeFrom: 7.0, published: { unit: 'mg/dL', prediabetesFrom: null, diabetesRangeFrom: 126 } },
     source: 'NICE PH38 (2012); diabetes range from its referral thresholds (from WHO)',
   },
 };

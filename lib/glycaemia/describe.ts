@@ -9,7 +9,16 @@ import type { ClassifiedCheckup, TestClassification } from './classify';
 import { CRITERIA } from './criteria';
 import { categoryLabel, rangeName, roundTo, TEST_LABELS, yearlyResults } from './format';
 import type { ExposureDefinition } from './exposure';
-import type { Persistence } from './persistence';
+import { MAX_GAP_MONTHS, type Persistence } from './persistence';
+
+/**
+ * A gap's length in words. Gaps are counted in whole calendar months, so a gap that breaks the
+ * run ("more than 18 months") can count as 18 whole months: it is then written "more than 18
+ * months", never "18 months", which would contradict the rule (issue 11 item 14).
+ */
+function gapLength(wholeMonths: number): string {
+  return wholeMonths === MAX_GAP_MONTHS ? `more than ${MAX_GAP_MONTHS} months` : `${wholeMonths} months`;
+}
 
 /** The caution shown with every classified history (clinician-facing). */
 export const GLYCAEMIA_CAUTION =
@@ -86,12 +95,12 @@ export function describePersistence(p: Persistence): string {
   }
   const b = p.brokenBy;
   if (!b) parts.push('There are no earlier results.');
-  else if (b.reason === 'gap' && b.gap) parts.push(`Before that there is a gap of ${b.gap.months} months (${b.gap.from} to ${b.gap.to}), which breaks the run.`);
+  else if (b.reason === 'gap' && b.gap) parts.push(`Before that there is a gap of ${gapLength(b.gap.months)} (${b.gap.from} to ${b.gap.to}), which breaks the run.`);
   else if (b.reason === 'category') parts.push(`Before that, the result of ${b.date} is in the ${categoryLabel(b.category, p.criteria)}.`);
   else parts.push(`Before that, the result of ${b.date} cannot be classified under ${body}.`);
   for (const g of p.gaps) {
     if (b?.gap && g.from === b.gap.from && g.to === b.gap.to) continue;
-    parts.push(`The history also has a gap of ${g.months} months (${g.from} to ${g.to}).`);
+    parts.push(`The history also has a gap of ${gapLength(g.months)} (${g.from} to ${g.to}).`);
   }
   return parts.join(' ');
 }

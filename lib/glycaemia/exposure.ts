@@ -17,7 +17,7 @@
  *   criteria set, test and gap rule as the exposure. Its `minYears` defaults to the exposure's
  *   ("over the same span"). Without it nobody is classed `comparison`.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 
 export const CRITERIA_SETS = ['ADA', 'WHO', 'NICE'] as const;
 export type CriteriaSet = (typeof CRITERIA_SETS)[number];

@@ -16,6 +16,8 @@ import { GLUCOSE_MG_DL_PER_MMOL_L, glucoseIn } from './glucose';
 import { hba1cIn, MASTER_EQUATION_SLOPE } from './hba1c';
 import { withUnit, type ValueUnit } from './format';
 import type { FpgReading, Hba1cReading } from './schema';
+import { CRITERIA } from './criteria';
+import type { CriteriaSet } from './exposure';
 
 /** Reporting step per unit (common practice: how labs print these results). */
 export const REPORTING_STEP = {
@@ -43,4 +45,19 @@ export function fpgReadingsAgree(a: FpgReading, b: FpgReading): boolean {
 /** "6.1 %" / "48 mmol/mol": a reading as written, for messages. */
 export function readingText(reading: { readonly value: number; readonly unit: ValueUnit }): string {
   return withUnit(reading.value, reading.unit);
+}
+
+/**
+ * Of two readings of one sample in two units, the one to keep: the one in the body's own unit
+ * when the criteria set is known (issue 11 item 2: the result must not depend on which came
+ * first), else the earlier one. Returns whether the later one was preferred.
+ */
+export function preferLater(test: 'hba1c' | 'fpg', earlier: { readonly unit: ValueUnit }, later: { readonly unit: ValueUnit }, criteria: CriteriaSet | undefined): boolean {
+  if (criteria === undefined || earlier.unit === later.unit) return false;
+  return later.unit === CRITERIA[criteria][test].unit;
+}
+
+/** The note's words for which reading of one sample in two units was kept. */
+export function keptWords(kept: { readonly value: number; readonly unit: ValueUnit }, criteria: CriteriaSet | undefined): string {
+  return criteria === undefined ? `${readingText(kept)} kept` : `${readingText(kept)} kept: ${CRITERIA[criteria].id} writes its thresholds in ${kept.unit}`;
 }

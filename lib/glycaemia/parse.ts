@@ -9,10 +9,10 @@
  */
 import type { z } from 'zod';
 import { fail, ok, type Issue, type Result, type Warning } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import type { CriteriaSet } from './exposure';
 import type { ValueUnit } from './format';
-import { fpgReadingsAgree, hba1cReadingsAgree, readingText } from './merge';
+import { fpgReadingsAgree, hba1cReadingsAgree, keptWords, preferLater, readingText } from './merge';
 import { glucoseHistorySchema, type Checkup, type HistoryOptions } from './schema';
 
 export interface GlucoseHistory {
@@ -46,7 +46,11 @@ function capitalised(text: string): string {
  * mergeSameDate([{ date: '2021-03-04', hba1c: { value: 6.1, unit: '%' } }, { date: '2021-03-04', fpg: { value: 5.9, unit: 'mmol/L' } }])
  * //=> { checkups: [{ date: '2021-03-04', hba1c: …, fpg: … }], notes: [{ code: 'same-day-merged', … }], issues: [] }
  */
-export function mergeSameDate(checkups: readonly Checkup[], checkupName: (index: number) => string = defaultName): MergeOutcome {
+export function mergeSameDate(
+  checkups: readonly Checkup[],
+  checkupName: (index: number) => string = defaultName,
+  criteria?: CriteriaSet,
+): MergeOutcome {
   const byDate = new Map<string, { merged: Checkup; firstIndex: number }>();
   const notes: Warning[] = [];
   const issues: Issue[] = [];
@@ -67,11 +71,13 @@ export function mergeSameDate(checkups: readonly Checkup[], checkupName: (index:
       if (later === undefined) return earlier;
       if (earlier === undefined) return later;
       if (agree(earlier, later)) {
+        const chosen = preferLater(test, earlier, later, criteria) ? later : earlier;
         kept.push(
           earlier.unit === later.unit
             ? `the ${TEST_NAMES[test]} ${readingText(earlier)} was given twice`
-            : `the ${TEST_NAMES[test]} ${readingText(earlier)} and ${readingText(later)} are the same result in two units (${readingText(earlier)} kept)`,
+            : `the ${TEST_NAMES[test]} ${readingText(earlier)} and ${readingText(later)} are the same result in two units (${keptWords(chosen, criteria)})`,
         );
+        return chosen;
       } else {
         conflicts.push({
           code: 'duplicate-date',
@@ -125,7 +131,7 @@ function historyIssues(zodIssues: readonly z.core.$ZodIssue[]): Issue[] {
 export function parseGlucoseHistory(input: unknown, options: HistoryOptions): Result<GlucoseHistory> {
   const parsed = glucoseHistorySchema(options).safeParse(input, { reportInput: true });
   if (!parsed.success) return fail(historyIssues(parsed.error.issues));
-  const { checkups, notes, issues } = mergeSameDate(parsed.data.checkups, options.checkupName);
+  const { checkups, notes, issues } = mergeSameDate(parsed.data.checkups, options.checkupName, parsed.data.criteria);
   if (issues.length > 0) return fail(issues);
   return ok({ criteria: parsed.data.criteria, checkups, notes });
 }

@@ -13,8 +13,8 @@
  * Dates: real calendar days from 1900-01-01 to today (today is passed in, for testability).
  * The schemas that check dates are therefore functions of {@link HistoryOptions}.
  */
-import { z } from 'zod';
-import { CRITERIA_SETS } from './exposure';
+import { z } from '../zod';
+import { CRITERIA_SETS, type CriteriaSet } from './exposure';
 import { GLUCOSE_UNITS, type GlucoseUnit } from './glucose';
 import { HBA1C_UNITS, type Hba1cUnit } from './hba1c';
 import { parseIsoDate } from './dates';
@@ -53,6 +53,35 @@ function otherUnitHint<U extends string>(
   return '';
 }
 
+/**
+ * A unit as written → the canonical unit, or null. Accepts the spellings record systems and
+ * people use: UCUM is case-sensitive, but "l" and "L" are both the litre (UCUM §4.2, from memory),
+ * so "mg/dl" and "mmol/l" are the same units; letter case is otherwise ignored (the four units are
+ * told apart without it); a UCUM annotation in braces, e.g. "%{HbA1c}" or "mmol/mol{Hb}", is not
+ * part of the unit (UCUM §2.1 annotations, from memory) and is dropped. Shared by the typed and JSON
+ * input, the paste and the FHIR import (lib/fhir/observation.ts).
+ *
+ * @example
+ * canonicalUnit('%{HbA1c}') //=> '%'
+ * canonicalUnit('mg/dl')    //=> 'mg/dL'
+ * canonicalUnit('mg')       //=> null
+ */
+export function canonicalUnit(text: string): '%' | 'mmol/mol' | 'mg/dL' | 'mmol/L' | null {
+  const bare = text.replace(/\{[^{}]*\}/g, '').trim().toLowerCase();
+  switch (bare) {
+    case '%':
+      return '%';
+    case 'mmol/mol':
+      return 'mmol/mol';
+    case 'mg/dl':
+      return 'mg/dL';
+    case 'mmol/l':
+      return 'mmol/L';
+    default:
+      return null;
+  }
+}
+
 function boundedReading<U extends string>(
   what: string,
   units: readonly [U, ...U[]],
@@ -61,12 +90,15 @@ function boundedReading<U extends string>(
   return z
     .strictObject({
       value: valueField(`The ${what} value`),
-      unit: z.enum(units, {
-        error: (iss) =>
-          iss.input === undefined
-            ? `The ${what} unit is required: ${units.map((u) => `"${u}"`).join(' or ')}`
-            : `The ${what} unit must be ${units.map((u) => `"${u}"`).join(' or ')}`,
-      }),
+      unit: z.preprocess(
+        (input) => (typeof input === 'string' ? (canonicalUnit(input) ?? input) : input),
+        z.enum(units, {
+          error: (iss) =>
+            iss.input === undefined
+              ? `The ${what} unit is required: ${units.map((u) => `"${u}"`).join(' or ')}`
+              : `The ${what} unit must be ${units.map((u) => `"${u}"`).join(' or ')}`,
+        }),
+      ),
     })
     .superRefine((reading, ctx) => {
       const b = bounds[reading.unit];
@@ -93,6 +125,12 @@ export interface HistoryOptions {
    * "checkup [i]". The screen passes "row n".
    */
   readonly checkupName?: (index: number) => string;
+  /**
+   * The criteria set the history will be classified under, when known: one sample reported in
+   * both units on one day keeps the reading in this body's own unit, whichever came first
+   * (issue 11 item 2). parseGlucoseHistory takes it from the input's `criteria`.
+   */
+  readonly criteria?: CriteriaSet | undefined;
 }
 
 export function checkupDateSchema({ today }: HistoryOptions) {

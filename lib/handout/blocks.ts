@@ -4,7 +4,7 @@
  * handout (the numbers, the sentences built from them, the caution) comes from lib/wording
  * and is not editable.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { readability, MAX_GRADE, type Readability } from '../readability';
 import type { Result } from '../result';
 

@@ -19,7 +19,7 @@
  * scenario's link query beside the history, so a history is only ever printed with the scenario
  * it was entered for. sessionStorage is per tab and cleared when the tab closes; nothing is sent.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { classifyCheckup } from '../glycaemia/classify';
 import type { CriteriaSet } from '../glycaemia/exposure';
 import { bodyName, rangeName, roundTo, THRESHOLD_DECIMALS, withUnit, type ValueUnit } from '../glycaemia/format';

@@ -86,7 +86,8 @@ export function plainIssue(issue: Issue): string {
 }
 
 function isEmptyQuery(query: string): boolean {
-  const q = query.includes('?') ? query.slice(query.indexOf('?') + 1) : query.startsWith('/') ? '' : query;
+  const at = Math.max(query.indexOf('?'), query.indexOf('#'));
+  const q = at >= 0 ? query.slice(at + 1) : query.startsWith('/') ? '' : query;
   return [...new URLSearchParams(q).keys()].length === 0;
 }
 
@@ -136,7 +137,9 @@ export function requestedTableId(query: string): string | undefined {
 
 /** The consultation screen's address for the same query. */
 export function backHrefFor(query: string): string {
-  return `/${query.startsWith('?') ? query : query ? `?${query}` : ''}`;
+  // The scenario travels in the fragment (lib/link); an old "?…" query is written as a fragment.
+  const params = query.replace(/^[?#]/, '');
+  return `/${params ? `#${params}` : ''}`;
 }
 
 /**

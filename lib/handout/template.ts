@@ -9,9 +9,9 @@
  * Every function here is pure: it returns a new list and never changes its input. The browser
  * storage wrapper is app/handout/templateStore.ts.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { fail, ok, type Issue, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { handoutBlocksSchema, type HandoutBlocks } from './blocks';
 
 export const TEMPLATE_FILE_FORMAT = 'hundredfold-handout-templates';
@@ -66,7 +66,9 @@ function locate(issue: Issue, raw: unknown): Issue {
   if (head !== 'templates' || typeof index !== 'number') return issue;
   const entry = Array.isArray(raw) ? (raw[index] as unknown) : undefined;
   const name = typeof entry === 'object' && entry !== null && typeof (entry as { name?: unknown }).name === 'string' ? (entry as { name: string }).name.trim() : '';
-  const which = `Template ${index + 1}${name ? ` ("${name}")` : ''}`;
+  // An unknown key's message says only "is not a field here": name the group it sits in ("clinic").
+  const group = issue.code === 'unknown-field' ? issue.path.slice(2, -1).filter((p): p is string => typeof p === 'string').join('.') : '';
+  const which = `Template ${index + 1}${name ? ` ("${name}")` : ''}${group ? `, ${group}` : ''}`;
   return { ...issue, message: `${which}: ${issue.message}` };
 }
 

@@ -4,7 +4,7 @@
  */
 import { fail, ok, type Issue, type Result } from '../result';
 import { BASELINE_FORM_KEYS, scenarioSchema, scenarioSchemaByForm, type Scenario } from './schema';
-import { pickUnionBranch, toIssues } from './issues';
+import { pickUnionBranch, toIssues } from '../validation/issues';
 
 const BASELINE_FORMS_MESSAGE =
   'The baseline must be one of: {"risk", "years"}, {"rate", "perPersonYears"} or {"populationRisk", "exposurePrevalence", "years"}';
@@ -36,7 +36,8 @@ export function parseScenario(input: unknown): Result<Scenario> {
     if (issue.code === 'invalid_union' && issue.path.length === 1 && issue.path[0] === 'baseline') {
       const branch = pickUnionBranch(issue, BASELINE_FORM_KEYS, baseline);
       if (branch) {
-        issues.push(...toIssues(branch));
+        // One at a time: spreading a huge list into one call overflows the stack.
+        for (const one of toIssues(branch)) issues.push(one);
       } else {
         issues.push({
           code: baseline === undefined ? 'required' : 'baseline-form',
@@ -46,7 +47,7 @@ export function parseScenario(input: unknown): Result<Scenario> {
       }
       continue;
     }
-    issues.push(...toIssues([issue]));
+    for (const one of toIssues([issue])) issues.push(one);
   }
   return fail(issues);
 }

@@ -8,13 +8,28 @@
  *
  * Ranges are stated once here, with the reason for each bound. Risks are fractions.
  */
-import { z } from 'zod';
+import { z } from '../zod';
+import { fraction, MAX_RATIO, MAX_TEXT, MAX_YEARS, MIN_RATIO, numberField, ratio, text, years } from '../validation/fields';
 
-/** Allowed interval levels. The engine carries the level through; it does not re-estimate. */
+/**
+ * The interval levels offered as choices in forms. Any level from {@link MIN_INTERVAL_LEVEL} to
+ * {@link MAX_INTERVAL_LEVEL} is accepted (e.g. 0.975 for a one-sided 2.5% test); the engine carries
+ * the level through and takes z from lib/stats/normalQuantile.ts; it does not re-estimate.
+ */
 export const INTERVAL_LEVELS = [0.9, 0.95, 0.99] as const;
-export type IntervalLevel = (typeof INTERVAL_LEVELS)[number];
+/** Lowest interval level accepted: 80% (common practice: narrower intervals are not published as confidence intervals). */
+export const MIN_INTERVAL_LEVEL = 0.8;
+/** Highest interval level accepted: 99.9%. */
+export const MAX_INTERVAL_LEVEL = 0.999;
+/** An interval level, a fraction from 0.8 to 0.999. */
+export type IntervalLevel = number;
 
-/** Study designs, each with its own treatment of an odds ratio (see lib/engine/exposedRisk.ts). */
+/**
+ * Study designs, each with its own treatment of an odds ratio (see lib/engine/conversion.ts).
+ * The two matched designs report a conditional odds ratio (conditional logistic regression):
+ * `matched-case-control` with controls drawn from non-cases (read as a risk odds ratio),
+ * `matched-risk-set-case-control` with risk-set sampling (read as a rate ratio).
+ */
 export const STUDY_DESIGNS = [
   'cohort',
   'trial',
@@ -22,6 +37,8 @@ export const STUDY_DESIGNS = [
   'case-control',
   'risk-set-case-control',
   'case-cohort',
+  'matched-case-control',
+  'matched-risk-set-case-control',
 ] as const;
 export type StudyDesign = (typeof STUDY_DESIGNS)[number];
 
@@ -31,43 +48,9 @@ export type EffectMeasure = (typeof EFFECT_MEASURES)[number];
 export const DENOMINATORS = [100, 1000] as const;
 export type Denominator = (typeof DENOMINATORS)[number];
 
-/** Longest horizon or follow-up accepted, in years: a human life span (common practice). */
-export const MAX_YEARS = 100;
-/** Largest ratio accepted: beyond this, a typing slip is far likelier than a real effect. */
-export const MAX_RATIO = 1000;
-/** Longest free-text field (wording, citation), in characters. */
-export const MAX_TEXT = 500;
-
-function numberField(what: string) {
-  return z.number({
-    error: (iss) => (iss.input === undefined ? `${what} is required` : `${what} must be a number`),
-  });
-}
-
-/** A probability strictly between 0 and 1. */
-export function fraction(what: string) {
-  return numberField(what)
-    .gt(0, { error: `${what} must be greater than 0 (risks are fractions: for 8% enter 0.08)` })
-    .lt(1, { error: `${what} must be less than 1 (risks are fractions: for 8% enter 0.08)` });
-}
-
-export function years(what: string) {
-  return numberField(what)
-    .gt(0, { error: `${what} must be greater than 0 years` })
-    .lte(MAX_YEARS, { error: `${what} must be at most ${MAX_YEARS} years` });
-}
-
-function ratio(what: string) {
-  return numberField(what)
-    .gt(0, { error: `${what} must be greater than 0 (ratios are positive)` })
-    .lte(MAX_RATIO, { error: `${what} must be at most ${MAX_RATIO}` });
-}
-
-function text(what: string) {
-  return z
-    .string({ error: `${what} must be text` })
-    .max(MAX_TEXT, { error: `${what} must be at most ${MAX_TEXT} characters` });
-}
+// The field builders and limits are shared by every schema in lib/ (lib/validation/fields.ts);
+// re-exported here for the modules that import them from the scenario.
+export { fraction, MAX_RATIO, MAX_TEXT, MAX_YEARS, MIN_RATIO, years };
 
 /** A risk over a stated number of years in the reference (unexposed) group. */
 export const riskBaselineSchema = z.strictObject({
@@ -75,7 +58,17 @@ export const riskBaselineSchema = z.strictObject({
   years: years('The baseline period'),
 });
 
-/** An event rate: `rate` events per `perPersonYears` person-years (e.g. 12 per 1000). */
+function prevalence(what: string) {
+  return numberField(what)
+    .gte(0, { error: `${what} must be at least 0` })
+    .lt(1, { error: `${what} must be less than 1 (a fraction: for 30% enter 0.3)` });
+}
+
+/**
+ * An event rate: `rate` events per `perPersonYears` person-years (e.g. 12 per 1000). With
+ * `exposurePrevalence` the rate is a population average (e.g. from a population table that
+ * states the exposure's prevalence) and the engine corrects it as it does a population risk.
+ */
 export const rateBaselineSchema = z.strictObject({
   rate: numberField('The event rate')
     .gt(0, { error: 'The event rate must be greater than 0' })
@@ -83,6 +76,7 @@ export const rateBaselineSchema = z.strictObject({
   perPersonYears: numberField('The person-years')
     .gt(0, { error: 'The person-years must be greater than 0 (e.g. 1000 for a rate per 1000 person-years)' })
     .lte(1e9, { error: 'The person-years must be at most 1,000,000,000' }),
+  exposurePrevalence: prevalence('The exposure prevalence').optional(),
 });
 
 /**
@@ -91,9 +85,7 @@ export const rateBaselineSchema = z.strictObject({
  */
 export const populationBaselineSchema = z.strictObject({
   populationRisk: fraction('The population risk'),
-  exposurePrevalence: numberField('The exposure prevalence')
-    .gte(0, { error: 'The exposure prevalence must be at least 0' })
-    .lt(1, { error: 'The exposure prevalence must be less than 1 (a fraction: for 30% enter 0.3)' }),
+  exposurePrevalence: prevalence('The exposure prevalence'),
   years: years('The baseline period'),
 });
 
@@ -111,9 +103,9 @@ export const effectSchema = z
     lower: ratio('The lower limit'),
     upper: ratio('The upper limit'),
     level: z
-      .union(INTERVAL_LEVELS.map((l) => z.literal(l)), {
-        error: 'The interval level must be 0.9, 0.95 or 0.99',
-      })
+      .number({ error: 'The interval level must be a number, a fraction such as 0.95' })
+      .gte(MIN_INTERVAL_LEVEL, { error: `The interval level must be from ${MIN_INTERVAL_LEVEL} to ${MAX_INTERVAL_LEVEL} (a fraction: for 95% enter 0.95)` })
+      .lte(MAX_INTERVAL_LEVEL, { error: `The interval level must be from ${MIN_INTERVAL_LEVEL} to ${MAX_INTERVAL_LEVEL} (a fraction: for 95% enter 0.95)` })
       .optional(),
     design: z
       .enum(STUDY_DESIGNS, {

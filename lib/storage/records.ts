@@ -3,9 +3,9 @@
  * migration path: a record written by an older program is brought up to date when read; one
  * written by a newer program, or damaged, is reported and left untouched, never guessed at.
  */
-import { z } from 'zod';
+import { z } from '../zod';
 import { fail, ok, type Issue, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { populationTableSchema, tableForm, type PopulationTable, type TableForm } from '../tables/schema';
 import { evidenceEntrySchema, type EvidenceEntry } from '../evidence/schema';
 

@@ -15,8 +15,8 @@ export function readNumber(cell: string, column: string): number | { code: strin
     };
   }
   if (PERCENT.test(cell)) {
-    return column === 'risk'
-      ? { code: 'percent', message: `"${cell}" is a percentage; risks are fractions: for 8% write 0.08` }
+    return column === 'risk' || column === 'exposure_prevalence'
+      ? { code: 'percent', message: `"${cell}" is a percentage; ${column === 'risk' ? 'risks are fractions: for 8% write 0.08' : 'the prevalence is a fraction: for 30% write 0.3'}` }
       : { code: 'percent', message: `"${cell}" has a % sign; write the plain number` };
   }
   if (/^\d+\s*\+$/.test(cell) && column === 'age_to') {
@@ -43,5 +43,7 @@ export function describeColumn(column: NumericColumn): string {
       return 'the rate';
     case 'person_years':
       return 'the person-years';
+    case 'exposure_prevalence':
+      return 'the exposure prevalence';
   }
 }

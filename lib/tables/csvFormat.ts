@@ -28,7 +28,7 @@ export const PREVIEW_ROWS = 10;
 export const DEFAULT_CHUNK_CHARS = 256 * 1024;
 
 /** The detail keys, in the order the export writes them. */
-export const DETAIL_KEYS = ['id', 'title', 'outcome', 'horizon_years', 'population', 'source', 'year', 'illustrative'] as const;
+export const DETAIL_KEYS = ['id', 'title', 'outcome', 'horizon_years', 'population', 'source', 'year', 'illustrative', 'exposure_prevalence'] as const;
 export type DetailKey = (typeof DETAIL_KEYS)[number];
 /** The details every file must give. */
 export const REQUIRED_DETAILS: readonly DetailKey[] = ['title', 'outcome', 'population', 'source', 'year'];
@@ -36,10 +36,19 @@ export const REQUIRED_DETAILS: readonly DetailKey[] = ['title', 'outcome', 'popu
 /** An extra stratum `region` is the column `stratum_region`. */
 export const STRATUM_COLUMN_PREFIX = 'stratum_';
 
-export type BaseColumn = 'sex' | 'age_from' | 'age_to' | 'risk' | 'rate' | 'person_years';
-export const BASE_COLUMNS: readonly BaseColumn[] = ['sex', 'age_from', 'age_to', 'risk', 'rate', 'person_years'];
+/** `exposure_prevalence` is optional: a stratum's own prevalence of the exposure (issue 11 item 3). */
+export type BaseColumn = 'sex' | 'age_from' | 'age_to' | 'risk' | 'rate' | 'person_years' | 'exposure_prevalence';
+export const BASE_COLUMNS: readonly BaseColumn[] = ['sex', 'age_from', 'age_to', 'risk', 'rate', 'person_years', 'exposure_prevalence'];
 /** The stratum field each base column fills. */
-export const COLUMN_FIELD = { sex: 'sex', age_from: 'ageFrom', age_to: 'ageTo', risk: 'risk', rate: 'rate', person_years: 'perPersonYears' } as const;
+export const COLUMN_FIELD = {
+  sex: 'sex',
+  age_from: 'ageFrom',
+  age_to: 'ageTo',
+  risk: 'risk',
+  rate: 'rate',
+  person_years: 'perPersonYears',
+  exposure_prevalence: 'exposurePrevalence',
+} as const;
 export type NumericColumn = Exclude<BaseColumn, 'sex'>;
 /** The column that holds each stratum field (the reverse of {@link COLUMN_FIELD}). */
 export const FIELD_COLUMN: Readonly<Record<string, BaseColumn>> = {
@@ -49,6 +58,7 @@ export const FIELD_COLUMN: Readonly<Record<string, BaseColumn>> = {
   risk: 'risk',
   rate: 'rate',
   perPersonYears: 'person_years',
+  exposurePrevalence: 'exposure_prevalence',
 };
 /** The table field each detail key fills. */
 export const DETAIL_FIELD = {
@@ -60,6 +70,7 @@ export const DETAIL_FIELD = {
   source: 'source',
   year: 'year',
   illustrative: 'illustrative',
+  exposure_prevalence: 'exposurePrevalence',
 } as const satisfies Record<DetailKey, keyof PopulationTable>;
 
 /** Bytes of `text` encoded as UTF-8, without allocating the encoding. */

@@ -192,9 +192,10 @@ class TableCsvReader {
   private readDetail(key: DetailKey, value: string, line: number): void {
     const field = DETAIL_FIELD[key];
     let input: unknown = value;
-    if (key === 'horizon_years' || key === 'year') {
+    if (key === 'horizon_years' || key === 'year' || key === 'exposure_prevalence') {
       if (value === '') {
-        this.problems.add(issueAt('required', line, key, `The ${key === 'year' ? 'year' : 'horizon'} is empty`, [field], true));
+        const what = key === 'year' ? 'year' : key === 'horizon_years' ? 'horizon' : 'exposure prevalence';
+        this.problems.add(issueAt('required', line, key, `The ${what} is empty`, [field], true));
         return;
       }
       const n = readNumber(value, key);
@@ -275,7 +276,12 @@ class TableCsvReader {
       );
     }
     const usable = index.sex !== undefined && index.age_from !== undefined && index.age_to !== undefined && form !== undefined;
-    const numeric: NumericColumn[] = ['age_from', 'age_to', ...(form === 'risk' ? (['risk'] as const) : (['rate', 'person_years'] as const))];
+    const numeric: NumericColumn[] = [
+      'age_from',
+      'age_to',
+      ...(form === 'risk' ? (['risk'] as const) : (['rate', 'person_years'] as const)),
+      ...(index.exposure_prevalence === undefined ? [] : (['exposure_prevalence'] as const)),
+    ];
     return { names, index, extras, form, numeric, usable };
   }
 
@@ -357,6 +363,8 @@ class TableCsvReader {
         continue;
       }
       if (value === '') {
+        // An empty prevalence cell: this stratum takes the table's prevalence, if any.
+        if (column === 'exposure_prevalence') continue;
         problem('required', column, `The cell is empty; ${describeColumn(column)} is required`, field);
         continue;
       }
@@ -481,6 +489,7 @@ function orderedTable(t: PopulationTable): PopulationTable {
     source: t.source,
     year: t.year,
     illustrative: t.illustrative,
+    ...(t.exposurePrevalence === undefined ? {} : { exposurePrevalence: t.exposurePrevalence }),
     strata: t.strata,
   };
 }

@@ -24,6 +24,7 @@ export function exportTableCsv(table: PopulationTable): string {
     source: table.source,
     year: numberCell(table.year),
     illustrative: table.illustrative ? 'true' : 'false',
+    exposure_prevalence: table.exposurePrevalence === undefined ? undefined : numberCell(table.exposurePrevalence),
   };
   const lines: string[] = [];
   for (const key of DETAIL_KEYS) {
@@ -32,13 +33,23 @@ export function exportTableCsv(table: PopulationTable): string {
   }
   const form: TableForm = table.strata[0]?.risk !== undefined ? 'risk' : 'rate';
   const keys = Object.keys(table.strata[0]?.extra ?? {}).sort();
-  const header = ['sex', 'age_from', 'age_to', ...keys.map((k) => `${STRATUM_COLUMN_PREFIX}${k}`), ...(form === 'risk' ? ['risk'] : ['rate', 'person_years'])];
+  // A stratum's own exposure prevalence (issue 11 item 3): a column only when some stratum has one.
+  const withPrevalence = table.strata.some((s) => s.exposurePrevalence !== undefined);
+  const header = [
+    'sex',
+    'age_from',
+    'age_to',
+    ...keys.map((k) => `${STRATUM_COLUMN_PREFIX}${k}`),
+    ...(form === 'risk' ? ['risk'] : ['rate', 'person_years']),
+    ...(withPrevalence ? ['exposure_prevalence'] : []),
+  ];
   const rows = table.strata.map((s) => [
     guardTextCell(s.sex),
     numberCell(s.ageFrom),
     numberCell(s.ageTo),
     ...keys.map((k) => guardTextCell(s.extra?.[k] ?? '')),
     ...(form === 'risk' ? [numberCell(s.risk ?? Number.NaN)] : [numberCell(s.rate ?? Number.NaN), numberCell(s.perPersonYears ?? Number.NaN)]),
+    ...(withPrevalence ? [s.exposurePrevalence === undefined ? '' : numberCell(s.exposurePrevalence)] : []),
   ]);
   // Text cells are guarded so a spreadsheet never runs one as a formula; number cells stay as written.
   lines.push(Papa.unparse([header.map(guardTextCell), ...rows], { newline: '\n' }));

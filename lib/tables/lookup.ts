@@ -2,15 +2,31 @@
  * Finds the person's stratum in a population table and gives its baseline in the scenario's
  * own form: `{ risk, years }` for a table of risks, `{ rate, perPersonYears }` for a table of
  * rates. No arithmetic happens here; converting a rate or another horizon is the engine's job.
+ *
+ * A table's risk is the population's average, exposed people included (methods guide,
+ * "Baselines"). When the exposure's prevalence is known — typed by the clinician, else the
+ * stratum's, else the table's — the baseline is given as a population average,
+ * `{ populationRisk, exposurePrevalence, years }` (or a rate with `exposurePrevalence`), so the
+ * engine applies its population-average correction (lib/engine/baseline.ts).
  */
 import { fail, ok, type Issue, type Result } from '../result';
-import type { Person, RateBaseline, RiskBaseline } from '../scenario/schema';
+import type { Person, PopulationBaseline, RateBaseline, RiskBaseline } from '../scenario/schema';
 import { describeGroup, extraKeys, MAX_AGE_YEARS, type PopulationTable, type Stratum } from './schema';
+
+/** Where the exposure prevalence used for the correction came from; `none` when unknown. */
+export type PrevalenceSource = 'clinician' | 'stratum' | 'table' | 'none';
 
 export interface StratumLookup {
   readonly stratum: Stratum;
   /** The stratum's baseline, ready for `scenario.baseline`. */
-  readonly baseline: RiskBaseline | RateBaseline;
+  readonly baseline: RiskBaseline | RateBaseline | PopulationBaseline;
+  /** Which exposure prevalence the baseline carries. */
+  readonly prevalenceSource: PrevalenceSource;
+}
+
+export interface LookupOptions {
+  /** A prevalence typed by the clinician; overrides the table's and the stratum's. */
+  readonly exposurePrevalence?: number | undefined;
 }
 
 /** Values for a table's extra strata, by name, e.g. `{ region: 'north' }`. */
@@ -53,7 +69,7 @@ function ageRange(strata: readonly Stratum[]): string {
  * lookupStratum(demoHeartFailure, { age: 17, sex: 'female' })
  * //=> { ok: false, issues: [{ code: 'no-stratum', path: ['person', 'age'], message: 'No band of the table … covers age 17 …' }] }
  */
-export function lookupStratum(table: PopulationTable, person: Person, extra: ExtraStrata = {}): Result<StratumLookup> {
+export function lookupStratum(table: PopulationTable, person: Person, extra: ExtraStrata = {}, options: LookupOptions = {}): Result<StratumLookup> {
   const needs = tableNeeds(table);
   const issues: Issue[] = [];
   const name = `"${table.title}"`;
@@ -100,11 +116,32 @@ export function lookupStratum(table: PopulationTable, person: Person, extra: Ext
       },
     ]);
   }
-  return ok({ stratum, baseline: baselineOf(table, stratum) });
+  const { prevalence, source } = prevalenceFor(table, stratum, options);
+  return ok({ stratum, baseline: baselineOf(table, stratum, prevalence), prevalenceSource: source });
 }
 
-/** A stratum's baseline in the scenario's form. A risk table always has `horizonYears` once valid. */
-export function baselineOf(table: PopulationTable, stratum: Stratum): RiskBaseline | RateBaseline {
-  if (stratum.risk !== undefined) return { risk: stratum.risk, years: table.horizonYears ?? Number.NaN };
-  return { rate: stratum.rate ?? Number.NaN, perPersonYears: stratum.perPersonYears ?? Number.NaN };
+/** The prevalence to correct with: the clinician's, else the stratum's, else the table's. */
+export function prevalenceFor(
+  table: Pick<PopulationTable, 'exposurePrevalence'>,
+  stratum: Pick<Stratum, 'exposurePrevalence'>,
+  options: LookupOptions = {},
+): { prevalence: number | undefined; source: PrevalenceSource } {
+  if (options.exposurePrevalence !== undefined) return { prevalence: options.exposurePrevalence, source: 'clinician' };
+  if (stratum.exposurePrevalence !== undefined) return { prevalence: stratum.exposurePrevalence, source: 'stratum' };
+  if (table.exposurePrevalence !== undefined) return { prevalence: table.exposurePrevalence, source: 'table' };
+  return { prevalence: undefined, source: 'none' };
+}
+
+/**
+ * A stratum's baseline in the scenario's form. A risk table always has `horizonYears` once valid.
+ * With a prevalence, a population average for the engine to correct.
+ */
+export function baselineOf(table: PopulationTable, stratum: Stratum, exposurePrevalence?: number): RiskBaseline | RateBaseline | PopulationBaseline {
+  if (stratum.risk !== undefined) {
+    const years = table.horizonYears ?? Number.NaN;
+    if (exposurePrevalence !== undefined) return { populationRisk: stratum.risk, exposurePrevalence, years };
+    return { risk: stratum.risk, years };
+  }
+  const rate = { rate: stratum.rate ?? Number.NaN, perPersonYears: stratum.perPersonYears ?? Number.NaN };
+  return exposurePrevalence === undefined ? rate : { ...rate, exposurePrevalence };
 }

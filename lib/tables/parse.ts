@@ -3,7 +3,7 @@
  * stored table read back from the browser, a JSON import.
  */
 import { fail, ok, type Result } from '../result';
-import { toIssues } from '../scenario/issues';
+import { toIssues } from '../validation/issues';
 import { populationTableSchema, type PopulationTable } from './schema';
 
 /**

@@ -20,12 +20,24 @@
  *
  * Numbers in a clinic's table come from its source; the schema only checks they are usable.
  */
-import { z } from 'zod';
-import { fraction, MAX_TEXT, years } from '../scenario/schema';
+import { z } from '../zod';
+import { fraction, MAX_TEXT, years } from '../validation/fields';
 import { checkStrataLayout } from './bands';
 
 /** The age-band tiling lives in bands.ts; re-exported here for existing importers. */
 export { checkStrataLayout, describeGroup, StrataLayout, stratumGroupKey, type StratumLabel } from './bands';
+
+/**
+ * The exposure's prevalence in the table's population, a fraction in [0, 1). A table's risk is
+ * the population's average, exposed people included; with the prevalence known the engine
+ * recovers the comparison group's risk (methods guide, "Baselines"; lib/engine/baseline.ts).
+ */
+export function exposurePrevalenceField() {
+  return z
+    .number({ error: 'The exposure prevalence must be a number' })
+    .gte(0, { error: 'The exposure prevalence must be at least 0' })
+    .lt(1, { error: 'The exposure prevalence must be less than 1 (a fraction: for 30% enter 0.3)' });
+}
 
 /** Oldest age a band may reach, in years; also the end of an open top band (common practice). */
 export const MAX_AGE_YEARS = 120;
@@ -99,6 +111,8 @@ export const stratumFieldsSchema = z.strictObject({
     .gt(0, { error: 'The person-years must be greater than 0 (e.g. 1000 for a rate per 1000 person-years)' })
     .lte(1e9, { error: 'The person-years must be at most 1,000,000,000' })
     .optional(),
+  /** The exposure's prevalence in this stratum; overrides the table's when both are given. */
+  exposurePrevalence: exposurePrevalenceField().optional(),
 });
 
 /** Receives one problem: its path (in the stratum or the table), its issue code and its message. */
@@ -152,6 +166,8 @@ export const populationTableSchema = z
       .lte(MAX_SOURCE_YEAR, { error: `The year must be at most ${MAX_SOURCE_YEAR}` }),
     /** True when the numbers are invented (the demo tables); the screen then says so. */
     illustrative: z.boolean({ error: 'Illustrative must be true or false' }),
+    /** The exposure's prevalence in the whole table's population, when known (a stratum's own overrides it). */
+    exposurePrevalence: exposurePrevalenceField().optional(),
     strata: z
       .array(stratumSchema, { error: 'The strata must be a list' })
       .min(1, { error: 'A table needs at least one stratum' })

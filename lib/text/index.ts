@@ -5,3 +5,4 @@ export * from './plural';
 export * from './trim';
 export * from './decimal';
 export * from './ages';
+export * from './case';

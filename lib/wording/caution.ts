@@ -1,7 +1,7 @@
 /**
  * The not-a-diagnosis caution: one text, used on the screen, the handout and in print.
  *
- * Content follows the project's safety rule and the risk-communication guide: the figures are
+ * Content follows the project's safety rule (README.md): the figures are
  * an estimate for people with similar characteristics from published population data; not a
  * diagnosis; not a prediction for this person; to be discussed with the clinician; local
  * guidelines and licensed practice come first. Worded in the project's own voice and kept to

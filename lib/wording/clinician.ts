@@ -2,13 +2,14 @@
  * The clinician-side sentences: the risk ratio at this baseline, the risk difference in
  * percentage points and the number needed, each with its interval and with both absolute
  * risks beside it (relative figures never stand alone: Akl et al. 2011, Cochrane Database
- * Syst Rev CD006776; risk-communication guide). The engine's warnings are already plain
+ * Syst Rev CD006776). The engine's warnings are already plain
  * words for the clinician and pass through unchanged.
  *
  * The intervals hold the baseline fixed, so they ignore its uncertainty (Cochrane Handbook
  * §12.5.4.5); {@link ClinicianText.intervalNote} says so.
  */
 import type { ComputeResult } from '../engine/types';
+import { phraseText } from '../text';
 import type { Warning } from '../result';
 import type { Wording } from '../scenario/schema';
 import { formatCount, formatPercent, formatPercentagePoints, formatRatio, intervalLabel, overTheNext } from './format';
@@ -27,9 +28,7 @@ export interface ClinicianText {
 
 const MEASURE_NAMES = { OR: 'odds ratio', RR: 'risk ratio', HR: 'hazard ratio' } as const;
 
-function trimmed(text: string | undefined): string {
-  return (text ?? '').trim().replace(/[.\s]+$/, '');
-}
+const trimmed = phraseText;
 
 /**
  * @example
@@ -53,7 +52,10 @@ export function clinicianText(result: ComputeResult, wording?: Wording): Clinici
     absoluteRisks: `Absolute risk ${time}: ${p1Text} (${ci} ${formatPercent(p1.lower)} to ${formatPercent(p1.upper)}) ${exposedGroup}; ${p0Text} ${comparisonGroup}.`,
     riskRatio: `Risk ratio at this baseline: ${formatRatio(rr.estimate)} (${ci} ${formatRatio(rr.lower)} to ${formatRatio(rr.upper)}), from the reported ${MEASURE_NAMES[result.measure]}; ${both} ${time}.`,
     riskDifference: `Risk difference ${time}: ${formatPercentagePoints(rd.estimate)} percentage points (${ci} ${formatPercentagePoints(rd.lower)} to ${formatPercentagePoints(rd.upper)}); ${both}.`,
-    numberNeeded: `${result.numberNeeded.text} ${time}; ${formatCount(counts.exposedEvents)} vs ${formatCount(counts.referenceEvents)} out of ${d} (${both}).`,
+    numberNeeded: `${result.numberNeeded.text} ${time}; ${formatCount(counts.exposedEvents)} vs ${formatCount(counts.referenceEvents)} out of ${d} (${both}).${
+      // Issue 11 item 15: the same count in both pictures beside a finite number needed.
+      counts.exposedEvents === counts.referenceEvents && rd.estimate !== 0 ? ` The difference is less than one person in the picture of ${d}.` : ''
+    }`,
     intervalNote: 'The intervals come from the ratio\u2019s interval with the baseline held fixed; they leave out any uncertainty in the baseline (Cochrane Handbook \u00a712.5.4.5).',
     warnings: result.warnings,
   };

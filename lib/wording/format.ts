@@ -89,10 +89,20 @@ export function formatRatio(ratio: number): string {
 }
 
 /**
- * The interval's label: 0.95 → "95% CI".
+ * The interval's label: 0.95 → "95% CI"; any level from 80% to 99.9% keeps its decimal.
  * @example
  * intervalLabel(0.9) //=> "90% CI"
+ * intervalLabel(0.975) //=> "97.5% CI"
  */
 export function intervalLabel(level: number): string {
-  return `${Math.round(level * 100)}% CI`;
+  return `${formatLevel(level)} CI`;
+}
+
+/**
+ * An interval level as a percentage, to one decimal where it has one: 0.95 → "95%", 0.975 → "97.5%".
+ * @example
+ * formatLevel(0.99) //=> "99%"
+ */
+export function formatLevel(level: number): string {
+  return `${Number((level * 100).toFixed(1))}%`;
 }

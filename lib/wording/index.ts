@@ -4,3 +4,4 @@ export * from './people';
 export * from './caution';
 export * from './patient';
 export * from './clinician';
+export * from './screen';

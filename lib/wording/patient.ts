@@ -4,7 +4,7 @@
  * mean, the caution and teach-back questions. Built only from a {@link ComputeResult}, the
  * scenario's {@link Wording}, the group phrase (./people.ts) and the horizon.
  *
- * Rules (shared/guides/risk-communication.md, each checked in tests/unit/wording):
+ * Rules (each with its published source; each checked in tests/unit/wording):
  * - natural frequencies, "N out of D", with the result's one denominator D (Gigerenzer &
  *   Hoffrage 1995, Psychol Rev 102:684; Trevena et al. 2013, BMC Med Inform Decis Mak
  *   13(Suppl 2):S7);
@@ -23,6 +23,7 @@ import { exposedLayout, referenceLayout, type IconArrayLayout, type IconKind } f
 import type { ComputeResult } from '../engine/types';
 import { fail, ok, type Issue, type Result } from '../result';
 import type { Denominator, Wording } from '../scenario/schema';
+import { capitalise, phraseText } from '../text';
 import { CAUTION_TEXT } from './caution';
 import { formatCount, inTheNext, overTheNext, peopleCount } from './format';
 
@@ -51,7 +52,10 @@ export interface LegendItem {
   readonly label: string;
   /** How many icons of this kind the array draws. */
   readonly count: number;
-  /** Label with the count, pluralised: "Will not have it (92 people)". */
+  /**
+   * Label with the count, pluralised: "Will not have it (92 people)"; for "could be", the range
+   * in people ("from 10 to 15 in all; already counted above"), so the key adds up to D.
+   */
   readonly text: string;
 }
 
@@ -97,7 +101,12 @@ export interface PatientText {
   readonly noDifferenceSentence: string | undefined;
   readonly reference: ArrayText;
   readonly exposed: ArrayText;
-  readonly dataTable: { readonly caption: string; readonly rows: readonly DataTableRow[] };
+  readonly dataTable: {
+    readonly caption: string;
+    /** Column headings: "Group", "Will have {outcome}", "Will not". */
+    readonly headers: { readonly group: string; readonly willHave: string; readonly willNotHave: string };
+    readonly rows: readonly DataTableRow[];
+  };
   /** What the figures mean. */
   readonly means: readonly string[];
   /** What the figures do not mean. */
@@ -107,13 +116,7 @@ export interface PatientText {
   readonly teachBack: readonly string[];
 }
 
-function clean(text: string | undefined): string {
-  return (text ?? '').trim().replace(/[.\s]+$/, '');
-}
-
-function capitalise(text: string): string {
-  return text.charAt(0).toUpperCase() + text.slice(1);
-}
+const clean = phraseText;
 
 /**
  * "about 8 out of 100"; "fewer than 1 out of 100" when a non-zero risk rounds to 0 people;
@@ -154,7 +157,17 @@ function referenceLegend(layout: IconArrayLayout, outcome: string): LegendItem[]
   return items;
 }
 
-function exposedLegend(layout: IconArrayLayout, outcome: string, exposedGroup: string, comparisonGroup: string): LegendItem[] {
+/**
+ * The key adds up to the denominator: the "could be" icons are already counted in the rows
+ * above (they are events or non-events at the estimate), so their entry states the range in
+ * people and never adds a count of its own.
+ */
+function rangeLegendItem(count: number, lower: number, upper: number): LegendItem {
+  const label = 'Could be: inside the study\u2019s range';
+  return { kind: 'uncertain', label, count, text: `${label} (from ${formatCount(lower)} to ${formatCount(upper)} in all; already counted above)` };
+}
+
+function exposedLegend(layout: IconArrayLayout, outcome: string, exposedGroup: string, comparisonGroup: string, range: { lower: number; upper: number }): LegendItem[] {
   const items: LegendItem[] = [];
   const { tally } = layout;
   if (tally.event > 0) {
@@ -164,7 +177,7 @@ function exposedLegend(layout: IconArrayLayout, outcome: string, exposedGroup: s
   if (tally.added > 0) items.push(legendItem('added', `Extra people who will have it ${exposedGroup}`, tally.added));
   if (tally.avoided > 0) items.push(legendItem('avoided', `People who will not have it ${exposedGroup}, but would ${comparisonGroup}`, tally.avoided));
   if (tally.none > 0) items.push(legendItem('none', 'Will not have it', tally.none));
-  if (tally.uncertain > 0) items.push(legendItem('uncertain', 'Could be: inside the study\u2019s range', tally.uncertain));
+  if (tally.uncertain > 0) items.push(rangeLegendItem(tally.uncertain, range.lower, range.upper));
   return items;
 }
 
@@ -275,7 +288,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
     title: `${d} ${people} ${exposedGroup}, ${time}`,
     caption: exposedCaption,
     alt: exposedCaption,
-    legend: exposedLegend(expLayout, outcome, exposedGroup, comparisonGroup),
+    legend: exposedLegend(expLayout, outcome, exposedGroup, comparisonGroup, { lower: counts.exposedLower, upper: counts.exposedUpper }),
     layout: expLayout,
   };
 
@@ -316,6 +329,7 @@ export function patientText(input: PatientTextInput): Result<PatientText> {
     exposed,
     dataTable: {
       caption: `Out of ${d} ${people}${likeYou}, ${time}`,
+      headers: { group: 'Group', willHave: `Will have ${outcome}`, willNotHave: 'Will not' },
       rows: [
         row(comparisonGroup, counts.referenceEvents, result.referenceRisk),
         row(exposedGroup, counts.exposedEvents, result.exposedRisk.estimate),

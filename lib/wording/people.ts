@@ -2,7 +2,7 @@
  * Who "people like you" are, in words: the group every patient sentence is about.
  *
  * Always state who the figures describe (Trevena et al. 2013, BMC Med Inform Decis Mak
- * 13(Suppl 2):S7; risk-communication guide). The phrase is built from what the baseline was
+ * 13(Suppl 2):S7). The phrase is built from what the baseline was
  * looked up for, never from identifiers:
  * - sex → "women" / "men" (under 18: "girls" / "boys"); unknown or "any" → "people";
  * - the table's age band → "aged 50 to 59" ("aged 80 and over" for an open top band;

@@ -129,7 +129,7 @@ describe('the binary', () => {
     const { spawnSync } = await import('node:child_process');
     const run = spawnSync(process.execPath, [outfile, 'link'], { input: JSON.stringify(good), encoding: 'utf8' });
     expect(run.status).toBe(0);
-    expect(run.stdout).toBe('/?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9\n');
+    expect(run.stdout).toBe('/#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9\n');
   });
 
   it('counts the bundle stale when missing or older than any source, fresh otherwise', async () => {

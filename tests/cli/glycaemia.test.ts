@@ -187,11 +187,27 @@ describe('hundredfold glycaemia --fhir', () => {
     expect(out.checkups[1]).toMatchObject({ date: '2023-03-01', category: 'prediabetes', decidedBy: 'both', hba1cPercent: 6.2, fpgMmolL: 5.7 });
     expect(out.persistence).toMatchObject({ category: 'prediabetes', checkups: 2 });
     expect(out.skipped).toEqual([
-      { entry: 3, id: 'prelim', reason: 'status "preliminary": only final and amended results are used' },
+      { entry: 3, id: 'prelim', reason: 'status "preliminary": only final, amended and corrected results are used' },
       { entry: 4, id: 'p', reason: 'a Patient resource, not an Observation' },
     ]);
     expect(out.resources).toBe(5);
   });
+
+  it.each([5001, 7001])('summarises %d conflicting same-day readings once per day, in output that stays small (issue 14 item 6)', async (n) => {
+    // n different HbA1c values on one day (illustrative: 5.0% + i·0.0001, all within 3–20%), plus one
+    // usable reading on another day so the command prints a report.
+    const conflicting = Array.from({ length: n }, (_, i) => obs('4548-4', Number((5 + i * 0.0001).toFixed(4)), '%', '2023-03-01'));
+    const r = await run(['--fhir', '--criteria', 'ADA'], bundle(obs('4548-4', 5.5, '%', '2022-03-01'), ...conflicting));
+    expect(r.code).toBe(0);
+    // Before the fix every skipped reading listed all n values: 5,001 gave 510 MB. Now each reason is
+    // bounded, so the output is linear: under 200 bytes a reading.
+    expect(r.stdout.length).toBeLessThan(200 * (n + 1));
+    const out = JSON.parse(r.stdout) as { skipped: { entry: number; reason: string }[]; checkups: unknown[] };
+    expect(out.checkups).toHaveLength(1);
+    expect(out.skipped).toHaveLength(n);
+    expect(out.skipped[0]?.reason).toContain(`and ${(n - 3).toLocaleString('en')} more, from 5.0% to `);
+    expect(out.skipped[1]?.reason).toBe(`one of ${n.toLocaleString('en')} different HbA1c results on 2023-03-01 (see entry 1): the import cannot choose one`);
+  }, 60_000);
 
   it('exits 2 when no Observation is usable, saying why', async () => {
     expectBadInput(

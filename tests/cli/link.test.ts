@@ -20,14 +20,14 @@ afterAll(async () => {
 });
 
 describe('hundredfold link (spawned)', () => {
-  it('prints the path and query that open the scenario, one line', async () => {
+  it('prints the path and fragment that open the scenario, one line', async () => {
     const r = await runCli(['link'], JSON.stringify(scenario));
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
-    expect(r.stdout).toBe('/?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9\n');
+    expect(r.stdout).toBe('/#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9\n');
   });
 
-  it('reads --input FILE; the link, and the same query on /handout, decode to the scenario', async () => {
+  it('reads --input FILE; the link, and the same fragment on /handout, decode to the scenario', async () => {
     const full = {
       baseline: { populationRisk: 0.1, exposurePrevalence: 0.3, years: 10 },
       effect: { measure: 'OR', estimate: 2, lower: 1.5, upper: 2.7, level: 0.9, design: 'risk-set-case-control', adjusted: false },
@@ -40,7 +40,7 @@ describe('hundredfold link (spawned)', () => {
     const r = await runCli(['link', '--input', file]);
     expect(r.code).toBe(0);
     const link = r.stdout.trimEnd();
-    expect(link.startsWith('/?')).toBe(true);
+    expect(link.startsWith('/#')).toBe(true);
     expect(link).not.toContain('\n');
     expect(decodeScenarioQuery(link)).toEqual({ ok: true, value: full });
     expect(decodeScenarioQuery(`/handout${link.slice(1)}`)).toEqual({ ok: true, value: full });

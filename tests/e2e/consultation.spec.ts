@@ -5,7 +5,7 @@
 import { execFileSync } from 'node:child_process';
 import { expect, test } from '@playwright/test';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '../../lib/evidence/demo';
-import { scenarioQuery } from '../../lib/link';
+import { scenarioFragment } from '../../lib/link';
 import type { Scenario } from '../../lib/scenario/schema';
 import { DEMO_HEART_FAILURE_10Y } from '../../lib/tables/demo';
 import { lookupStratum } from '../../lib/tables/lookup';
@@ -17,8 +17,8 @@ test('a scenario typed into the form shows the engine’s risks, difference, num
   await fillTypedScenario(page);
   await expectScreenShows(page, TYPED_SCENARIO);
   // The address now holds the whole scenario through the codec.
-  await expect(page).toHaveURL(`/${scenarioQuery(TYPED_SCENARIO)}`);
-  await expect(page.getByTestId('prepare-handout')).toHaveAttribute('href', `/handout${scenarioQuery(TYPED_SCENARIO)}`);
+  await expect(page).toHaveURL(`/${scenarioFragment(TYPED_SCENARIO)}`);
+  await expect(page.getByTestId('prepare-handout')).toHaveAttribute('href', `/handout${scenarioFragment(TYPED_SCENARIO)}`);
 });
 
 test('a baseline looked up in a demo table, with a demo evidence entry, matches the engine', async ({ page }) => {
@@ -85,7 +85,7 @@ test('a `hundredfold link` path opens exactly that screen, and a reload keeps it
     person: { age: 58, sex: 'male' },
   };
   const path = execFileSync('node', ['bin/hundredfold.mjs', 'link'], { input: JSON.stringify(scenario), encoding: 'utf8' }).trim();
-  expect(path).toBe(`/${scenarioQuery(scenario)}`);
+  expect(path).toBe(`/${scenarioFragment(scenario)}`);
 
   await page.goto(path);
   await expectScreenShows(page, scenario);
@@ -117,7 +117,7 @@ test('“Copy link” copies the address that reopens the screen', async ({ page
   await page.getByTestId('copy-link').click();
   await expect(page.getByRole('status').filter({ hasText: 'Link copied' })).toBeVisible();
   const copied = await page.evaluate(() => navigator.clipboard.readText());
-  expect(copied).toBe(`${baseURL}/${scenarioQuery(TYPED_SCENARIO)}`);
+  expect(copied).toBe(`${baseURL}/${scenarioFragment(TYPED_SCENARIO)}`);
 
   const again = await context.newPage();
   await again.goto(copied);

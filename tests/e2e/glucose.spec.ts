@@ -242,3 +242,152 @@ test('a latest result in the diabetes range shows the prominent note and never "
     .analyze();
   expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join('; ')}`)).toEqual([]);
 });
+
+/** The rows' date fields, in order. */
+const dateFields = (page: Page) => page.getByTestId('glucose-row').getByLabel('Date', { exact: true });
+
+/** What the rows' date fields hold, in order. */
+async function expectDates(page: Page, dates: readonly string[]): Promise<void> {
+  await expect.poll(() => dateFields(page).evaluateAll((inputs) => inputs.map((i) => (i as HTMLInputElement).value))).toEqual(dates);
+}
+
+test('closing the glucose history keeps its rows; opening it again brings back the rows, the match and the warning', async ({ page }) => {
+  const view = expectedView(GAPPED);
+  const history = page.getByTestId('glucose-history');
+  await paste(page, GAPPED);
+  await expectMatch(page, view);
+  await expect(mismatchWarning(page)).toHaveCount(1);
+
+  await page.getByRole('button', { name: 'Close the glucose history' }).click();
+  await expect(history).toHaveCount(0);
+  await expect(mismatchWarning(page)).toHaveCount(0);
+  await expect(page.getByTestId('glucose-kept')).toHaveText(
+    '4 checkup rows are kept while the glucose history is closed; the result does not use them until you open it again.',
+  );
+
+  await openGlucoseHistory(page);
+  await expect(page.getByTestId('glucose-row')).toHaveCount(4);
+  await expectDates(page, ['2021-03-08', '2022-03-07', '2024-06-10', '2025-06-16']);
+  await expectCheckups(page, view);
+  await expectMatch(page, view);
+  await expect(mismatchWarning(page)).toHaveText(view.match?.warning?.message ?? '');
+});
+
+test('a paste with a header row is read by column name, in any order, with units in the header', async ({ page }) => {
+  // The FITTING checkups again, columns in another order and named the way a lab export might:
+  // accents, capitals, units in the header or in a unit column of their own, an unused column.
+  const text = [
+    ['Glycémie à jeun', 'UNITÉ', 'Datum', 'HbA1c (%)', 'Bemerkung'],
+    ['104', 'mg/dL', '14.03.2022', '6.0', 'x'],
+    ['', '', '20.03.2023', '6.1', ''],
+    ['5.8', 'mmol/L', '11.03.2024', '', ''],
+    ['112', 'mg/dL', '17.03.2025', '6.3', ''],
+  ]
+    .map((cells) => `${cells.join('\t')}\r\n`)
+    .join('');
+  const pasted = parsePastedRows(text, EXPOSURE.criteria);
+  expect(pasted.issues).toEqual([]);
+  const view = glucoseHistoryView({ drafts: pasted.rows, criteria: EXPOSURE.criteria, today: localIsoDate(), exposure: EXPOSURE });
+  expect(view.status).toBe('ready');
+  await paste(page, text);
+  await expect(page.getByTestId('glucose-history').getByRole('status')).toHaveText('Added 4 rows (header line skipped; column "Bemerkung" not used).');
+  await expectDates(page, ['2022-03-14', '2023-03-20', '2024-03-11', '2025-03-17']);
+  await expectCheckups(page, view);
+  await expectMatch(page, view);
+});
+
+test('a paste whose cells are out of order says why, in words that fit the page', async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  const long = 'z'.repeat(3000);
+  await paste(page, `2024-03-11\t5.7\t5.6\n2024-03-12\t6.0\t${long}\n`);
+  const report = page.locator('.glucose__report');
+  await expect(report.locator('li').first()).toContainText('the HbA1c unit cell holds the number "5.6", not a unit (% or mmol/mol)');
+  await expect(report).not.toContainText('"5.6" is not an HbA1c unit');
+  await expect(report.locator('li').nth(1)).toContainText(`"${'z'.repeat(23)}…" is not an HbA1c unit`);
+  await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+});
+
+test('pasting over rows asks to replace or add; replacing leaves only the new person’s rows', async ({ page }) => {
+  await paste(page, FITTING);
+  await expect(page.getByTestId('glucose-row')).toHaveCount(4);
+  await paste(page, GAPPED);
+  const choice = page.getByTestId('glucose-import-choice');
+  await expect(choice).toContainText('The paste gave 4 rows, and 4 rows are already in the history.');
+  // Nothing joined the history yet.
+  await expect(page.getByTestId('glucose-row')).toHaveCount(4);
+  await expectMatch(page, expectedView(FITTING));
+  const axe = await new AxeBuilder({ page }).withTags(WCAG_TAGS).include('[data-testid="glucose-history"]').analyze();
+  expect(axe.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join('; ')}`)).toEqual([]);
+
+  // The question has the focus: Enter on its first button replaces.
+  await page.keyboard.press('Enter');
+  await expect(choice).toHaveCount(0);
+  await expectDates(page, ['2021-03-08', '2022-03-07', '2024-06-10', '2025-06-16']);
+  await expectMatch(page, expectedView(GAPPED));
+
+  // Adding instead keeps both: 4 + 3 rows.
+  await paste(page, LATEST_IN_DIABETES_RANGE);
+  await page.getByRole('button', { name: 'Add to the rows (same person)' }).click();
+  await expect(page.getByTestId('glucose-row')).toHaveCount(7);
+});
+
+test('"Clear all rows" empties the history and can be undone', async ({ page }) => {
+  await paste(page, FITTING);
+  await page.getByRole('button', { name: 'Clear all rows' }).click();
+  await expect(page.getByTestId('glucose-row')).toHaveCount(1);
+  await expectDates(page, ['']);
+  await expect(page.getByTestId('glucose-match')).toHaveCount(0);
+  await expect(page.getByTestId('glucose-cleared')).toContainText('4 rows were cleared.');
+  const axe = await new AxeBuilder({ page }).withTags(WCAG_TAGS).include('[data-testid="glucose-history"]').analyze();
+  expect(axe.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join('; ')}`)).toEqual([]);
+  await page.getByRole('button', { name: 'Undo: bring the rows back' }).click();
+  await expect(page.getByTestId('glucose-row')).toHaveCount(4);
+  await expectMatch(page, expectedView(FITTING));
+});
+
+test('after "Add a checkup" by keyboard, typing goes into the new row’s date', async ({ page }) => {
+  const history = page.getByTestId('glucose-history');
+  await history.getByLabel('Fasting glucose', { exact: true }).click();
+  await page.keyboard.type('104');
+  // Fasting glucose → its unit → Remove → Add a checkup.
+  await page.keyboard.press('Tab');
+  await page.keyboard.press('Tab');
+  await page.keyboard.press('Tab');
+  await page.keyboard.press('Enter');
+  await expect(page.getByTestId('glucose-row')).toHaveCount(2);
+  await page.keyboard.type('2024-03-11');
+  await expectDates(page, ['', '2024-03-11']);
+});
+
+test('at 390 px the section fits the page; the checkup table scrolls in its own region', async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  await paste(page, FITTING);
+  await expectCheckups(page, expectedView(FITTING));
+  await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  const region = page.getByTestId('glucose-history').getByRole('region', { name: `Each checkup under ${CRITERIA[EXPOSURE.criteria].name}` });
+  const box = await region.boundingBox();
+  expect(box?.x ?? -1).toBeGreaterThanOrEqual(0);
+  expect((box?.x ?? 0) + (box?.width ?? 1000)).toBeLessThanOrEqual(390);
+  await page.getByTestId('glucose-history').screenshot({ path: 'test-results/screens/glucose-390.png' });
+  const report = await new AxeBuilder({ page }).withTags(WCAG_TAGS).include('[data-testid="glucose-history"]').analyze();
+  expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join('; ')}`)).toEqual([]);
+});
+
+test('on a desktop the chart is wide enough for every date, and its text alternative is read once', async ({ page }) => {
+  await page.setViewportSize({ width: 1280, height: 900 });
+  const view = expectedView(FITTING);
+  await paste(page, FITTING);
+  const series = view.timeline?.series.find((s) => s.test === 'hba1c');
+  if (!series) throw new Error('the fitting history has HbA1c results');
+  const chart = page.getByTestId('glucose-chart-hba1c');
+  // (recharts' own svg inside the picture also has the img role, with no name of its own.)
+  await expect(chart.getByRole('img', { name: series.summary, exact: true })).toHaveCount(1);
+  // The figure is named by its short title, not by the sentence again.
+  await expect(page.getByRole('figure', { name: `${series.title} over time` })).toBeVisible();
+  // The sentence is on the page once, and only the picture carries it for a screen reader.
+  await expect(page.getByText(series.summary, { exact: true })).toHaveCount(1);
+  await expect(page.getByText(series.summary, { exact: true })).toHaveAttribute('aria-hidden', 'true');
+  // Every checkup's date is written on the axis.
+  for (const point of series.points) await expect(chart.locator('svg text', { hasText: point.date })).toHaveCount(1);
+  await page.getByTestId('glucose-history').screenshot({ path: 'test-results/screens/glucose-desktop.png' });
+});

@@ -12,7 +12,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { computeScenario } from '@/lib/engine/compute';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
-import { scenarioQuery } from '@/lib/link';
+import { scenarioFragment } from '@/lib/link';
 import type { Scenario } from '@/lib/scenario/schema';
 import { baselineOf, DEMO_HEART_FAILURE_10Y } from '@/lib/tables';
 import { CAUTION_TEXT } from '@/lib/wording';
@@ -50,7 +50,7 @@ function squash(text: string): string {
 }
 
 async function openHandout(page: Page, scenario: Scenario) {
-  await page.goto(`/handout${scenarioQuery(scenario)}`);
+  await page.goto(`/handout${scenarioFragment(scenario)}`);
   await expect(page.getByTestId('handout-sheet')).toBeVisible();
 }
 

@@ -4,42 +4,36 @@
  * by a named criteria set, the run ending at the latest result, a small timeline, and — when the
  * evidence defines an exposure — whether this history fits it.
  *
- * Rows come from typing, from a paste of spreadsheet rows, or from a FHIR file. Everything shown
- * is computed by lib/glycaemia/view.ts (and lib/fhir for the import); this component only keeps
- * what was typed and renders. Errors are linked to their fields with aria-describedby; the result
- * summary is announced politely. Keyboard only: every control is a native input, select or button.
+ * Rows come from typing, from a paste of spreadsheet rows, or from a FHIR file. The rows live in
+ * a holder owned by the screen (./useGlucoseHistory.ts), so closing the section keeps them, and
+ * everything shown is the holder's view model (lib/glycaemia/view.ts; lib/fhir for the import):
+ * this component only renders and edits. Errors are linked to their fields with
+ * aria-describedby; the result summary is announced politely. Keyboard only: every control is a
+ * native input, select or button; after "Add a checkup" the focus is on the new row's date.
+ *
+ * Rows from a paste or a file, when filled rows are already there, wait for the clinician to
+ * choose: replace them or add to them (a second person's rows must not join the first person's
+ * history without a word). Either way the 500-checkup limit is checked before anything is added.
+ * "Clear all rows" can be undone until the rows change again.
  *
  * Props:
- * - exposure: the evidence entry's exposure definition, if it has one;
- * - onMatchChange: called with the match (or null) whenever it changes, so the result can carry
- *   the mismatch warning (match.warning) and the diabetes-range note.
- * - today: YYYY-MM-DD, for tests; default the local date.
+ * - history: the holder (useGlucoseHistory), from the screen.
  */
-import { useEffect, useId, useMemo, useRef, useState, type ChangeEvent } from 'react';
+import { useEffect, useId, useRef, useState, type ChangeEvent, type RefObject } from 'react';
 import { CRITERIA } from '@/lib/glycaemia/criteria';
-import { localIsoDate } from '@/lib/glycaemia/dates';
-import { checkupToDraft, emptyDraft, isBlankDraft, type CheckupDraft, type DraftField } from '@/lib/glycaemia/draft';
-import { CRITERIA_SETS, type CriteriaSet, type ExposureDefinition } from '@/lib/glycaemia/exposure';
+import { checkupToDraft, type CheckupDraft, type DraftField } from '@/lib/glycaemia/draft';
+import { CRITERIA_SETS, type CriteriaSet } from '@/lib/glycaemia/exposure';
 import { GLUCOSE_UNITS } from '@/lib/glycaemia/glucose';
 import { HBA1C_UNITS } from '@/lib/glycaemia/hba1c';
-import type { HistoryMatch } from '@/lib/glycaemia/match';
-import { parsePastedRows, pasteSummary, PASTE_COLUMNS } from '@/lib/glycaemia/paste';
-import { glucoseHistoryView } from '@/lib/glycaemia/view';
+import { importLimitIssue, MAX_PASTE_PROBLEMS, parsePastedRows, pasteSummary, PASTE_COLUMNS, readableLines } from '@/lib/glycaemia/paste';
 import { importFhirGlucoseJson } from '@/lib/fhir/importGlucose';
 import { fhirImportSummary, skipLine } from '@/lib/fhir/summary';
 import { GlucoseTimelineChart } from './GlucoseTimelineChart';
+import type { GlucoseHistoryHolder, ImportMode } from './useGlucoseHistory';
 import './glucose.css';
 
 export interface GlucoseHistoryProps {
-  readonly exposure?: ExposureDefinition | undefined;
-  readonly onMatchChange?: ((match: HistoryMatch | null) => void) | undefined;
-  /** Today as YYYY-MM-DD; default the local date. */
-  readonly today?: string | undefined;
-}
-
-interface Row {
-  readonly key: string;
-  readonly draft: CheckupDraft;
+  readonly history: GlucoseHistoryHolder;
 }
 
 interface Report {
@@ -48,65 +42,105 @@ interface Report {
   readonly error?: boolean;
 }
 
-export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistoryProps) {
+/** Rows read from a paste or a file, waiting for "replace" or "add" when filled rows are there. */
+interface Pending {
+  readonly source: 'paste' | 'fhir';
+  /** "The paste", "The file export.json": names the source in the limit message. */
+  readonly sourceName: string;
+  readonly drafts: readonly CheckupDraft[];
+  readonly report: Report;
+}
+
+export function GlucoseHistory({ history }: GlucoseHistoryProps) {
   const id = useId();
-  const keys = useRef(0);
-  const newKey = () => {
-    keys.current += 1;
-    return `${id}-row-${keys.current}`;
-  };
-  const [criteria, setCriteria] = useState<CriteriaSet>(exposure?.criteria ?? 'ADA');
-  const [rows, setRows] = useState<readonly Row[]>(() => [{ key: `${id}-row-0`, draft: emptyDraft(exposure?.criteria ?? 'ADA') }]);
+  const { view, rows, criteria } = history;
   const [pasteText, setPasteText] = useState('');
   const [pasteReport, setPasteReport] = useState<Report | null>(null);
   const [fhirReport, setFhirReport] = useState<Report | null>(null);
-  const day = today ?? localIsoDate();
+  const [pending, setPending] = useState<Pending | null>(null);
+  const focusNext = useRef<string | null>(null);
+  const choiceRef = useRef<HTMLDivElement>(null);
+  const undoRef = useRef<HTMLButtonElement>(null);
 
-  const view = useMemo(
-    () => glucoseHistoryView({ drafts: rows.map((r) => r.draft), criteria, today: day, exposure }),
-    [rows, criteria, day, exposure],
-  );
-
-  // Tell the screen when the match changes (compared by content, so a re-render with an equal
-  // exposure object does not call back again).
-  const lastMatch = useRef<string | undefined>(undefined);
-  const matchKey = JSON.stringify(view.match);
+  // After "Add a checkup" the new row's first field takes the focus (once it is on the page).
   useEffect(() => {
-    if (lastMatch.current === matchKey) return;
-    lastMatch.current = matchKey;
-    onMatchChange?.(view.match);
-  }, [matchKey, view.match, onMatchChange]);
+    const key = focusNext.current;
+    if (key === null) return;
+    const input = document.getElementById(`${key}-date`);
+    if (input) {
+      focusNext.current = null;
+      input.focus();
+    }
+  }, [rows]);
+  // The replace-or-add question takes the focus when it appears; the undo when rows are cleared.
+  useEffect(() => {
+    if (pending) choiceRef.current?.querySelector('button')?.focus();
+  }, [pending]);
+  const clearedRows = history.clearedRows;
+  useEffect(() => {
+    if (clearedRows !== null) undoRef.current?.focus();
+  }, [clearedRows]);
 
-  const setField = (key: string, field: DraftField, value: string) => {
-    setRows((current) => current.map((r) => (r.key === key ? { ...r, draft: { ...r.draft, [field]: value } as CheckupDraft } : r)));
+  if (!view) return <p className="charts__loading">Loading the glucose history…</p>;
+
+  const addRow = () => {
+    focusNext.current = history.addRow();
   };
-  const addRow = () => setRows((current) => [...current, { key: newKey(), draft: emptyDraft(criteria) }]);
-  const removeRow = (key: string) =>
-    setRows((current) => {
-      const left = current.filter((r) => r.key !== key);
-      return left.length > 0 ? left : [{ key: newKey(), draft: emptyDraft(criteria) }];
-    });
-  const appendDrafts = (drafts: readonly CheckupDraft[]) =>
-    setRows((current) => [...current.filter((r) => !isBlankDraft(r.draft)), ...drafts.map((draft) => ({ key: newKey(), draft }))]);
+
+  /** Puts read rows in, after checking the limit; says so in the source's report. */
+  const apply = (p: Pending, mode: ImportMode) => {
+    const setReport = p.source === 'paste' ? setPasteReport : setFhirReport;
+    const limit = importLimitIssue(mode === 'add' ? history.filledRows : 0, p.drafts.length, p.sourceName);
+    setPending(null);
+    if (limit) {
+      setReport({ summary: limit.message, lines: [], error: true });
+      return;
+    }
+    history.putDrafts(p.drafts, mode);
+    setReport(mode === 'replace' ? { ...p.report, summary: `${p.report.summary} They replaced the rows that were there.` } : p.report);
+    if (p.source === 'paste' && p.report.lines.length === 0) setPasteText('');
+  };
+  /** Rows read: straight in when no filled row is there, else ask. */
+  const offer = (p: Pending) => {
+    if (p.drafts.length === 0 || history.filledRows === 0) apply(p, 'add');
+    else setPending(p);
+  };
 
   const addPasted = () => {
     const result = parsePastedRows(pasteText, criteria);
-    appendDrafts(result.rows);
-    setPasteReport({ summary: pasteSummary(result), lines: result.issues.map((i) => i.message) });
-    if (result.issues.length === 0) setPasteText('');
+    const report: Report = { summary: pasteSummary(result), lines: readableLines(result.issues.map((i) => i.message), MAX_PASTE_PROBLEMS + 1) };
+    if (result.rows.length === 0) {
+      setPasteReport({ ...report, error: result.issues.length > 0 });
+      return;
+    }
+    offer({ source: 'paste', sourceName: 'The paste', drafts: result.rows, report });
   };
 
   const loadFhir = async (event: ChangeEvent<HTMLInputElement>) => {
-    const file = event.target.files?.[0];
+    const input = event.target;
+    const file = input.files?.[0];
     if (!file) return;
     const text = await file.text();
-    const result = importFhirGlucoseJson(text, { today: day });
+    // The same file chosen again must be read again.
+    input.value = '';
+    const result = importFhirGlucoseJson(text, { today: history.today, criteria });
     if (!result.ok) {
-      setFhirReport({ summary: `${file.name} could not be read:`, lines: result.issues.map((i) => i.message), error: true });
+      setFhirReport({ summary: `${file.name} could not be read:`, lines: readableLines(result.issues.map((i) => i.message)), error: true });
       return;
     }
-    appendDrafts(result.value.checkups.map((c) => checkupToDraft(c, criteria)));
-    setFhirReport({ summary: `${file.name}: ${fhirImportSummary(result.value)}`, lines: result.value.skipped.map(skipLine) });
+    const checkups = result.value.checkups;
+    // Counted before a single row is made: a file far over the limit adds nothing.
+    const limit = importLimitIssue(0, checkups.length, `The file ${file.name}`);
+    if (limit) {
+      setFhirReport({ summary: limit.message, lines: [], error: true });
+      return;
+    }
+    offer({
+      source: 'fhir',
+      sourceName: `The file ${file.name}`,
+      drafts: checkups.map((c) => checkupToDraft(c, criteria)),
+      report: { summary: `${file.name}: ${fhirImportSummary(result.value)}`, lines: readableLines(result.value.skipped.map(skipLine)) },
+    });
   };
 
   const fieldId = (key: string, field: DraftField) => `${key}-${field}`;
@@ -131,7 +165,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
           id={`${id}-criteria`}
           className="field__input"
           value={criteria}
-          onChange={(e) => setCriteria(e.target.value as CriteriaSet)}
+          onChange={(e) => history.setCriteria(e.target.value as CriteriaSet)}
           aria-describedby={`${id}-criteria-source`}
         >
           {CRITERIA_SETS.map((c) => (
@@ -165,7 +199,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
                 autoComplete="off"
                 inputMode={extra.inputMode}
                 value={row.draft[f]}
-                onChange={(e) => setField(row.key, f, e.target.value)}
+                onChange={(e) => history.setField(row.key, f, e.target.value)}
                 aria-invalid={errors[f] ? true : undefined}
                 aria-describedby={describedBy(extra.hint, errors[f] && errorId(row.key, f))}
               />
@@ -185,7 +219,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
                 id={fieldId(row.key, f)}
                 className="field__input"
                 value={row.draft[f]}
-                onChange={(e) => setField(row.key, f, e.target.value)}
+                onChange={(e) => history.setField(row.key, f, e.target.value)}
                 aria-describedby={errors[f] ? errorId(row.key, f) : undefined}
               >
                 {units.map((u) => (
@@ -215,7 +249,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
                 {unit('hba1cUnit', 'HbA1c unit', HBA1C_UNITS)}
                 {field('fpgValue', 'Fasting glucose', { inputMode: 'decimal' })}
                 {unit('fpgUnit', 'Glucose unit', GLUCOSE_UNITS)}
-                <button type="button" className="button button--quiet glucose__remove" onClick={() => removeRow(row.key)}>
+                <button type="button" className="button button--quiet glucose__remove" onClick={() => history.removeRow(row.key)}>
                   Remove<span className="visually-hidden"> {label}</span>
                 </button>
               </div>
@@ -228,9 +262,26 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
           );
         })}
       </div>
-      <button type="button" className="button button--secondary" onClick={addRow}>
-        Add a checkup
-      </button>
+      <div className="glucose__row-actions">
+        <button type="button" className="button button--secondary" onClick={addRow}>
+          Add a checkup
+        </button>
+        {history.filledRows > 0 ? (
+          <button type="button" className="button button--quiet" onClick={history.clearAll}>
+            Clear all rows
+          </button>
+        ) : null}
+      </div>
+      {clearedRows !== null ? (
+        <div className="glucose__undo" role="status" data-testid="glucose-cleared">
+          <p>
+            {clearedRows === 1 ? '1 row was cleared.' : `${clearedRows} rows were cleared.`}{' '}
+            <button type="button" className="button button--quiet" ref={undoRef} onClick={history.undoClear}>
+              Undo: bring the rows back
+            </button>
+          </p>
+        </div>
+      ) : null}
 
       <div className="glucose__imports">
         <div className="field">
@@ -238,7 +289,8 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
             Paste rows from a spreadsheet
           </label>
           <p className="field__hint" id={`${id}-paste-hint`}>
-            Columns: {PASTE_COLUMNS.join(', ')}. Tabs, semicolons or commas between cells; a header line is skipped.
+            Tabs, semicolons or commas between cells. A header line is read by its column names, in any order, with units in it or
+            in their own column (“Date”, “HbA1c (%)”, “Fasting glucose”, “Unit”); without a header the columns are: {PASTE_COLUMNS.join(', ')}.
           </p>
           <textarea
             id={`${id}-paste`}
@@ -251,7 +303,8 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
           <button type="button" className="button button--secondary glucose__paste-button" onClick={addPasted} disabled={pasteText.trim() === ''}>
             Add pasted rows
           </button>
-          {pasteReport ? <ReadReport id={`${id}-paste-report`} report={pasteReport} /> : null}
+          {pending?.source === 'paste' ? <ImportChoice pending={pending} filledRows={history.filledRows} choiceRef={choiceRef} onChoose={(mode) => (mode ? apply(pending, mode) : setPending(null))} /> : null}
+          {pasteReport ? <ReadReport id={`${id}-paste-report`} report={pasteReport} error={pasteReport.error} /> : null}
         </div>
 
         <div className={`field${fhirReport?.error ? ' field--invalid' : ''}`}>
@@ -269,6 +322,7 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
             aria-describedby={describedBy(`${id}-fhir-hint`, fhirReport !== null && `${id}-fhir-report`)}
             aria-invalid={fhirReport?.error ? true : undefined}
           />
+          {pending?.source === 'fhir' ? <ImportChoice pending={pending} filledRows={history.filledRows} choiceRef={choiceRef} onChoose={(mode) => (mode ? apply(pending, mode) : setPending(null))} /> : null}
           {fhirReport ? <ReadReport id={`${id}-fhir-report`} report={fhirReport} error={fhirReport.error} /> : null}
         </div>
       </div>
@@ -365,6 +419,41 @@ export function GlucoseHistory({ exposure, onMatchChange, today }: GlucoseHistor
 }
 
 export default GlucoseHistory;
+
+/** The question when read rows meet filled rows: replace them, add to them, or leave it. */
+function ImportChoice({
+  pending,
+  filledRows,
+  choiceRef,
+  onChoose,
+}: {
+  pending: Pending;
+  filledRows: number;
+  choiceRef: RefObject<HTMLDivElement | null>;
+  onChoose: (mode: ImportMode | null) => void;
+}) {
+  const n = pending.drafts.length;
+  const read = `${n} ${n === 1 ? 'row' : 'rows'}`;
+  const there = filledRows === 1 ? '1 row is' : `${filledRows} rows are`;
+  return (
+    <div className="glucose__choice" role="group" aria-labelledby={`${pending.source}-choice-question`} ref={choiceRef} data-testid="glucose-import-choice">
+      <p id={`${pending.source}-choice-question`}>
+        {pending.source === 'paste' ? 'The paste' : 'The file'} gave {read}, and {there} already in the history. Are these the same person’s results?
+      </p>
+      <div className="glucose__choice-buttons">
+        <button type="button" className="button button--secondary" onClick={() => onChoose('replace')}>
+          Replace the rows (another person)
+        </button>
+        <button type="button" className="button button--secondary" onClick={() => onChoose('add')}>
+          Add to the rows (same person)
+        </button>
+        <button type="button" className="button button--quiet" onClick={() => onChoose(null)}>
+          Cancel
+        </button>
+      </div>
+    </div>
+  );
+}
 
 /** What reading pasted rows or a FHIR file found: a summary line and the lines it could not use. */
 function ReadReport({ id, report, error = false }: { id: string; report: { summary: string; lines: readonly string[] }; error?: boolean | undefined }) {

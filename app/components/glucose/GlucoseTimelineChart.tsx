@@ -3,8 +3,11 @@
  * One small timeline per test: the values over dates in the criteria body's unit, with the body's
  * thresholds as reference lines. It draws only what lib/glycaemia/timeline.ts computed. Each chart
  * is labelled by its visible sentence (role="img"), and its data sit in a table beside it
- * (WCAG 2.2 SC 1.1.1). Threshold lines differ by dash pattern and label as well as colour
- * (SC 1.4.1).
+ * (WCAG 2.2 SC 1.1.1). The figure is named by its short title, and the visible sentence is
+ * hidden from assistive technology because the chart's name already is that sentence: a screen
+ * reader hears it once, not three times (figure name, caption, picture). Threshold lines differ
+ * by dash pattern and label as well as colour (SC 1.4.1). The charts sit one above the other, the
+ * full width of the section, so the dates on the axis have room.
  */
 import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, XAxis, YAxis } from 'recharts';
 import type { Timeline, TimelineSeries } from '@/lib/glycaemia/timeline';
@@ -19,11 +22,17 @@ const LINE_STYLES = [
 
 function SeriesChart({ series, timeline, idBase }: { series: TimelineSeries; timeline: Timeline; idBase: string }) {
   const captionId = `${idBase}-${series.test}-caption`;
+  const titleId = `${idBase}-${series.test}-title`;
   const tickStyle = { fill: INK, fontSize: 11 };
   const styleFor = (index: number) => LINE_STYLES[series.thresholds.length === 1 ? 1 : index] ?? LINE_STYLES[1];
   return (
-    <figure className="chart glucose-chart" data-testid={`glucose-chart-${series.test}`}>
-      <figcaption id={captionId}>{series.summary}</figcaption>
+    <figure className="chart glucose-chart" aria-labelledby={titleId} data-testid={`glucose-chart-${series.test}`}>
+      <figcaption id={titleId} className="glucose-chart__title">
+        {series.title} over time
+      </figcaption>
+      <p id={captionId} className="glucose-chart__summary" aria-hidden="true">
+        {series.summary}
+      </p>
       <div className="chart__frame glucose-chart__frame" role="img" aria-labelledby={captionId}>
         <ResponsiveContainer width="100%" height={200} initialDimension={{ width: 320, height: 200 }}>
           <LineChart data={[...series.points]} margin={{ top: 10, right: 16, bottom: 4, left: 0 }} accessibilityLayer={false}>

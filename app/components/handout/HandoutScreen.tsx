@@ -36,7 +36,7 @@ import { HandoutSheet } from './HandoutSheet';
 import { TemplatePanel } from './TemplatePanel';
 
 export interface HandoutScreenProps {
-  /** The URL query, "?br=0.08&…" (or empty). */
+  /** The scenario link's fragment, "#br=0.08&…" (or empty); an old query "?br=…" is read too. */
   readonly query: string;
 }
 

@@ -19,13 +19,16 @@ import { CRITERIA_SETS, type CriteriaSet } from '../../glycaemia/exposure';
 import { parseGlucoseHistory } from '../../glycaemia/parse';
 import { glycaemiaReport } from '../../glycaemia/report';
 import type { Issue } from '../../result';
-import { complain, EXIT_OK, readAll, type CommandIo } from '../io';
+import { complain, EXIT_OK, readStreamText, type CommandIo } from '../io';
+import { parseJsonStrict } from '../json';
+import { withoutBom } from './scenarioInput';
 
 export const GLYCAEMIA_USAGE = `Usage: hundredfold glycaemia [--input FILE] [--fhir] [--criteria ADA|WHO|NICE]
 
 Reads {"criteria": "ADA"|"WHO"|"NICE", "checkups": [{"date": "YYYY-MM-DD",
 "hba1c"?: {"value", "unit": "%"|"mmol/mol"}, "fpg"?: {"value", "unit": "mg/dL"|"mmol/L"}}]}
 on stdin (or FILE) and prints each checkup's category and the run ending at the latest one.
+  --input FILE read FILE instead of stdin ("-" means stdin); --input=FILE works too
   --fhir       the input is a FHIR R4 Bundle or Observation; needs --criteria
   --criteria   the criteria set (required with --fhir; otherwise fills a missing "criteria")
 Exit codes: 0 done, 2 bad input or usage.`;
@@ -48,13 +51,16 @@ function parseArgs(args: readonly string[]): Args | string {
   let criteria: CriteriaSet | null = null;
   let help = false;
   for (let i = 0; i < args.length; i += 1) {
-    const arg = args[i];
+    const given = args[i] ?? '';
+    // "--input=FILE" and "--criteria=ADA" as well as "--input FILE".
+    const eq = given.startsWith('--') ? given.indexOf('=') : -1;
+    const arg = eq < 0 ? given : given.slice(0, eq);
     if (arg === '--help' || arg === '-h') help = true;
-    else if (arg === '--fhir') fhir = true;
+    else if (arg === '--fhir' && eq < 0) fhir = true;
     else if (arg === '--input' || arg === '--criteria') {
-      const value = args[i + 1];
-      if (value === undefined || value.startsWith('--')) return `${arg} needs a value`;
-      i += 1;
+      const value = eq < 0 ? args[i + 1] : given.slice(eq + 1);
+      if (value === undefined || value === '' || (eq < 0 && value.startsWith('--'))) return `${arg} needs a value`;
+      if (eq < 0) i += 1;
       if (arg === '--input') {
         if (input !== null) return '--input given twice';
         input = value;
@@ -65,7 +71,7 @@ function parseArgs(args: readonly string[]): Args | string {
         if (criteria !== null) return '--criteria given twice';
         criteria = found;
       }
-    } else return `unknown option "${arg}"; options are --input FILE, --fhir, --criteria ADA|WHO|NICE`;
+    } else return `unknown option "${given}"; options are --input FILE, --fhir, --criteria ADA|WHO|NICE`;
   }
   return { input, fhir, criteria, help };
 }
@@ -105,9 +111,13 @@ function fhirNamer(sources: readonly CheckupSource[]): Namer {
 }
 
 async function readInput(io: CommandIo, file: string | null): Promise<{ text: string } | { error: string }> {
-  if (file === null) return { text: await readAll(io.stdin) };
+  if (file === null || file === '-') {
+    const read = await readStreamText(io.stdin);
+    return read.ok ? { text: read.text } : { error: read.problem };
+  }
   try {
-    return { text: await io.readFile(file) };
+    // A byte-order mark, as some editors write, is dropped here as by the other commands.
+    return { text: withoutBom(await io.readFile(file)) };
   } catch (error) {
     const detail = error instanceof Error ? error.message : String(error);
     return { error: `cannot read --input ${file}: ${detail}` };
@@ -133,8 +143,18 @@ export async function glycaemia(io: CommandIo, options: GlycaemiaOptions = {}): 
   if ('error' in read) return complain(io, `glycaemia: ${read.error}`);
   const today = options.today ?? localIsoDate();
 
+  // One strict reading for both forms: a repeated key or an oversized object is refused here.
+  const json = parseJsonStrict(read.text);
+  // Text that is not JSON at all is the FHIR importer's to describe, with --fhir.
+  const notJson = !json.ok && (json.issues[0]?.message.startsWith('The input is not valid JSON') ?? false);
+  if (!json.ok && !(args.fhir && notJson)) {
+    const [issue] = json.issues;
+    const where = issue !== undefined && issue.path.length > 0 ? `${issue.path.join('.')}: ` : '';
+    return complain(io, `glycaemia: ${where}${issue?.message.replace(/^The input is not valid JSON/, 'the input is not valid JSON') ?? 'the input is not valid JSON'}`);
+  }
+
   if (args.fhir && args.criteria !== null) {
-    const imported = importFhirGlucoseJson(read.text, { today });
+    const imported = importFhirGlucoseJson(read.text, { today, criteria: args.criteria });
     if (!imported.ok) return complain(io, `glycaemia: ${issuesLine(imported.issues, (i) => `checkups[${i}]`)}`);
     const { checkups, sources, skipped, resources } = imported.value;
     if (checkups.length === 0) {
@@ -147,13 +167,8 @@ export async function glycaemia(io: CommandIo, options: GlycaemiaOptions = {}): 
     return print(io, { ...glycaemiaReport(history.value), skipped, resources });
   }
 
-  let raw: unknown;
-  try {
-    raw = JSON.parse(read.text);
-  } catch (error) {
-    const detail = error instanceof SyntaxError ? error.message : 'unreadable';
-    return complain(io, `glycaemia: the input is not valid JSON (${detail})`);
-  }
+  if (!json.ok) return complain(io, 'glycaemia: the input is not valid JSON');
+  let raw = json.value;
   if (args.criteria !== null && typeof raw === 'object' && raw !== null && !Array.isArray(raw)) {
     const given = (raw as { criteria?: unknown }).criteria;
     if (given === undefined) raw = { ...raw, criteria: args.criteria };

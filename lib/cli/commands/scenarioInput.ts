@@ -4,8 +4,10 @@
  * reader (backpressure) and a reader that has gone away (EPIPE).
  */
 import type { Writable } from 'node:stream';
-import { formatPath, type Issue } from '../../result';
-import { readAll, type CommandIo } from '../io';
+import { formatPath, type Issue, type Result } from '../../result';
+import { parseScenario, type Scenario } from '../../scenario/parse';
+import { readStreamText, type CommandIo } from '../io';
+import { parseJsonStrict } from '../json';
 
 /** An option that stands alone (`--ndjson`) or takes a value (`--input FILE` or `--input=FILE`). */
 export type OptionKind = 'flag' | 'value';
@@ -103,7 +105,9 @@ export type InputText = { readonly ok: true; readonly text: string } | { readonl
 /** The whole input as text: the file named by --input ("-" for stdin), else stdin. */
 export async function readInputText(io: CommandIo, file: string | undefined): Promise<InputText> {
   if (file === undefined || file === '-') {
-    const text = await readAll(io.stdin);
+    const read = await readStreamText(io.stdin);
+    if (!read.ok) return { ok: false, problem: `input: ${read.problem}` };
+    const text = read.text;
     if (text.trim() === '') {
       return { ok: false, problem: 'input: no scenario was given; pipe one in as JSON or name a file with --input FILE' };
     }
@@ -116,6 +120,15 @@ export async function readInputText(io: CommandIo, file: string | undefined): Pr
   } catch (error) {
     return { ok: false, problem: fileProblem(file, error) };
   }
+}
+
+/**
+ * One scenario from JSON text, as every command reads it: strict JSON (./../json.ts: no repeated
+ * key, no oversized object), then the scenario schema.
+ */
+export function parseScenarioText(text: string): Result<Scenario> {
+  const json = parseJsonStrict(text);
+  return json.ok ? parseScenario(json.value) : json;
 }
 
 /**

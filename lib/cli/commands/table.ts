@@ -6,6 +6,7 @@
  * per problem on stderr when it is not (or on a usage error).
  */
 import { complain, EXIT_BAD_INPUT, EXIT_OK, type CommandIo } from '../io';
+import { escapeForTerminal } from '../terminal';
 import { parseTableCsv } from '../../tables/csv';
 import { tableForm, type PopulationTable } from '../../tables/schema';
 
@@ -23,8 +24,13 @@ function plural(n: number, one: string, many: string): string {
 export function summariseTable(table: PopulationTable): string {
   const sexes = [...new Set(table.strata.map((s) => s.sex))];
   const who = sexes.includes('any') ? 'both sexes together' : sexes.sort().join(' and ');
-  const from = Math.min(...table.strata.map((s) => s.ageFrom));
-  const to = Math.max(...table.strata.map((s) => s.ageTo));
+  // Loops, not Math.min(...list): a long list spread into one call can overflow the stack.
+  let from = Infinity;
+  let to = -Infinity;
+  for (const s of table.strata) {
+    from = Math.min(from, s.ageFrom);
+    to = Math.max(to, s.ageTo);
+  }
   const ages = to >= 120 ? `ages ${from} and over` : `ages ${from} to ${to}`;
   const values = tableForm(table) === 'risk' ? `risks over ${table.horizonYears} years` : 'rates per person-years';
   const extras = Object.keys(table.strata[0]?.extra ?? {});
@@ -40,7 +46,11 @@ export async function table(io: CommandIo): Promise<number> {
     io.stdout.write(`${TABLE_USAGE}\n`);
     return EXIT_OK;
   }
-  if (sub !== 'check') return complain(io, `unknown table command "${sub}"; the table command is: check FILE`);
+  if (sub !== 'check') return complain(io, `unknown table command ${JSON.stringify(sub)}; the table command is: check FILE`);
+  if (rest.includes('--help') || rest.includes('-h')) {
+    io.stdout.write(`${TABLE_USAGE}\n`);
+    return EXIT_OK;
+  }
   if (rest.length === 0) return complain(io, 'no file given; run "hundredfold table check FILE"');
   if (rest.length > 1) return complain(io, `one file at a time; got ${rest.length}: ${rest.join(' ')}`);
   const file = rest[0]!;
@@ -50,17 +60,20 @@ export async function table(io: CommandIo): Promise<number> {
   try {
     text = await io.readFile(file);
   } catch (error) {
-    const reason = error instanceof Error && 'code' in error ? String((error as NodeJS.ErrnoException).code) : error instanceof Error ? error.message : String(error);
-    return complain(io, `cannot read "${file}" (${reason})`);
+    // A system error by its code (ENOENT, EACCES…); a file that is too large or not UTF-8 by its sentence.
+    const code = error instanceof Error && 'code' in error ? String((error as NodeJS.ErrnoException).code) : undefined;
+    const reason = code !== undefined && code !== 'EILSEQ' && code !== 'EFBIG' ? code : error instanceof Error ? error.message : String(error);
+    return complain(io, `cannot read ${JSON.stringify(file)} (${reason})`);
   }
 
   const result = parseTableCsv(text);
   if (!result.ok) {
-    for (const issue of result.issues) io.stderr.write(`${file}: ${issue.message.replace(/\s+/g, ' ').trim()}\n`);
+    // Messages quote cells from the file: control characters in them are shown escaped.
+    for (const issue of result.issues) io.stderr.write(`${escapeForTerminal(`${file}: ${issue.message.replace(/\s+/g, ' ').trim()}`)}\n`);
     const real = result.issues.filter((i) => i.code !== 'too-many-problems').length;
-    io.stderr.write(`hundredfold: ${file} is not a valid table (${plural(real, 'problem', 'problems')} listed); nothing was read\n`);
+    io.stderr.write(`hundredfold: ${escapeForTerminal(file)} is not a valid table (${plural(real, 'problem', 'problems')} listed); nothing was read\n`);
     return EXIT_BAD_INPUT;
   }
-  io.stdout.write(`${summariseTable(result.value)}\n`);
+  io.stdout.write(`${escapeForTerminal(summariseTable(result.value))}\n`);
   return EXIT_OK;
 }

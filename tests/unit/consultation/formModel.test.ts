@@ -174,6 +174,9 @@ describe('makeConsultationSchema (the resolver’s schema)', () => {
   it('outputs the same outcome as formToOutcome for valid values', () => {
     const parsed = schema.safeParse(typed);
     const outcome = formToOutcome(typed, DEMO_TABLES);
+    // Both must succeed: before, two failures compared false with false and passed (issue 11).
+    expect(parsed.success).toBe(true);
+    expect(outcome.ok).toBe(true);
     expect(parsed.success && outcome.ok && parsed.data.scenario).toEqual(outcome.ok && outcome.value.scenario);
   });
 

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { tablePreview } from '@/app/consultation/tablePreview';
 import { DEMO_CORONARY_RATE, DEMO_HEART_FAILURE_10Y, DEMO_STROKE_5Y } from '@/lib/tables/demo';
-import { formatPercent } from '@/lib/wording/format';
 
-// Percentages are written by lib/wording's formatPercent, whose own tests fix their format.
+// Expected text is literal (issue 11: not built with the code's own formatter). formatPercent's
+// rule (lib/wording/format.ts): below 1% two significant digits, else one decimal.
 
 describe('tablePreview: what the chosen table gives for the person so far', () => {
   it('names the group and its risk for a risk table', () => {
@@ -11,7 +11,7 @@ describe('tablePreview: what the chosen table gives for the person so far', () =
     expect(tablePreview(DEMO_HEART_FAILURE_10Y, { age: '45', sex: 'female' })).toEqual({
       ok: true,
       group: 'Women aged 40 to 49',
-      figure: `a risk of ${formatPercent(0.006)} over 10 years`,
+      figure: 'a risk of 0.60% over 10 years', // hand-computed: 0.006 = 0.60%
     });
   });
 
@@ -29,7 +29,7 @@ describe('tablePreview: what the chosen table gives for the person so far', () =
     expect(tablePreview(DEMO_STROKE_5Y, { age: '', sex: 'male' })).toEqual({ ok: false, message: 'Enter the person’s age to look up the risk.' });
     // The stroke table is for both sexes together: the sex is not used.
     // lib/tables/demo.ts (invented): 80 and over, 0.12 over 5 years.
-    expect(tablePreview(DEMO_STROKE_5Y, { age: '85', sex: 'male' })).toEqual({ ok: true, group: 'People aged 80 and over', figure: `a risk of ${formatPercent(0.12)} over 5 years` });
+    expect(tablePreview(DEMO_STROKE_5Y, { age: '85', sex: 'male' })).toEqual({ ok: true, group: 'People aged 80 and over', figure: 'a risk of 12.0% over 5 years' }); // hand-computed: 0.12 = 12.0%
   });
 
   it('passes on the engine’s message for an age outside the table or not a whole number', () => {

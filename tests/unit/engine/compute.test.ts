@@ -99,7 +99,8 @@ describe('computeScenario', () => {
     expect(r.riskDifference.lower).toBe(0);
     expect(r.numberNeeded.crossesNull).toBe(true);
     expect(r.numberNeeded.interval.from).toEqual({ direction: 'none', value: null, display: null });
-    expect(r.numberNeeded.text).toMatch(/^NNTH \d+ \(95% CI: ∞ to NNTH \d+\)$/);
+    // Issue 11 item 12: written from the finite end (was "∞ to NNTH n").
+    expect(r.numberNeeded.text).toMatch(/^NNTH \d+ \(95% CI: NNTH \d+ to ∞\)$/);
   });
 
   it('keeps the limits on either side of the estimate when they are ulps apart', () => {

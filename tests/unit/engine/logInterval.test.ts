@@ -71,7 +71,10 @@ describe('decimalPlaces agrees with the printed form', () => {
       fc.property(fc.integer({ min: 1, max: 10_000_000 }), fc.integer({ min: 0, max: 8 }), (n, k) => {
         const v = n / 10 ** k;
         const printed = String(v);
-        const expected = printed.includes('e') ? decimalPlaces(v) : (printed.split('.')[1] ?? '').length;
+        // Exponent form ("1.5e-7"): the mantissa's decimals minus the exponent, worked out here from the
+        // printed text, not by the code under test (issue 11).
+        const [mantissa = '', exponent = '0'] = printed.split('e');
+        const expected = Math.max(0, (mantissa.split('.')[1] ?? '').length - Number(exponent));
         expect(decimalPlaces(v)).toBe(expected);
       }),
       { numRuns: 1000 },

@@ -49,7 +49,28 @@ describe('numberNeeded = 1/|RD|, rounded up (Cochrane Handbook §12.5.4.1; Cook 
     const nn = numberNeeded({ estimate: 0.02, lower: 0, upper: 0.05 }, 0.95);
     expect(nn.crossesNull).toBe(true);
     expect(nn.interval.from).toEqual({ direction: 'none', value: null, display: null });
-    expect(nn.text).toBe('NNTH 50 (95% CI: ∞ to NNTH 20)');
+    // Issue 11 item 12: the interval is written from its finite end (was "∞ to NNTH 20").
+    expect(nn.text).toBe('NNTH 50 (95% CI: NNTH 20 to ∞)');
+  });
+
+  it('writes an upper limit exactly at 0 from the finite benefit end', () => {
+    // Altman 1998: RD upper limit 0 is an infinite NNT; hand-computed 1/0.04 = 25, 1/0.02 = 50.
+    const nn = numberNeeded({ estimate: -0.02, lower: -0.04, upper: 0 }, 0.95);
+    expect(nn.text).toBe('NNTB 50 (95% CI: NNTB 25 to ∞)');
+  });
+
+  it('says "more than a million" for an astronomically large number needed (issue 11 item 13)', () => {
+    // Hand-computed: 1/1e-17 = 1e17 people, far beyond a million; 1/5e-324 overflows to Infinity.
+    expect(numberNeeded({ estimate: 1e-17, lower: 5e-18, upper: 2e-17 }, 0.95).text).toBe(
+      'NNTH more than a million (95% CI: NNTH more than a million to more than a million)',
+    );
+    expect(numberNeeded({ estimate: 5e-324, lower: 5e-324, upper: 5e-324 }, 0.95).text).not.toMatch(/Infinity|e\+/);
+    // 1/0.000001 = 1,000,000 exactly is still written as a number.
+    expect(numberNeeded({ estimate: 0.000001, lower: 0.000001, upper: 0.000002 }, 0.95).text).toBe('NNTH 1000000 (95% CI: NNTH 500000 to 1000000)');
+  });
+
+  it('writes any interval level with its decimal (issue 11 item 10)', () => {
+    expect(numberNeeded({ estimate: 0.04, lower: 0.02, upper: 0.08 }, 0.975).text).toBe('NNTH 25 (97.5% CI: NNTH 13 to 50)');
   });
 });
 

@@ -15,7 +15,9 @@ describe('engine properties (fast-check, 1000 runs each)', () => {
     fc.assert(
       fc.property(scenarioArb, (scenario) => {
         const result = computeScenario(scenario);
-        if (!result.ok) return; // a degenerate baseline is refused, which is allowed
+        // A degenerate baseline is refused, which is allowed; fc.pre (not return) so an engine that
+        // refused everything would fail the property (too many skipped runs).
+        fc.pre(result.ok);
         const r = result.value;
         for (const p of [r.referenceRisk, r.exposedRisk.estimate, r.exposedRisk.lower, r.exposedRisk.upper]) {
           expect(p).toBeGreaterThanOrEqual(0);
@@ -97,7 +99,7 @@ describe('engine properties (fast-check, 1000 runs each)', () => {
     fc.assert(
       fc.property(scenarioArb, (scenario) => {
         const result = computeScenario(scenario);
-        if (!result.ok) return;
+        fc.pre(result.ok);
         const c = result.value.iconArray;
         const reference = referenceLayout(c);
         const exposed = exposedLayout(c);
@@ -122,7 +124,7 @@ describe('engine properties (fast-check, 1000 runs each)', () => {
     fc.assert(
       fc.property(scenarioArb, (scenario) => {
         const result = computeScenario(scenario);
-        if (!result.ok) return;
+        fc.pre(result.ok);
         const { riskDifference, numberNeeded } = result.value;
         if (riskDifference.estimate === 0) {
           expect(numberNeeded.estimate).toBeNull();

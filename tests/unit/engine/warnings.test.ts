@@ -98,10 +98,94 @@ describe('scenarioWarnings', () => {
     });
     expect(result.ok).toBe(true);
     if (!result.ok) return;
-    expect(result.value.warnings.length).toBeGreaterThanOrEqual(5);
+    // Exactly these, hand-derived from each rule: √(0.9·9) = 2.85 is far from 1.1; 0.9 ≤ 1 ≤ 9; P0 over
+    // 20 years = 1 − 0.4² = 0.84 and 9·0.84 ≥ 1; 20 > 5 years; unadjusted; an RR from a case-control
+    // study. Not stretched: 20 years is exactly twice the 10-year period and not beyond 20 years.
+    expect(result.value.warnings.map((w) => w.code)).toEqual([
+      'interval-asymmetric',
+      'interval-includes-no-effect',
+      'risk-ratio-exceeds-certainty',
+      'horizon-beyond-follow-up',
+      'unadjusted-estimate',
+      'risk-ratio-from-case-control',
+    ]);
     for (const w of result.value.warnings) {
       expect(w.code).toMatch(/^[a-z-]+$/);
       expect(w.message.length).toBeGreaterThan(20);
     }
+  });
+
+  it('warns when a baseline is stretched beyond twice its period or 20 years, saying by how much (issue 11 item 4)', () => {
+    // Methods guide, "Baselines": warn beyond twice the period or about 20 years.
+    const oneYear: Scenario = { ...clean, baseline: { risk: 0.01, years: 1 }, horizonYears: 100, effect: { ...clean.effect, followUpYears: 100 } };
+    const w = computeScenario(oneYear);
+    if (!w.ok) throw new Error('expected a result');
+    const stretched = w.value.warnings.find((x) => x.code === 'baseline-extrapolated');
+    // Hand-computed: 100 / 1 = 100 times the period.
+    expect(stretched?.message).toContain('100 times its own period');
+    expect(stretched?.message).toContain('beyond 20 years');
+    expect(codes({ ...clean, baseline: { risk: 0.05, years: 5 }, horizonYears: 10 })).not.toContain('baseline-extrapolated'); // 2×, 10 y
+    expect(codes({ ...clean, baseline: { risk: 0.05, years: 4 }, horizonYears: 9 })).toContain('baseline-extrapolated'); // 2.25×
+    expect(codes({ ...clean, baseline: { risk: 0.05, years: 15 }, horizonYears: 21, effect: { ...clean.effect, followUpYears: 30 } })).toContain('baseline-extrapolated'); // > 20 y
+    expect(codes({ ...clean, baseline: { risk: 0.05, years: 30 }, horizonYears: 25, effect: { ...clean.effect, followUpYears: 30 } })).not.toContain('baseline-extrapolated'); // shortened
+    // A rate has no period of its own: only the 20-year rule.
+    expect(codes({ ...clean, baseline: { rate: 5, perPersonYears: 1000 }, horizonYears: 20 })).not.toContain('baseline-extrapolated');
+    expect(codes({ ...clean, baseline: { rate: 5, perPersonYears: 1000 }, horizonYears: 30 })).toContain('baseline-extrapolated');
+  });
+
+  it('warns that a cross-sectional ratio compares prevalence (issue 11 item 5)', () => {
+    const s: Scenario = { ...clean, effect: { ...clean.effect, measure: 'OR', design: 'cross-sectional' } };
+    expect(codes(s)).toContain('cross-sectional-prevalence');
+    expect(codes({ ...s, effect: { ...s.effect, design: 'cohort' } })).not.toContain('cross-sectional-prevalence');
+  });
+
+  it('words the high-baseline odds-ratio warning for a protective odds ratio too (issue 11 item 6)', () => {
+    const s: Scenario = { baseline: { risk: 0.3, years: 10 }, effect: { measure: 'OR', estimate: 0.5, lower: 0.4, upper: 0.63 } };
+    const r = computeScenario(s);
+    if (!r.ok) throw new Error('expected a result');
+    const message = r.value.warnings.find((x) => x.code === 'odds-ratio-high-baseline')?.message ?? '';
+    expect(message).toContain('further from 1');
+    expect(message).toContain('smaller, for an odds ratio below 1');
+    expect(message).not.toContain('clearly larger');
+  });
+
+  it('reads a matched case-control odds ratio by its sampling and as adjusted (issue 11 item 7)', () => {
+    const or = { measure: 'OR', estimate: 1.5, lower: 1.2, upper: 1.9 } as const;
+    const matched = computeScenario({ baseline: { risk: 0.05, years: 10 }, effect: { ...or, design: 'matched-case-control' } });
+    const riskSet = computeScenario({ baseline: { risk: 0.05, years: 10 }, effect: { ...or, design: 'matched-risk-set-case-control' } });
+    if (!matched.ok || !riskSet.ok) throw new Error('expected results');
+    expect(matched.value.conversion).toBe('risk-odds-ratio');
+    expect(riskSet.value.conversion).toBe('rate-ratio');
+    // Conditional odds ratio: adjusted for the matching factors (Pearce 2016, from memory), so the McNutt warning applies.
+    expect(matched.value.warnings.map((w) => w.code)).toContain('odds-ratio-adjusted');
+    expect(codes({ baseline: { risk: 0.05, years: 10 }, effect: { ...or, design: 'matched-case-control', adjusted: false } })).not.toContain(
+      'unadjusted-estimate',
+    );
+  });
+
+  it('warns when a hazard or risk ratio comes with a case-control or cross-sectional design (issue 11 item 7)', () => {
+    expect(codes({ ...clean, effect: { ...clean.effect, measure: 'HR', design: 'case-control' } })).toContain('measure-unusual-for-design');
+    expect(codes({ ...clean, effect: { ...clean.effect, measure: 'HR', design: 'matched-risk-set-case-control' } })).toContain('measure-unusual-for-design');
+    expect(codes({ ...clean, effect: { ...clean.effect, measure: 'RR', design: 'cross-sectional' } })).toContain('measure-unusual-for-design');
+    expect(codes({ ...clean, effect: { ...clean.effect, measure: 'HR', design: 'cohort' } })).not.toContain('measure-unusual-for-design');
+    expect(codes({ ...clean, effect: { ...clean.effect, measure: 'OR', design: 'case-control' } })).not.toContain('measure-unusual-for-design');
+  });
+
+  it('warns with the size of the effect when a table baseline has no exposure prevalence (issue 11 item 3)', () => {
+    const fromTable: Scenario = { ...clean, baseline: { risk: 0.1, years: 10 }, effect: { ...clean.effect, estimate: 2, lower: 1.5, upper: 2.67 }, tableId: 'demo' };
+    const r = computeScenario(fromTable);
+    if (!r.ok) throw new Error('expected a result');
+    const w = r.value.warnings.find((x) => x.code === 'table-prevalence-unknown');
+    // Hand-computed: at pe = 0.2 and RR 2, P0 = 0.1 / (0.8 + 0.4) = 0.0833, so 0.1 overstates it by 0.1/0.0833 − 1 = 20%.
+    expect(w?.message).toContain('overstate');
+    expect(w?.message).toContain('about 20%');
+    expect(codes({ ...fromTable, tableId: undefined })).not.toContain('table-prevalence-unknown');
+    expect(codes({ ...fromTable, baseline: { populationRisk: 0.1, exposurePrevalence: 0.3, years: 10 } })).not.toContain('table-prevalence-unknown');
+  });
+
+  it('carries the two standing assumptions in every result (issue 11 item 9)', () => {
+    const r = computeScenario(clean);
+    if (!r.ok) throw new Error('expected a result');
+    expect(r.value.assumptions.map((a) => a.code)).toEqual(['baseline-uncertainty-not-included', 'constant-relative-effect']);
   });
 });

@@ -140,3 +140,32 @@ describe('explainSteps', () => {
     );
   });
 });
+
+describe('explainSteps: a table baseline corrected with an exposure prevalence (issue 11 item 3)', () => {
+  const table = { title: 'Test table', source: 'Illustrative numbers, not from a real population', year: 2024, illustrative: true, exposurePrevalence: 0.2 };
+  const stratum = { sex: 'female', ageFrom: 40, ageTo: 49, risk: 0.12 } as const;
+
+  function baselineSource(pe: number, withStratumPrevalence?: number): string {
+    const scenario: Scenario = {
+      baseline: { populationRisk: 0.12, exposurePrevalence: pe, years: 10 },
+      effect: { measure: 'RR', estimate: 2, lower: 1.5, upper: 2.67 },
+      tableId: 'test',
+    };
+    const r = computeScenario(scenario);
+    if (!r.ok) throw new Error('expected a result');
+    // Hand-computed: P0 = 0.12 / (1 − 0.2 + 0.2·2) = 0.12 / 1.2 = 0.1.
+    if (pe === 0.2) expect(r.value.referenceRisk).toBeCloseTo(0.1, 15);
+    const s = withStratumPrevalence === undefined ? stratum : { ...stratum, exposurePrevalence: withStratumPrevalence };
+    return explainSteps({ scenario, result: r.value, table, stratum: s }).find((x) => x.id === 'baseline')?.source ?? '';
+  }
+
+  it('says the prevalence came from the table', () => {
+    expect(baselineSource(0.2)).toContain('exposure prevalence 0.2 (20%) from the table, for its whole population');
+  });
+  it('says the prevalence came from the table’s group', () => {
+    expect(baselineSource(0.3, 0.3)).toContain('exposure prevalence 0.3 (30%) from the table, for this group');
+  });
+  it('says the clinician typed it when it differs from the table’s', () => {
+    expect(baselineSource(0.35)).toContain('exposure prevalence 0.35 (35%) entered by the clinician');
+  });
+});

@@ -114,12 +114,11 @@ describe('importFhirGlucose: usable observations', () => {
 
 describe('importFhirGlucose: every skipped resource is reported with why', () => {
   it.each([
-    ['preliminary', 'status "preliminary": only final and amended results are used'],
-    ['registered', 'status "registered": only final and amended results are used'],
-    ['cancelled', 'status "cancelled": only final and amended results are used'],
-    ['entered-in-error', 'status "entered-in-error": only final and amended results are used'],
-    ['corrected', 'status "corrected": only final and amended results are used'],
-    ['unknown', 'status "unknown": only final and amended results are used'],
+    ['preliminary', 'status "preliminary": only final, amended and corrected results are used'],
+    ['registered', 'status "registered": only final, amended and corrected results are used'],
+    ['cancelled', 'status "cancelled": only final, amended and corrected results are used'],
+    ['entered-in-error', 'status "entered-in-error": only final, amended and corrected results are used'],
+    ['unknown', 'status "unknown": only final, amended and corrected results are used'],
   ])('skips status %s', (status, reason) => {
     expect(imported(bundle(obs({ id: 'x', status }))).skipped).toEqual([{ entry: 0, id: 'x', reason }]);
   });
@@ -249,8 +248,21 @@ describe('fhirImportSummary and skipLine', () => {
   it('say what the import did', () => {
     const v = imported(bundle(obs({ date: '2021-03-01' }), obs({ id: 'x', status: 'preliminary' }), { resourceType: 'Patient' }));
     expect(fhirImportSummary(v)).toBe('Read 3 resources: 1 checkup added, 2 resources skipped:');
-    expect(v.skipped.map(skipLine)).toEqual(['Entry 1 (id x): status "preliminary": only final and amended results are used', 'Entry 2: a Patient resource, not an Observation']);
+    expect(v.skipped.map(skipLine)).toEqual(['Entry 1 (id x): status "preliminary": only final, amended and corrected results are used', 'Entry 2: a Patient resource, not an Observation']);
     expect(fhirImportSummary(imported(obs()))).toBe('Read 1 resource: 1 checkup added.');
     expect(skipLine({ entry: null, id: null, reason: 'no status' })).toBe('The Observation: no status');
+  });
+});
+
+describe('FHIR R4 corrected results and UCUM annotations (issue 11 item 11)', () => {
+  it('accepts status corrected, a kind of amended in R4 (from memory)', () => {
+    const v = imported(bundle(obs({ id: 'c', status: 'corrected' })));
+    expect(v.checkups).toEqual([{ date: '2023-03-01', hba1c: { value: 6.1, unit: '%' } }]);
+    expect(v.skipped).toEqual([]);
+  });
+
+  it('accepts a UCUM annotation such as %{HbA1c} and mmol/mol{Hb}', () => {
+    expect(imported(bundle(obs({ unit: '%{HbA1c}' }))).checkups[0]?.hba1c).toEqual({ value: 6.1, unit: '%' });
+    expect(imported(bundle(obs({ code: '59261-8', value: 43, unit: 'mmol/mol{Hb}' }))).checkups[0]?.hba1c).toEqual({ value: 43, unit: 'mmol/mol' });
   });
 });

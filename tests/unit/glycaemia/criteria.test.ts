@@ -44,32 +44,33 @@ interface Boundary {
 const B: readonly Boundary[] = [
   // ADA, HbA1c: 5.7 % and 6.5 %
   { criteria: 'ADA', test: 'hba1c', unit: '%', at: 5.7, step: 0.01, from: 'prediabetes', below: 'normal', source: 'ADA §2: 5.7 %' },
-  { criteria: 'ADA', test: 'hba1c', unit: 'mmol/mol', at: 38.801, step: 0.1, from: 'prediabetes', below: 'normal', source: 'ADA 5.7 % = 10.93×5.7 − 23.5 = 38.801 mmol/mol (hand-computed)' },
+  { criteria: 'ADA', test: 'hba1c', unit: 'mmol/mol', at: 39, step: 0.1, from: 'prediabetes', below: 'normal', source: 'ADA §2 prints 5.7% (39 mmol/mol) (from memory)' },
   { criteria: 'ADA', test: 'hba1c', unit: '%', at: 6.5, step: 0.01, from: 'diabetes-range', below: 'prediabetes', source: 'ADA §2: 6.5 %' },
-  { criteria: 'ADA', test: 'hba1c', unit: 'mmol/mol', at: 47.545, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'ADA 6.5 % = 71.045 − 23.5 = 47.545 mmol/mol (hand-computed)' },
+  { criteria: 'ADA', test: 'hba1c', unit: 'mmol/mol', at: 48, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'ADA §2 prints 6.5% (48 mmol/mol) (from memory)' },
   // ADA, FPG: 100 and 126 mg/dL
   { criteria: 'ADA', test: 'fpg', unit: 'mg/dL', at: 100, step: 0.1, from: 'prediabetes', below: 'normal', source: 'ADA §2: 100 mg/dL' },
-  { criteria: 'ADA', test: 'fpg', unit: 'mmol/L', at: 100 / 18.016, step: 0.01, from: 'prediabetes', below: 'normal', source: 'ADA 100 mg/dL = 100 / 18.016 = 5.5506 mmol/L (hand-computed)' },
+  { criteria: 'ADA', test: 'fpg', unit: 'mmol/L', at: 5.6, step: 0.01, from: 'prediabetes', below: 'normal', source: 'ADA §2 prints 100 mg/dL (5.6 mmol/L) (from memory)' },
   { criteria: 'ADA', test: 'fpg', unit: 'mg/dL', at: 126, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'ADA §2: 126 mg/dL' },
-  { criteria: 'ADA', test: 'fpg', unit: 'mmol/L', at: 126 / 18.016, step: 0.01, from: 'diabetes-range', below: 'prediabetes', source: 'ADA 126 mg/dL = 6.9938 mmol/L (hand-computed)' },
+  { criteria: 'ADA', test: 'fpg', unit: 'mmol/L', at: 7.0, step: 0.01, from: 'diabetes-range', below: 'prediabetes', source: 'ADA §2 prints 126 mg/dL (7.0 mmol/L) (from memory)' },
   // WHO, HbA1c: 6.5 % only; below it HbA1c does not classify
   { criteria: 'WHO', test: 'hba1c', unit: '%', at: 6.5, step: 0.01, from: 'diabetes-range', below: null, source: 'WHO 2011: 6.5 %' },
-  { criteria: 'WHO', test: 'hba1c', unit: 'mmol/mol', at: 47.545, step: 0.1, from: 'diabetes-range', below: null, source: 'WHO 6.5 % = 47.545 mmol/mol (hand-computed)' },
+  { criteria: 'WHO', test: 'hba1c', unit: 'mmol/mol', at: 48, step: 0.1, from: 'diabetes-range', below: null, source: 'WHO 2011 prints 6.5% (48 mmol/mol) (from memory)' },
   // WHO, FPG: 6.1 and 7.0 mmol/L
   { criteria: 'WHO', test: 'fpg', unit: 'mmol/L', at: 6.1, step: 0.01, from: 'prediabetes', below: 'normal', source: 'WHO 2006: IFG from 6.1 mmol/L' },
-  { criteria: 'WHO', test: 'fpg', unit: 'mg/dL', at: 6.1 * 18.016, step: 0.1, from: 'prediabetes', below: 'normal', source: 'WHO 6.1 mmol/L = 109.8976 mg/dL (hand-computed)' },
+  { criteria: 'WHO', test: 'fpg', unit: 'mg/dL', at: 110, step: 0.1, from: 'prediabetes', below: 'normal', source: 'WHO 2006 prints 6.1 mmol/L (110 mg/dL) (from memory)' },
   { criteria: 'WHO', test: 'fpg', unit: 'mmol/L', at: 7.0, step: 0.01, from: 'diabetes-range', below: 'prediabetes', source: 'WHO 2006: 7.0 mmol/L' },
-  { criteria: 'WHO', test: 'fpg', unit: 'mg/dL', at: 7.0 * 18.016, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'WHO 7.0 mmol/L = 126.112 mg/dL (hand-computed)' },
+  { criteria: 'WHO', test: 'fpg', unit: 'mg/dL', at: 126, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'WHO 2006 prints 7.0 mmol/L (126 mg/dL) (from memory)' },
   // NICE, HbA1c: 42 and 48 mmol/mol
   { criteria: 'NICE', test: 'hba1c', unit: 'mmol/mol', at: 42, step: 0.1, from: 'prediabetes', below: 'normal', source: 'NICE PH38: 42 mmol/mol' },
-  { criteria: 'NICE', test: 'hba1c', unit: '%', at: 65.5 / 10.93, step: 0.01, from: 'prediabetes', below: 'normal', source: 'NICE 42 mmol/mol = (42 + 23.5) / 10.93 = 5.9927 % (hand-computed)' },
+  { criteria: 'NICE', test: 'hba1c', unit: '%', at: 6.0, step: 0.01, from: 'prediabetes', below: 'normal', source: 'NICE PH38 prints 42 mmol/mol (6.0%) (from memory)' },
   { criteria: 'NICE', test: 'hba1c', unit: 'mmol/mol', at: 48, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'NICE PH38 referral: 48 mmol/mol (from memory)' },
-  { criteria: 'NICE', test: 'hba1c', unit: '%', at: 71.5 / 10.93, step: 0.01, from: 'diabetes-range', below: 'prediabetes', source: 'NICE 48 mmol/mol = 71.5 / 10.93 = 6.5416 % (hand-computed)' },
+  { criteria: 'NICE', test: 'hba1c', unit: '%', at: 6.5, step: 0.01, from: 'diabetes-range', below: 'prediabetes', source: 'NICE PH38 prints 48 mmol/mol (6.5%) (from memory)' },
   // NICE, FPG: 5.5 and 7.0 mmol/L
   { criteria: 'NICE', test: 'fpg', unit: 'mmol/L', at: 5.5, step: 0.01, from: 'prediabetes', below: 'normal', source: 'NICE PH38: 5.5 mmol/L' },
+  // NICE prints 5.5 mmol/L with no mg/dL form, so that one cut-point is converted: 5.5 × 18.016 = 99.088 mg/dL (hand-computed).
   { criteria: 'NICE', test: 'fpg', unit: 'mg/dL', at: 5.5 * 18.016, step: 0.1, from: 'prediabetes', below: 'normal', source: 'NICE 5.5 mmol/L = 99.088 mg/dL (hand-computed)' },
   { criteria: 'NICE', test: 'fpg', unit: 'mmol/L', at: 7.0, step: 0.01, from: 'diabetes-range', below: 'prediabetes', source: 'NICE PH38 referral: 7.0 mmol/L (from memory)' },
-  { criteria: 'NICE', test: 'fpg', unit: 'mg/dL', at: 7.0 * 18.016, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'NICE 7.0 mmol/L = 126.112 mg/dL (hand-computed)' },
+  { criteria: 'NICE', test: 'fpg', unit: 'mg/dL', at: 126, step: 0.1, from: 'diabetes-range', below: 'prediabetes', source: 'NICE PH38 takes 7.0 mmol/L from WHO, printed 126 mg/dL (from memory)' },
 ];
 
 function checkupWith(test: 'hba1c' | 'fpg', value: number, unit: Unit): Checkup {
@@ -109,17 +110,21 @@ describe('results as labs print them, against the bodies\' quoted equivalents', 
     ['ADA', 'fpg', 5.6, 'mmol/L', 'prediabetes', '5.6 × 18.016 = 100.89 mg/dL'],
     ['ADA', 'fpg', 6.9, 'mmol/L', 'prediabetes', '6.9 × 18.016 = 124.31 mg/dL'],
     ['ADA', 'fpg', 7.0, 'mmol/L', 'diabetes-range', '126.11 mg/dL ≥ 126'],
-    // WHO quotes 110 and 126 mg/dL (WHO 2006, from memory); 126 mg/dL is 6.994 mmol/L, under 7.0:
+    // WHO quotes 110 and 126 mg/dL (WHO 2006, from memory). Issue 11 item 1: a lab's 126 mg/dL is compared
+    // with WHO's own 126 mg/dL, so it is in the diabetes range although it converts to 6.994 mmol/L:
     ['WHO', 'fpg', 109, 'mg/dL', 'normal', '109/18.016 = 6.050 mmol/L'],
     ['WHO', 'fpg', 110, 'mg/dL', 'prediabetes', '110/18.016 = 6.106 mmol/L'],
-    ['WHO', 'fpg', 126, 'mg/dL', 'prediabetes', '126/18.016 = 6.994 mmol/L < 7.0'],
+    ['WHO', 'fpg', 126, 'mg/dL', 'diabetes-range', 'WHO prints 126 mg/dL; converted 6.994 mmol/L would be under 7.0'],
+    ['WHO', 'fpg', 125, 'mg/dL', 'prediabetes', '125 < 126 mg/dL'],
     ['WHO', 'fpg', 127, 'mg/dL', 'diabetes-range', '127/18.016 = 7.049 mmol/L'],
     ['WHO', 'hba1c', 48, 'mmol/mol', 'diabetes-range', '6.542 % ≥ 6.5'],
     ['WHO', 'hba1c', 6.4, '%', null, 'below 6.5 %: HbA1c does not classify under WHO'],
-    // NICE quotes 6.0–6.4 % for 42–47 mmol/mol and 6.5 % for 48 (PH38, from memory); 6.5 % is 47.5:
+    // NICE quotes 6.0–6.4 % for 42–47 mmol/mol and 6.5 % for 48 (PH38, from memory). Issue 11 item 1: a lab's
+    // 6.5% is compared with NICE's own 6.5%, so it is in the diabetes range although it converts to 47.5 mmol/mol:
     ['NICE', 'hba1c', 5.9, '%', 'normal', '10.93×5.9 − 23.5 = 40.99 mmol/mol'],
     ['NICE', 'hba1c', 6.0, '%', 'prediabetes', '42.08 mmol/mol'],
-    ['NICE', 'hba1c', 6.5, '%', 'prediabetes', '47.545 mmol/mol < 48'],
+    ['NICE', 'hba1c', 6.5, '%', 'diabetes-range', 'NICE prints 48 mmol/mol (6.5%); converted 47.545 would be under 48'],
+    ['NICE', 'hba1c', 6.4, '%', 'prediabetes', '6.4 < 6.5%'],
     ['NICE', 'hba1c', 6.6, '%', 'diabetes-range', '48.638 mmol/mol'],
     ['NICE', 'fpg', 99, 'mg/dL', 'normal', '99/18.016 = 5.495 mmol/L < 5.5'],
     ['NICE', 'fpg', 100, 'mg/dL', 'prediabetes', '5.551 mmol/L'],
@@ -128,10 +133,13 @@ describe('results as labs print them, against the bodies\' quoted equivalents', 
     expect(classifyCheckup(checkupWith(test, value, unit), criteria).category).toBe(expected);
   });
 
-  it('notes a converted value that rounding would put on the other side of a threshold', () => {
-    // 6.5 % → 47.545 mmol/mol: rounds to 48 (NICE diabetes range) but is below it (hand-computed).
+  it('notes a value between the two published forms of a cut-point, and one compared after conversion near a threshold', () => {
+    // 6.5 % → 47.545 mmol/mol: between NICE's 48 mmol/mol and its 6.5% (hand-computed); placed by the % form.
     const nice = classifyCheckup(checkupWith('hba1c', 6.5, '%'), 'NICE');
     expect(nice.notes.map((n) => n.code)).toContain('conversion-near-threshold');
+    expect(nice.notes[0]?.message).toContain('between the two published forms');
+    expect(nice.notes[0]?.message).toContain('the unit the lab printed (%)');
+    expect(nice.notes[0]?.message).not.toMatch(/lab's own/);
     expect(nice.hba1c?.text).toBe('47.5 mmol/mol');
     // 99 mg/dL → 5.4951 mmol/L: shown with enough decimals to stay below NICE's 5.5.
     const fpg = classifyCheckup(checkupWith('fpg', 99, 'mg/dL'), 'NICE');

@@ -53,6 +53,13 @@ describe('describePersistence', () => {
       'The last 2 checkups, all within one yearly round (2022-03-01 to 2022-04-01), are in the prediabetes range (ADA). There are no earlier results.',
     );
   });
+  it('says "more than 18 months" for a gap of 18 whole months that breaks the run (issue 11 item 14)', () => {
+    // Hand-computed: 2021-03-01 + 18 months = 2022-09-01; 2022-09-02 is one day later, so the gap is
+    // more than 18 months (it breaks the run) but 18 whole months.
+    expect(words([pre('2021-03-01'), pre('2022-09-02')])).toBe(
+      'The latest result (2022-09-02) is in the prediabetes range (ADA). Before that there is a gap of more than 18 months (2021-03-01 to 2022-09-02), which breaks the run.',
+    );
+  });
   it('mentions earlier gaps that did not end the run', () => {
     const text = words([pre('2012-03-01'), { date: '2016-03-01', hba1c: { value: 5.0, unit: '%' } }, pre('2017-03-01')]);
     expect(text).toBe(

@@ -96,10 +96,20 @@ describe('parseGlucoseHistory: bad input becomes issues naming the checkup and f
     expect(issues(oneCheckup({ date: '2023-03-01', hba1c: { value: 6.1, unit: 'percent' } }))).toEqual([
       { code: 'invalid-choice', path: ['checkups', 0, 'hba1c', 'unit'], message: 'The HbA1c unit must be "%" or "mmol/mol"' },
     ]);
-    expect(issues(oneCheckup({ date: '2023-03-01', fpg: { value: 5.1, unit: 'mmol/l' } }))[0]).toMatchObject({
+    expect(issues(oneCheckup({ date: '2023-03-01', fpg: { value: 5.1, unit: 'mmol/kg' } }))[0]).toMatchObject({
       code: 'invalid-choice',
       path: ['checkups', 0, 'fpg', 'unit'],
     });
+  });
+
+  it('accepts the unit spellings the FHIR import accepts (issue 11 item 11): mg/dl, mmol/l, UCUM annotations', () => {
+    // UCUM: "l" and "L" are both the litre; "{…}" is an annotation, not part of the unit (from memory).
+    for (const [unit, canonical, value] of [['mmol/l', 'mmol/L', 5.1], ['mg/dl', 'mg/dL', 92], ['MG/DL', 'mg/dL', 92]] as const) {
+      const r = parseGlucoseHistory({ criteria: 'ADA', checkups: [{ date: '2023-03-01', fpg: { value, unit } }] }, { today: '2024-06-30' });
+      expect(r.ok && r.value.checkups[0]?.fpg?.unit).toBe(canonical);
+    }
+    const annotated = parseGlucoseHistory({ criteria: 'ADA', checkups: [{ date: '2023-03-01', hba1c: { value: 6.1, unit: '%{HbA1c}' } }] }, { today: '2024-06-30' });
+    expect(annotated.ok && annotated.value.checkups[0]?.hba1c?.unit).toBe('%');
   });
 
   it('refuses a missing unit or value', () => {

@@ -113,9 +113,11 @@ describe('glucoseHistoryView', () => {
   });
 
   it('keeps conversion notes on the checkup', () => {
-    // 126 mg/dL = 6.9938 mmol/L: below WHO's 7.0, but it would print as 7.0 (hand-computed).
+    // 126 mg/dL = 6.9938 mmol/L: below WHO's 7.0, but it would print as 7.0 (hand-computed); WHO's own
+    // 126 mg/dL form places it in the diabetes range (issue 11 item 1), and the note says why.
     const v = glucoseHistoryView({ drafts: [row('2023-03-01', '', '126')], criteria: 'WHO', today: TODAY });
     expect(v.checkups[0]?.fpgText).toBe('6.99 mmol/L');
     expect(v.checkups[0]?.notes[0]).toMatch(/within rounding of the 7\.0 mmol\/L limit/);
+    expect(v.checkups[0]?.label).toBe('diabetes range (WHO)');
   });
 });

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { backHrefFor, contactSegments, DEFAULT_BLOCKS, handOverRecord, handoutPageView, plainIssue, requestedTableId, writtenDate } from '@/lib/handout';
-import { scenarioQuery } from '@/lib/link';
+import { scenarioFragment, scenarioQuery } from '@/lib/link';
 import type { Scenario } from '@/lib/scenario/schema';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables';
 
@@ -65,7 +65,8 @@ describe('handoutPageView', () => {
   });
 
   it('gives the sheet for a valid link, with the table found by id', () => {
-    const query = scenarioQuery({ ...TYPED, tableId: DEMO_HEART_FAILURE_10Y.id });
+    // The scenario travels in the fragment (lib/link); the back link opens the same fragment.
+    const query = scenarioFragment({ ...TYPED, tableId: DEMO_HEART_FAILURE_10Y.id });
     expect(requestedTableId(query)).toBe(DEMO_HEART_FAILURE_10Y.id);
     const view = handoutPageView(query, TEMPLATE, { date: DATE, tableFor: (id) => (id === DEMO_HEART_FAILURE_10Y.id ? DEMO_HEART_FAILURE_10Y : undefined) });
     expect(view.kind).toBe('sheet');
@@ -74,7 +75,9 @@ describe('handoutPageView', () => {
       expect(view.backHref).toBe(`/${query}`);
       expect(view.history.state).toBe('none');
     }
-    expect(backHrefFor('br=1')).toBe('/?br=1');
+    expect(backHrefFor('br=1')).toBe('/#br=1');
+    // An old query link's back link is written as a fragment too.
+    expect(backHrefFor('?br=1')).toBe('/#br=1');
     expect(backHrefFor('')).toBe('/');
   });
 

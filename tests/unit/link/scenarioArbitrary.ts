@@ -1,7 +1,8 @@
 /**
  * Every valid scenario, as fast-check sees it: each field over the schema's whole range
  * (lib/scenario/schema.ts), every optional field sometimes absent, −0 where a bound of 0 lets
- * it through, and text that is hard for a URL (&, =, #, +, %, Unicode, lone surrogates).
+ * it through, and text that is hard for a URL (&, =, #, +, %, Unicode; lone surrogates only in
+ * {@link brokenTextArb}, since a link leaves such text out).
  * Narrower than the schema only where the schema itself is (the text length limits).
  */
 import fc from 'fast-check';
@@ -10,6 +11,9 @@ import {
   EFFECT_MEASURES,
   INTERVAL_LEVELS,
   MAX_RATIO,
+  MIN_RATIO,
+  MIN_INTERVAL_LEVEL,
+  MAX_INTERVAL_LEVEL,
   MAX_TEXT,
   MAX_YEARS,
   STUDY_DESIGNS,
@@ -22,16 +26,17 @@ import {
 const plain = { noNullPrototype: true } as const;
 
 /** Open interval (min, max) of doubles, plus round decimals as people type them. */
-function openDouble(min: number, max: number, inclusiveMax = false): fc.Arbitrary<number> {
+function openDouble(min: number, max: number, inclusiveMax = false, inclusiveMin = false): fc.Arbitrary<number> {
   return fc.oneof(
-    fc.double({ min, max, minExcluded: true, maxExcluded: !inclusiveMax, noNaN: true }),
+    fc.double({ min, max, minExcluded: !inclusiveMin, maxExcluded: !inclusiveMax, noNaN: true }),
     fc.integer({ min: 1, max: 999 }).map((n) => min + ((max - min) * n) / 1000),
   );
 }
 
 const fractionArb = openDouble(0, 1);
 const yearsArb = openDouble(0, MAX_YEARS, true);
-const ratioArb = openDouble(0, MAX_RATIO, true);
+// [0.001, 1000]: the schema's ratio range (issue 14 item 14 added the lower bound).
+const ratioArb = openDouble(MIN_RATIO, MAX_RATIO, true, true);
 
 const baselineArb: fc.Arbitrary<Baseline> = fc.oneof(
   fc.record({ risk: fractionArb, years: yearsArb }, plain),
@@ -52,7 +57,7 @@ const effectArb: fc.Arbitrary<Effect> = fc
     fc.record(
       {
         measure: fc.constantFrom(...EFFECT_MEASURES),
-        level: fc.constantFrom(...INTERVAL_LEVELS),
+        level: fc.oneof(fc.constantFrom(...INTERVAL_LEVELS), fc.double({ min: MIN_INTERVAL_LEVEL, max: MAX_INTERVAL_LEVEL, noNaN: true })),
         design: fc.constantFrom(...STUDY_DESIGNS),
         followUpYears: yearsArb,
         adjusted: fc.boolean(),
@@ -71,8 +76,15 @@ const awkwardUnit = fc.constantFrom(
 /** Any UTF-16 code unit, lone surrogates included (a valid JS string need not be valid Unicode). */
 const codeUnit = fc.integer({ min: 0, max: 0xffff }).map((c) => String.fromCharCode(c));
 
-function textArb(minLength: number, maxLength: number): fc.Arbitrary<string> {
-  return fc
+/** A lone UTF-16 surrogate (half of a pair). */
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g;
+
+/**
+ * Text of the given length. Lone surrogates (broken characters, which a link leaves out and
+ * names: lib/link/scenarioLink.ts) are replaced by "x" unless `broken` is set.
+ */
+function textArb(minLength: number, maxLength: number, broken = false): fc.Arbitrary<string> {
+  const text = fc
     .oneof(
       fc.string({ unit: awkwardUnit, minLength, maxLength: 40 }),
       fc.string({ unit: 'grapheme', minLength, maxLength: Math.min(maxLength, 100) }),
@@ -80,7 +92,14 @@ function textArb(minLength: number, maxLength: number): fc.Arbitrary<string> {
       fc.string({ unit: 'binary', minLength, maxLength: Math.floor(maxLength / 2) }),
     )
     .filter((s) => s.length >= minLength && s.length <= maxLength);
+  return broken ? text : text.map((s) => s.replace(LONE_SURROGATE, 'x'));
 }
+
+/** Text that holds at least one lone surrogate. */
+export const brokenTextArb: fc.Arbitrary<string> = fc
+  .tuple(textArb(0, 200, true), fc.constantFrom('\uD800', '\uDBFF', '\uDC00', '\uDFFF'), textArb(0, 200, true))
+  .map(([a, lone, b]) => `${a}${lone}${b}`)
+  .filter((s) => s.length <= MAX_TEXT && new RegExp(LONE_SURROGATE.source).test(s));
 
 const wordingArb = fc.record(
   {

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { decodeScenarioQuery, encodeScenarioLink, LINK_PARAMS, scenarioQuery } from '@/lib/link';
+import { decodeScenarioQuery, encodeScenarioLink, LINK_PARAMS, MAX_LINK_CHARS, readScenarioLink, scenarioFragment, scenarioLinkIssues, scenarioQuery } from '@/lib/link';
 import { parseScenario } from '@/lib/scenario/parse';
 import type { Scenario } from '@/lib/scenario/schema';
 import type { Issue } from '@/lib/result';
-import { anyValidScenarioArb } from './scenarioArbitrary';
+import { anyValidScenarioArb, brokenTextArb } from './scenarioArbitrary';
 
 // Expected queries below are written out by hand from the parameter table in
 // lib/link/scenarioLink.ts, and the form encoding of the WHATWG URL Standard
@@ -38,7 +38,7 @@ function sameValue(a: unknown, b: unknown): boolean {
 
 describe('encodeScenarioLink', () => {
   it('writes the documented short parameters, in the table order', () => {
-    expect(encodeScenarioLink(minimal)).toBe('/?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9');
+    expect(encodeScenarioLink(minimal)).toBe('/#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9');
   });
 
   it('writes every optional field when present', () => {
@@ -52,7 +52,7 @@ describe('encodeScenarioLink', () => {
       tableId: 'demo-stroke',
     };
     expect(encodeScenarioLink(full)).toBe(
-      '/?bp=0.1&bx=0.3&by=10&em=OR&ee=2&el=1.5&eu=2.7&ec=0.9&ed=case-control&ef=8&ea=1&h=5&n=1000' +
+      '/#bp=0.1&bx=0.3&by=10&em=OR&ee=2&el=1.5&eu=2.7&ec=0.9&ed=case-control&ef=8&ea=1&h=5&n=1000' +
         '&wo=a+stroke&wx=smoking&wc=not+smoking&wp=adults+40%E2%80%9370&wr=Illustrative+2024&pa=55&ps=female&t=demo-stroke',
     );
     expect(decoded(encodeScenarioLink(full))).toStrictEqual(full);
@@ -64,7 +64,7 @@ describe('encodeScenarioLink', () => {
       horizonYears: 5,
       effect: { measure: 'HR', estimate: 0.8, lower: 0.7, upper: 0.92, design: 'trial', adjusted: false },
     };
-    expect(encodeScenarioLink(rate)).toBe('/?bn=12&bt=1000&em=HR&ee=0.8&el=0.7&eu=0.92&ed=trial&ea=0&h=5');
+    expect(encodeScenarioLink(rate)).toBe('/#bn=12&bt=1000&em=HR&ee=0.8&el=0.7&eu=0.92&ed=trial&ea=0&h=5');
   });
 
   it('encodes text that a query treats specially, and reads it back unchanged', () => {
@@ -72,44 +72,57 @@ describe('encodeScenarioLink', () => {
     const s: Scenario = { ...minimal, wording: { outcome } };
     const link = encodeScenarioLink(s);
     expect(link).toBe(
-      '/?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&wo=heart+attack+%26+stroke+%231+%3D+50%25+%2B+more%3F+yes%2Fno%3B+%22quoted%22+%C3%A9+%F0%9F%98%80',
+      '/#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&wo=heart+attack+%26+stroke+%231+%3D+50%25+%2B+more%3F+yes%2Fno%3B+%22quoted%22+%C3%A9+%F0%9F%98%80',
     );
     expect(decoded(link).wording?.outcome).toBe(outcome);
   });
 
-  it('writes text with a lone surrogate, which UTF-8 cannot carry, as a JSON literal under <key>.json', () => {
-    const s: Scenario = { ...minimal, wording: { citation: 'a\uD800b' } };
-    expect(scenarioQuery(s)).toBe('?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&wr.json=%22a%5Cud800b%22');
-    expect(decoded(scenarioQuery(s)).wording?.citation).toBe('a\uD800b');
+  it('leaves out text with a lone surrogate (a broken character) and names it; an old .json link holding one is refused', () => {
+    // Behaviour changed (issue 14 item 16): such text used to travel as a JSON literal under
+    // <key>.json and printed as a broken character on /handout; now it is named for retyping.
+    const s: Scenario = { ...minimal, wording: { citation: 'a\uD800b', outcome: 'a stroke' } };
+    expect(scenarioFragment(s)).toBe('#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&wo=a+stroke');
+    expect(scenarioLinkIssues(s)).toEqual([
+      { code: 'invalid-link', path: ['wording', 'citation'], message: expect.stringContaining('The citation holds a broken character') as unknown as string },
+    ]);
+    const old = readScenarioLink('#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&wr.json=%22a%5Cud800b%22');
+    expect(old.result).toEqual({ ok: true, value: minimal });
+    expect(old.dropped).toEqual([{ code: 'invalid-link', path: ['wording', 'citation'], message: expect.stringContaining('broken character') as unknown as string }]);
+    // A well-formed .json literal from an old link still reads.
+    expect(decoded('#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&wr.json=%22a%5Cu00e9b%22').wording?.citation).toBe('a\u00e9b');
   });
 
   it('writes −0 as "-0" so that it comes back as −0, not 0', () => {
     const s: Scenario = { baseline: { populationRisk: 0.1, exposurePrevalence: -0, years: 5 }, effect: minimal.effect };
-    expect(scenarioQuery(s)).toBe('?bp=0.1&bx=-0&by=5&em=RR&ee=1.5&el=1.2&eu=1.9');
-    const back = decoded(scenarioQuery(s)).baseline;
+    expect(scenarioFragment(s)).toBe('#bp=0.1&bx=-0&by=5&em=RR&ee=1.5&el=1.2&eu=1.9');
+    const back = decoded(scenarioFragment(s)).baseline;
     expect('exposurePrevalence' in back && Object.is(back.exposurePrevalence, -0)).toBe(true);
   });
 
   it('keeps an empty wording or person object apart from an absent one with a bare marker', () => {
     const s: Scenario = { ...minimal, wording: {}, person: {} };
-    expect(scenarioQuery(s)).toBe('?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&w=&p=');
-    expect(decoded(scenarioQuery(s))).toStrictEqual(s);
-    expect(decoded(scenarioQuery(minimal))).toStrictEqual(minimal);
+    expect(scenarioFragment(s)).toBe('#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&w=&p=');
+    expect(decoded(scenarioFragment(s))).toStrictEqual(s);
+    expect(decoded(scenarioFragment(minimal))).toStrictEqual(minimal);
   });
 
   it('writes numbers as the shortest decimal that reads back as the same double', () => {
     // String(n) for these doubles, ECMA-262 Number::toString (from memory); each reads back exactly.
     const s: Scenario = {
-      baseline: { risk: 0.1 + 0.2, years: 1e-7 },
-      effect: { measure: 'OR', estimate: 5e-324, lower: 5e-324, upper: 1000 },
+      // Ratios below 0.001 are refused since issue 14 item 14, so the smallest double moved to the period.
+      baseline: { risk: 0.1 + 0.2, years: 5e-324 },
+      effect: { measure: 'OR', estimate: 0.001, lower: 0.001, upper: 1000 },
     };
-    expect(scenarioQuery(s)).toBe('?br=0.30000000000000004&by=1e-7&em=OR&ee=5e-324&el=5e-324&eu=1000');
-    expect(decoded(scenarioQuery(s))).toStrictEqual(s);
+    expect(scenarioFragment(s)).toBe('#br=0.30000000000000004&by=5e-324&em=OR&ee=0.001&el=0.001&eu=1000');
+    expect(decoded(scenarioFragment(s))).toStrictEqual(s);
   });
 
-  it('gives the handout the same query as the main screen', () => {
-    expect(`/handout${scenarioQuery(minimal)}`).toBe('/handout?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9');
-    expect(encodeScenarioLink(minimal)).toBe(`/${scenarioQuery(minimal)}`);
+  it('gives the handout the same fragment as the main screen', () => {
+    expect(`/handout${scenarioFragment(minimal)}`).toBe('/handout#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9');
+    expect(encodeScenarioLink(minimal, '/handout')).toBe('/handout#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9');
+    expect(encodeScenarioLink(minimal)).toBe(`/${scenarioFragment(minimal)}`);
+    // The old query form, kept only to make old links in tests, holds the same parameters.
+    expect(scenarioQuery(minimal)).toBe('?br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9');
   });
 
   it('names every parameter once, and every one maps to a distinct field', () => {
@@ -127,6 +140,11 @@ describe('decodeScenarioQuery', () => {
     expect(decoded(`?${q}`)).toStrictEqual(minimal);
     expect(decoded(`/?${q}`)).toStrictEqual(minimal);
     expect(decoded(`/handout?${q}`)).toStrictEqual(minimal);
+    expect(decoded(`#${q}`)).toStrictEqual(minimal);
+    expect(decoded(`/#${q}`)).toStrictEqual(minimal);
+    expect(decoded(`/handout#${q}`)).toStrictEqual(minimal);
+    expect(decoded(`https://clinic.example/handout#${q}`)).toStrictEqual(minimal);
+    expect(decoded(`https://clinic.example/?${q}`)).toStrictEqual(minimal);
     expect(decoded(new URLSearchParams(q))).toStrictEqual(minimal);
   });
 
@@ -145,9 +163,14 @@ describe('decodeScenarioQuery', () => {
           expect(back.value).toStrictEqual(s);
           expect(sameValue(back.value, s)).toBe(true);
         }
-        // The query without the leading "/" opens the same scenario on any path.
-        const again = decodeScenarioQuery(`/handout${scenarioQuery(s)}`);
+        // The fragment opens the same scenario on any path, and fits the length cap.
+        const again = decodeScenarioQuery(`/handout${scenarioFragment(s)}`);
         expect(again.ok && sameValue(again.value, s)).toBe(true);
+        expect(encodeScenarioLink(s, '/handout').length).toBeLessThanOrEqual(MAX_LINK_CHARS);
+        expect(scenarioLinkIssues(s)).toEqual([]);
+        // An old query link with the same parameters opens it too.
+        const old = decodeScenarioQuery(`/${scenarioQuery(s)}`);
+        expect(old.ok && sameValue(old.value, s)).toBe(true);
       }),
       { numRuns: 2000 },
     );
@@ -234,7 +257,8 @@ describe('decodeScenarioQuery: bad links', () => {
     });
     expect(issuesOf(good.replace('em=RR', 'em=rr'))[0]).toMatchObject({ code: 'invalid-choice', path: ['effect', 'measure'] });
     expect(issuesOf(`${good}&ed=survey`)[0]).toMatchObject({ code: 'invalid-choice', path: ['effect', 'design'] });
-    expect(issuesOf(`${good}&ec=0.8`)[0]).toMatchObject({ code: 'invalid-choice', path: ['effect', 'level'] });
+    // Any level from 0.8 to 0.999 is valid since issue 11 item 10; 0.79 is outside it.
+    expect(issuesOf(`${good}&ec=0.79`)[0]).toMatchObject({ code: 'out-of-range', path: ['effect', 'level'] });
     expect(issuesOf(`${good}&n=10`)[0]).toMatchObject({ code: 'invalid-choice', path: ['denominator'] });
     expect(issuesOf(`${good}&pa=40.5`)[0]).toMatchObject({ path: ['person', 'age'] });
     expect(issuesOf(`${good}&t=`)[0]).toMatchObject({ path: ['tableId'] });
@@ -255,5 +279,128 @@ describe('decodeScenarioQuery: bad links', () => {
   it('refuses a link that mixes two baseline forms', () => {
     const issues = issuesOf(`${good}&bn=12`);
     expect(issues[0]?.path[0]).toBe('baseline');
+  });
+});
+
+describe('readScenarioLink: what mail programs and chat tools do to a link', () => {
+  const good = 'br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9';
+
+  it('reads a link whose "&" became "&amp;" (HTML-escaped by a mail program)', () => {
+    const reading = readScenarioLink(`https://clinic.example/#${good.replace(/&/g, '&amp;')}&amp;wo=a+stroke`);
+    expect(reading.result).toEqual({ ok: true, value: { ...minimal, wording: { outcome: 'a stroke' } } });
+    expect(reading.dropped).toEqual([]);
+    expect(readScenarioLink(`/#${good.replace(/&/g, '&#38;')}`).result).toEqual({ ok: true, value: minimal });
+    // An "&" typed in the wording is written %26 and stays text.
+    expect(decoded(`#${good}&wo=a+%26amp%3B+b`).wording?.outcome).toBe('a &amp; b');
+  });
+
+  it('keeps every valid parameter when others are not, and names each one left out', () => {
+    const reading = readScenarioLink(`#${good}&utm_source=mail&ea=maybe&ed=survey&wo=a+stroke`);
+    expect(reading.result).toEqual({ ok: true, value: { ...minimal, wording: { outcome: 'a stroke' } } });
+    expect(reading.dropped.map((i) => i.path)).toEqual([['utm_source'], ['effect', 'adjusted'], ['effect', 'design']]);
+    expect(reading.dropped[0]?.message).toContain('"utm_source"');
+    expect(reading.dropped[1]?.message).toContain('"ea" (adjusted)');
+    expect(reading.dropped[2]).toMatchObject({ code: 'invalid-choice' });
+    expect(reading.dropped[2]?.message).toMatch(/^The link's "ed" \(the study design\) was left out: /);
+    // The strict reader refuses the same link, naming the same parameters.
+    expect(issuesOf(`#${good}&utm_source=mail&ea=maybe&ed=survey`).map((i) => i.path)).toEqual([['utm_source'], ['effect', 'adjusted'], ['effect', 'design']]);
+  });
+
+  it('drops every copy of a repeated parameter rather than guess which was meant', () => {
+    const reading = readScenarioLink(`#${good}&wo=first&wo=second`);
+    expect(reading.result).toEqual({ ok: true, value: minimal });
+    expect(reading.dropped).toHaveLength(1);
+    expect(reading.dropped[0]?.message).toContain('more than once');
+  });
+
+  it('refuses a broken % escape instead of turning it into "�"', () => {
+    for (const broken of ['a%zzb', 'a%2', 'a%', '%E2%80', '%C3%28', '%FF']) {
+      const reading = readScenarioLink(`#${good}&wo=${broken}`);
+      expect(reading.result).toEqual({ ok: true, value: minimal });
+      expect(reading.dropped).toEqual([{ code: 'invalid-link', path: ['wording', 'outcome'], message: expect.stringContaining('broken % escape') as unknown as string }]);
+      expect(JSON.stringify(reading)).not.toContain('\uFFFD');
+    }
+    // In a number that is required, the link cannot open, and says why.
+    const bad = readScenarioLink(`#${good.replace('ee=1.5', 'ee=1%2G5')}`);
+    expect(bad.result.ok).toBe(false);
+    expect(bad.dropped[0]).toMatchObject({ path: ['effect', 'estimate'] });
+    // A key with a broken escape is named by its raw text.
+    expect(readScenarioLink(`#${good}&w%ZZ=1`).dropped[0]?.message).toContain('"w%ZZ=1"');
+    // A real "�" sent as %EF%BF%BD is text like any other.
+    expect(decoded(`#${good}&wo=%EF%BF%BD`).wording?.outcome).toBe('\uFFFD');
+  });
+
+  it('names a link that was cut short as the cause, with what is missing', () => {
+    const full = encodeScenarioLink({ ...minimal, wording: { outcome: 'heart attack' } });
+    const cut = full.slice(0, full.indexOf('&el='));
+    const reading = readScenarioLink(cut);
+    expect(reading.result.ok).toBe(false);
+    expect(reading.cutShort?.message).toMatch(/^This link looks cut short: it stops after "ee=1\.5" \(\d+ characters arrived\) and lacks "el" \(the lower limit\), "eu" \(the upper limit\)/);
+    // Ending inside a % escape is cut short too.
+    const inEscape = readScenarioLink(`#${good}&wo=heart%E2%8`);
+    expect(inEscape.cutShort?.message).toContain('cut short');
+    // A whole link, or one with a field missing from the middle, is not called cut short.
+    expect(readScenarioLink(full).cutShort).toBeUndefined();
+    expect(readScenarioLink(`#${good.replace('&el=1.2', '')}`).cutShort).toBeUndefined();
+  });
+
+  it('treats __proto__, constructor and toString as unknown parameters', () => {
+    for (const key of ['__proto__', 'constructor', 'toString', 'hasOwnProperty', '__proto__.json']) {
+      const reading = readScenarioLink(`#${good}&${key}=`);
+      expect(reading.result).toEqual({ ok: true, value: minimal });
+      expect(reading.dropped).toEqual([{ code: 'invalid-link', path: [key], message: expect.stringContaining(`unknown parameter "${key}"`) as unknown as string }]);
+      expect(reading.dropped[0]?.message).not.toContain('[object Object]');
+    }
+  });
+
+  it('says a plain visit holds no scenario (empty), without issues to show', () => {
+    for (const link of ['', '/', '/handout', '#', '/?', 'https://clinic.example/']) {
+      expect(readScenarioLink(link)).toMatchObject({ empty: true, dropped: [] });
+    }
+  });
+
+  it('caps the link length with a clear message, and every valid scenario fits under the cap', () => {
+    const long = `#${good}&wo=${'a'.repeat(MAX_LINK_CHARS)}`;
+    const reading = readScenarioLink(long);
+    expect(reading.result.ok).toBe(false);
+    if (!reading.result.ok) expect(reading.result.issues[0]?.message).toMatch(/^This link is [\d,]+ characters long; a scenario link is at most 32,768/);
+    // The longest valid scenario: five wording fields of 500 three-byte characters (中 is
+    // E4 B8 AD in UTF-8, 9 characters once percent-encoded), a 100-character table id of the
+    // same, and long numbers. Hand-computed: 5 × 500 × 9 + 100 × 9 = 23,400 plus parameters.
+    const wide = '中'.repeat(500);
+    const longest: Scenario = {
+      baseline: { populationRisk: 0.30000000000000004, exposurePrevalence: 0.30000000000000004, years: 0.30000000000000004 },
+      effect: { measure: 'OR', estimate: 1.0000000000000002, lower: 0.0010000000000000002, upper: 999.9999999999999, level: 0.95, design: 'risk-set-case-control', followUpYears: 99.99999999999999, adjusted: true },
+      horizonYears: 99.99999999999999,
+      denominator: 1000,
+      wording: { outcome: wide, exposure: wide, comparison: wide, population: wide, citation: wide },
+      person: { age: 100, sex: 'female' },
+      tableId: '中'.repeat(100),
+    };
+    expect(parseScenario(longest).ok).toBe(true);
+    const link = encodeScenarioLink(longest, '/handout');
+    expect(link.length).toBeGreaterThan(22_500);
+    expect(link.length).toBeLessThan(MAX_LINK_CHARS);
+    expect(scenarioLinkIssues(longest)).toEqual([]);
+    expect(decoded(link)).toStrictEqual(longest);
+  });
+
+  it('leaves out and names any text with a lone surrogate, and keeps the rest (fast-check)', () => {
+    fc.assert(
+      fc.property(anyValidScenarioArb, brokenTextArb, fc.constantFrom('outcome', 'exposure', 'comparison', 'population', 'citation'), (s, text, field) => {
+        const broken: Scenario = { ...s, wording: { ...s.wording, [field]: text } };
+        fc.pre(parseScenario(broken).ok);
+        const issues = scenarioLinkIssues(broken);
+        expect(issues.map((i) => i.path)).toContainEqual(['wording', field]);
+        const back = decodeScenarioQuery(encodeScenarioLink(broken));
+        expect(back.ok).toBe(true);
+        if (back.ok) {
+          expect(back.value.wording?.[field as keyof NonNullable<Scenario['wording']>]).toBeUndefined();
+          expect(back.value.effect).toStrictEqual(s.effect);
+          expect(back.value.baseline).toStrictEqual(s.baseline);
+        }
+      }),
+      { numRuns: 300 },
+    );
   });
 });

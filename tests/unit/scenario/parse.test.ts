@@ -67,7 +67,13 @@ describe('parseScenario refuses, naming the field', () => {
     ['estimate outside its interval', withEffect({ estimate: 2.5 }), 'estimate-outside-interval', ['effect', 'estimate']],
     ['unknown measure', withEffect({ measure: 'IRR' }), 'invalid-choice', ['effect', 'measure']],
     ['unknown design', withEffect({ design: 'ecological' }), 'invalid-choice', ['effect', 'design']],
-    ['unknown level', withEffect({ level: 0.8 }), 'invalid-choice', ['effect', 'level']],
+    // Issue 11 item 10: any level from 0.8 to 0.999 is accepted now, so the refused levels moved outside that range.
+    ['level below 80%', withEffect({ level: 0.79 }), 'out-of-range', ['effect', 'level']],
+    ['level above 99.9%', withEffect({ level: 0.9995 }), 'out-of-range', ['effect', 'level']],
+    ['level as text', withEffect({ level: '95%' }), 'not-a-number', ['effect', 'level']],
+    // Issue 14 item 14: ratios below 0.001 are refused, symmetric with the 1000 upper bound.
+    ['estimate 1e-320', withEffect({ estimate: 1e-320, lower: 1e-321, upper: 1.9 }), 'out-of-range', ['effect', 'estimate']],
+    ['lower just below 0.001', withEffect({ lower: 0.000999 }), 'out-of-range', ['effect', 'lower']],
     ['adjusted as text', withEffect({ adjusted: 'yes' }), 'wrong-type', ['effect', 'adjusted']],
     ['misspelt field', withEffect({ uper: 1.9 }), 'unknown-field', ['effect', 'uper']],
     ['missing effect', { baseline: valid.baseline }, 'required', ['effect']],
@@ -103,7 +109,7 @@ describe('parseScenario refuses, naming the field', () => {
     ['upper above the largest ratio', withEffect({ upper: 1001 }), 'out-of-range', ['effect', 'upper']],
     ['lower equal to upper', withEffect({ estimate: 1.5, lower: 1.5, upper: 1.5 }), 'interval-order', ['effect', 'lower']],
     ['estimate below its interval', withEffect({ estimate: 1.1 }), 'estimate-outside-interval', ['effect', 'estimate']],
-    ['level as a percentage', withEffect({ level: 95 }), 'invalid-choice', ['effect', 'level']],
+    ['level as a percentage', withEffect({ level: 95 }), 'out-of-range', ['effect', 'level']],
     ['design as a number', withEffect({ design: 3 }), 'invalid-choice', ['effect', 'design']],
     ['follow-up 0', withEffect({ followUpYears: 0 }), 'out-of-range', ['effect', 'followUpYears']],
     ['negative follow-up', withEffect({ followUpYears: -8 }), 'out-of-range', ['effect', 'followUpYears']],
@@ -149,5 +155,20 @@ describe('parseScenarioJson', () => {
 
   it('parses and validates JSON text', () => {
     expect(parseScenarioJson(JSON.stringify(valid)).ok).toBe(true);
+  });
+});
+
+describe('interval level and ratio bounds (issue 11 item 10, issue 14 item 14)', () => {
+  const base = { baseline: { risk: 0.08, years: 10 }, effect: { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9 } };
+  it.each([0.8, 0.9, 0.975, 0.999])('accepts the level %s', (level) => {
+    expect(parseScenario({ ...base, effect: { ...base.effect, level } }).ok).toBe(true);
+  });
+  it('accepts 0.001 and 1000 as the two ends of a ratio', () => {
+    expect(parseScenario({ ...base, effect: { measure: 'RR', estimate: 0.01, lower: 0.001, upper: 1000 } }).ok).toBe(true);
+  });
+  it('names the lower bound in the message', () => {
+    const result = parseScenario({ ...base, effect: { measure: 'RR', estimate: 1e-320, lower: 1e-321, upper: 1.9 } });
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.issues[0]?.message).toContain('at least 0.001');
   });
 });

@@ -22,7 +22,7 @@ describe('lookupStratum', () => {
   it('gives the risk and the table horizon for a risk table', () => {
     // The demo table's female 40–49 value is 0.006 (invented, lib/tables/demo.ts).
     const r = lookupStratum(DEMO_HEART_FAILURE_10Y, { age: 45, sex: 'female' });
-    expect(r).toEqual({ ok: true, value: { stratum: { sex: 'female', ageFrom: 40, ageTo: 49, risk: 0.006 }, baseline: { risk: 0.006, years: 10 } } });
+    expect(r).toEqual({ ok: true, value: { stratum: { sex: 'female', ageFrom: 40, ageTo: 49, risk: 0.006 }, baseline: { risk: 0.006, years: 10 }, prevalenceSource: 'none' } });
   });
 
   it('gives the rate and its person-years for a rate table', () => {
@@ -91,5 +91,40 @@ describe('lookupStratum', () => {
       }),
       { numRuns: 1000 },
     );
+  });
+});
+
+describe('lookupStratum with an exposure prevalence (issue 11 item 3)', () => {
+  const withTablePrevalence: PopulationTable = { ...DEMO_HEART_FAILURE_10Y, exposurePrevalence: 0.25 };
+
+  it('gives a population-average baseline when the table states the prevalence', () => {
+    const r = lookupStratum(withTablePrevalence, { age: 45, sex: 'female' });
+    expect(r.ok && r.value.baseline).toEqual({ populationRisk: 0.006, exposurePrevalence: 0.25, years: 10 });
+    expect(r.ok && r.value.prevalenceSource).toBe('table');
+  });
+
+  it('prefers the stratum’s prevalence to the table’s, and the clinician’s to both', () => {
+    const table: PopulationTable = {
+      ...withTablePrevalence,
+      strata: withTablePrevalence.strata.map((s) => (s.sex === 'female' && s.ageFrom === 40 ? { ...s, exposurePrevalence: 0.1 } : s)),
+    };
+    const byStratum = lookupStratum(table, { age: 45, sex: 'female' });
+    expect(byStratum.ok && byStratum.value.baseline).toEqual({ populationRisk: 0.006, exposurePrevalence: 0.1, years: 10 });
+    expect(byStratum.ok && byStratum.value.prevalenceSource).toBe('stratum');
+    const typed = lookupStratum(table, { age: 45, sex: 'female' }, {}, { exposurePrevalence: 0.4 });
+    expect(typed.ok && typed.value.baseline).toEqual({ populationRisk: 0.006, exposurePrevalence: 0.4, years: 10 });
+    expect(typed.ok && typed.value.prevalenceSource).toBe('clinician');
+  });
+
+  it('gives a rate with its prevalence for a rate table', () => {
+    const r = lookupStratum({ ...DEMO_CORONARY_RATE, exposurePrevalence: 0.3 }, { age: 60, sex: 'male' });
+    expect(r.ok && r.value.baseline).toEqual({ rate: 9.5, perPersonYears: 1000, exposurePrevalence: 0.3 });
+  });
+
+  it('accepts the prevalence in the table schema and refuses 1 or more', () => {
+    expect(parseTable(withTablePrevalence).ok).toBe(true);
+    expect(parseTable({ ...DEMO_HEART_FAILURE_10Y, exposurePrevalence: 1 }).ok).toBe(false);
+    const badStratum = { ...DEMO_HEART_FAILURE_10Y, strata: DEMO_HEART_FAILURE_10Y.strata.map((s, i) => (i === 0 ? { ...s, exposurePrevalence: -0.1 } : s)) };
+    expect(parseTable(badStratum).ok).toBe(false);
   });
 });

@@ -28,3 +28,16 @@ describe('clinicianText (hand-computed)', () => {
     expect(Object.values(c).filter((v) => typeof v === 'string').join(' ')).not.toMatch(/\b1 in \d+/);
   });
 });
+
+describe('a difference too small to move an icon (issue 11 item 15)', () => {
+  it('says the difference is less than one person in the picture', async () => {
+    const { computeScenario } = await import('@/lib/engine/compute');
+    const { clinicianText } = await import('@/lib/wording/clinician');
+    // Hand-computed: P0 0.081, P1 = 1.04 × 0.081 = 0.08424; round(8.1) = round(8.424) = 8 of 100; NNTH 1/0.00324 = 309.
+    const r = computeScenario({ baseline: { risk: 0.081, years: 10 }, effect: { measure: 'RR', estimate: 1.04, lower: 1.01, upper: 1.07 }, denominator: 100 });
+    if (!r.ok) throw new Error('expected a result');
+    expect(r.value.iconArray.exposedEvents).toBe(8);
+    expect(r.value.iconArray.referenceEvents).toBe(8);
+    expect(clinicianText(r.value).numberNeeded).toContain('The difference is less than one person in the picture of 100.');
+  });
+});

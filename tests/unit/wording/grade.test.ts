@@ -66,8 +66,12 @@ describe('default patient text is at or below grade 8', () => {
   );
 
   it('covers every demo entry and table', () => {
-    expect(demo.length).toBe(DEMO_EVIDENCE.length * DEMO_TABLES.reduce((n, t) => n + t.strata.length, 0));
-    expect(demo.length).toBeGreaterThan(0);
+    // Literal counts, so a scenario the loop dropped would fail (issue 11): lib/evidence/demo.ts holds 3
+    // entries; lib/tables/demo.ts holds 10 + 10 + 5 strata. Hand-computed 3 × 25 = 75.
+    expect(DEMO_EVIDENCE).toHaveLength(3);
+    expect(DEMO_TABLES.map((t) => t.strata.length)).toEqual([10, 10, 5]);
+    expect(demo).toHaveLength(75);
+    expect(new Set(demo.map(([name]) => name)).size).toBe(75);
   });
 
   it.each(demo)('demo scenario: %s', (_name, scenario, people) => {
