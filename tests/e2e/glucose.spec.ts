@@ -185,7 +185,7 @@ test('a pasted history with a gap of more than 18 months shows the mismatch, why
   const match = view.match;
   if (!match?.warning) throw new Error('the gapped history must not fit the exposure');
   expect(match.warning.code).toBe('exposure-mismatch');
-  expect(match.reasons[0]).toMatch(/needed 3 yearly results in the prediabetes range \(ADA\); this history has 2\b/);
+  expect(match.reasons[0]).toMatch(/needed 3 yearly results in the prediabetes range \(ADA, by HbA1c\); this history has 2\b/);
   expect(match.reasons.join(' ')).toMatch(/gap of \d+ months .*more than 18 months/);
   const history = page.getByTestId('glucose-history');
   await paste(page, GAPPED);
