@@ -206,7 +206,8 @@ export function consultationView(input: ConsultationViewInput): ConsultationView
   const mismatch = outcomeMismatch(context.table?.outcome, scenario.wording?.outcome);
   const clinician = clinicianText(result, scenario.wording);
   const rangeNote = extra.find((w) => w.code === 'diabetes-range-latest');
-  const warnings = [...clinician.warnings, ...extra.filter((w) => w !== rangeNote), ...(mismatch ? [mismatch] : [])];
+  // The range note is shown beside the result and also stays in the clinician's list of warnings.
+  const warnings = [...clinician.warnings, ...extra, ...(mismatch ? [mismatch] : [])];
 
   const text = textFor(scenario, result, context, sentencesReady);
   let patient: PatientPanelView | undefined;
