@@ -51,6 +51,8 @@ import {
 } from '../../workforce';
 import { complain, EXIT_OK, EXIT_SOME_FAILED, readAll, type CommandIo } from '../io';
 import { writeText } from './scenarioInput';
+// One cell writer (with the spreadsheet-formula guard of lib/export) for the command and the screen.
+import { csvCell } from '../../checkups/exportCsv';
 
 export const CHECKUPS_USAGE = `Usage: hundredfold checkups FILE... --criteria ADA|WHO|NICE
          (--table FILE.csv | --table-id ID) (--evidence FILE.json | --evidence-id ID)
@@ -236,13 +238,6 @@ export function workerRecord(result: WorkerResult): Record<string, unknown> {
 }
 
 /** A CSV cell: quoted when needed; text a spreadsheet would take as a formula is written as text (a leading '). */
-function csvCell(value: string | number | null): string {
-  if (value === null) return '';
-  if (typeof value === 'number') return String(value);
-  const safe = /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
-  return /[",\n\r;]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-}
-
 const CSV_COLUMNS = [
   'worker',
   'age',
