@@ -249,6 +249,9 @@ export function ConsultationScreen({
                 Clear the form
               </button>
             </div>
+            <a className="see-result" href="#result" data-testid="see-result">
+              {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
+            </a>
             {cleared ? (
               <p className="cleared" role="status" data-testid="cleared">
                 The form was cleared.{' '}
@@ -265,9 +268,6 @@ export function ConsultationScreen({
             <Settings />
           </form>
           <Glucose history={glucose} />
-          <a className="see-result" href="#result" data-testid="see-result">
-            {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
-          </a>
           <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
         </div>
         <div className="screen__result">
