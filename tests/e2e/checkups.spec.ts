@@ -30,6 +30,7 @@ function commandSummary(file: string): WorkforceSummary {
 
 async function openAndProcess(page: Page, file: { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
   await page.goto('/checkups');
+  await expect(page.getByLabel(/Checkup file/)).toBeEnabled(); // the page has hydrated
   await page.getByLabel(/Checkup file/).setInputFiles(file);
   await expect(page.getByTestId('columns')).toBeVisible();
   await page.getByRole('button', { name: 'Confirm the columns and process' }).click();
@@ -48,6 +49,7 @@ test('the demo file: columns shown, processed in the worker, the summary equals 
   await page.goto('/');
   await page.getByRole('link', { name: /Workforce checkups/ }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Workforce checkups' })).toBeVisible();
+  await expect(page.getByLabel(/Checkup file/)).toBeEnabled(); // the page has hydrated
   await page.getByLabel(/Checkup file/).setInputFiles(DEMO);
   const columns = page.getByTestId('columns');
   await expect(columns).toBeVisible();
@@ -99,6 +101,7 @@ test('a file with bad rows lists them with row and column and processes the rest
 
 test('a PDF renamed .csv gets one sentence and nothing else', async ({ page }) => {
   await page.goto('/checkups');
+  await expect(page.getByLabel(/Checkup file/)).toBeEnabled(); // the page has hydrated
   await page.getByLabel(/Checkup file/).setInputFiles({ name: 'checkups.csv', mimeType: 'text/csv', buffer: Buffer.from('%PDF-1.7\n%\u00e2\u00e3\n1 0 obj\n') });
   await expect(page.getByTestId('file-message')).toHaveText(/^This file is a PDF document, not a table of checkups: open a CSV or TSV file/);
   await expect(page.getByTestId('columns')).toHaveCount(0);

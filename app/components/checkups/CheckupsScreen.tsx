@@ -4,7 +4,7 @@
  * the worklist and the summary. Everything shown comes from lib/workforce and lib/checkups; the
  * file stays in this page's memory and is never sent anywhere.
  */
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
 import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
 import { DEMO_TABLES } from '@/lib/tables/demo';
 import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
@@ -20,6 +20,9 @@ import { SummaryPanel } from './SummaryPanel';
 import { ProblemsPanel } from './ProblemsPanel';
 import './checkups.css';
 
+/** Nothing to listen to: the value only differs between the server's HTML and the browser. */
+const subscribeNothing = () => () => {};
+
 const CRITERIA = ['ADA', 'WHO', 'NICE'] as const;
 
 function localToday(): string {
@@ -30,6 +33,8 @@ function localToday(): string {
 type Phase = 'setup' | 'columns' | 'running' | 'done';
 
 export function CheckupsScreen() {
+  // False in the server's HTML, true once the page runs: the file input waits for its handler.
+  const ready = useSyncExternalStore(subscribeNothing, () => true, () => false);
   const [evidenceId, setEvidenceId] = useState('demo-workforce-hba1c-heart-failure');
   const [tableId, setTableId] = useState('demo-heart-failure-10y');
   const [criteria, setCriteria] = useState<string>('ADA');
@@ -238,7 +243,7 @@ export function CheckupsScreen() {
         >
           <label>
             Checkup file (CSV, TSV, .xlsx or FHIR .ndjson; up to 100 MB) — or drop it here
-            <input type="file" multiple accept=".csv,.tsv,.txt,.xlsx,.ndjson,.jsonl" onChange={(e) => void openFiles([...(e.target.files ?? [])])} />
+            <input type="file" multiple disabled={!ready} accept=".csv,.tsv,.txt,.xlsx,.ndjson,.jsonl" onChange={(e) => void openFiles([...(e.target.files ?? [])])} />
           </label>
         </div>
         <label className="checkups__paste">
