@@ -7,7 +7,7 @@ export default function Home() {
     <main id="main">
       <ConsultationScreen />
       <p className="home__checkups-link">
-        <Link href="/checkups">Workforce checkups: a whole workforce&rsquo;s checkup file</Link>
+        <Link href="/checkups" prefetch={false}>Workforce checkups: a whole workforce&rsquo;s checkup file</Link>
       </p>
     </main>
   );
