@@ -19,6 +19,8 @@ export const STORES = {
   evidence: 'evidence',
   /** What is left of deleted records ({@link StoredTombstone}), by `<store>/<id>`, so a stale save cannot bring one back. */
   tombstones: 'tombstones',
+  /** Handout templates ({@link StoredTemplate}), by template id. */
+  templates: 'templates',
 } as const;
 export type StoreName = (typeof STORES)[keyof typeof STORES];
 
@@ -49,6 +51,12 @@ export const UPGRADE_STEPS: readonly UpgradeStep[] = [
     // Revisions and tombstones (./policy.ts); records are brought to format 2 when read.
     version: 2,
     createStores: [{ name: STORES.tombstones, keyPath: 'key' }],
+    deleteStores: [],
+  },
+  {
+    // Handout templates join the library (they were kept in localStorage before).
+    version: 3,
+    createStores: [{ name: STORES.templates, keyPath: 'id' }],
     deleteStores: [],
   },
 ];

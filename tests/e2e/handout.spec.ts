@@ -138,16 +138,63 @@ test('templates: save, survive a reload, refuse a bad file without changing what
   await expect(page.getByTestId('handout-sheet')).toContainText('Your heart numbers');
   await expect(page.getByTestId('handout-sheet')).toContainText('Harbour Lane Clinic');
 
-  const saved = await page.evaluate(() => window.localStorage.getItem('hundredfold.handout-templates'));
+  // Templates live in the browser library (IndexedDB) since issue 14's revisions; the saved list is what the picker offers.
+  const picker = page.getByLabel('Saved templates', { exact: true }).locator('option');
+  const saved = await picker.allTextContents();
+  expect(saved).toEqual(['Choose a template', 'Heart clinic']);
   await page.getByLabel('Import templates (JSON file)', { exact: true }).setInputFiles({
     name: 'bad.json',
     mimeType: 'application/json',
     buffer: Buffer.from(JSON.stringify({ format: 'hundredfold-handout-templates', version: 1, templates: [{ name: 'Broken', blocks: { title: 7 } }] })),
   });
   await expect(page.getByRole('alert').filter({ hasText: 'Template 1' })).toContainText('Template 1 ("Broken"): The title must be text');
-  expect(await page.evaluate(() => window.localStorage.getItem('hundredfold.handout-templates'))).toBe(saved);
+  await expect(page.getByRole('status').filter({ hasText: 'The file was not imported; nothing saved was changed.' })).toBeVisible();
+  expect(await picker.allTextContents()).toEqual(saved);
 
   const download = page.waitForEvent('download');
   await page.getByRole('button', { name: 'Export templates' }).click();
   expect((await download).suggestedFilename()).toBe('hundredfold-handout-templates.json');
+});
+
+test('templates in two tabs: the other tab lists a change at once; a stale save is refused; a deleted template stays deleted', async ({ page }) => {
+  // Two pages of one context share one IndexedDB, as two tabs do (issue 14 item 1, for templates).
+  await openHandout(page, demoScenario(60));
+  const other = await page.context().newPage();
+  await openHandout(other, demoScenario(60));
+  const pickerA = page.getByLabel('Saved templates', { exact: true });
+  const pickerB = other.getByLabel('Saved templates', { exact: true });
+
+  await page.getByLabel('Title', { exact: true }).fill('First version');
+  await page.getByLabel('Template name', { exact: true }).fill('Shared');
+  await page.getByRole('button', { name: 'Save as template' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Saved the template "Shared".' })).toBeVisible();
+  // Tab B's list refreshed by itself; both tabs take the template up at its first revision.
+  await expect(pickerB.locator('option', { hasText: 'Shared' })).toHaveCount(1);
+  await pickerB.selectOption({ label: 'Shared' });
+  await other.getByRole('button', { name: 'Use template' }).click();
+  await pickerA.selectOption({ label: 'Shared' });
+  await page.getByRole('button', { name: 'Use template' }).click();
+
+  await page.getByLabel('Title', { exact: true }).fill('Changed in tab A');
+  await page.getByRole('button', { name: 'Save as template' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Saved the template "Shared".' })).toBeVisible();
+
+  await other.getByLabel('Title', { exact: true }).fill('Changed in tab B');
+  await other.getByLabel('Template name', { exact: true }).fill('Shared');
+  await other.getByRole('button', { name: 'Save as template' }).click();
+  await expect(other.getByRole('alert').filter({ hasText: 'Not saved' })).toContainText('Not saved: the template “Shared” was changed in another tab or window after you took it up');
+  // Tab A's change was kept.
+  await pickerB.selectOption({ label: 'Shared' });
+  await other.getByRole('button', { name: 'Use template' }).click();
+  await expect(other.getByTestId('handout-sheet')).toContainText('Changed in tab A');
+
+  // Deleted in tab A while tab B holds it: tab B's save is refused and nothing comes back.
+  await pickerA.selectOption({ label: 'Shared' });
+  await page.getByRole('button', { name: 'Delete template' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Deleted the template "Shared".' })).toBeVisible();
+  await expect(pickerB.locator('option', { hasText: 'Shared' })).toHaveCount(0);
+  await other.getByRole('button', { name: 'Save as template' }).click();
+  await expect(other.getByRole('alert').filter({ hasText: 'Not saved' })).toContainText('Not saved: the template “Shared” was deleted in another tab or window after you took it up');
+  await expect(pickerA.locator('option', { hasText: 'Shared' })).toHaveCount(0);
+  await expect(pickerB.locator('option', { hasText: 'Shared' })).toHaveCount(0);
 });

@@ -20,8 +20,8 @@ const LATER = new Date('2025-03-02T11:30:00.000Z');
 
 describe('database layout', () => {
   it('version 1 creates the three stores, each keyed by id', () => {
-    // Version 2 (revisions and tombstones) was added after this test was written; version 1 is unchanged.
-    expect(DB_VERSION).toBe(2);
+    // Versions 2 (revisions and tombstones) and 3 (templates) were added after this test was written; version 1 is unchanged.
+    expect(DB_VERSION).toBe(3);
     expect(upgradeStepsBetween(0, 1)).toEqual([
       {
         version: 1,
@@ -40,11 +40,20 @@ describe('database layout', () => {
     expect(upgradeStepsBetween(1, 2)).toEqual([{ version: 2, createStores: [{ name: STORES.tombstones, keyPath: 'key' }], deleteStores: [] }]);
   });
 
+  it('the real steps are versions 1, 2, 3 in order', () => {
+    expect(UPGRADE_STEPS.map((s) => s.version)).toEqual([1, 2, 3]);
+  });
+
+  it('version 3 adds the handout template store, keyed by id', () => {
+    expect(upgradeStepsBetween(2, 3)).toEqual([{ version: 3, createStores: [{ name: STORES.templates, keyPath: 'id' }], deleteStores: [] }]);
+  });
+
   it('applies only the steps between two versions, oldest first', () => {
-    // Made-up later versions 3 and 4 (the real steps now go up to 2), listed out of order.
+    // Made-up steps 1 to 4 (not the real ones, which grow), listed out of order.
     const steps: UpgradeStep[] = [
       { version: 4, createStores: [], deleteStores: [] },
-      ...UPGRADE_STEPS,
+      { version: 2, createStores: [], deleteStores: [] },
+      { version: 1, createStores: [], deleteStores: [] },
       { version: 3, createStores: [], deleteStores: [] },
     ];
     expect(upgradeStepsBetween(2, 4, steps).map((s) => s.version)).toEqual([3, 4]);
