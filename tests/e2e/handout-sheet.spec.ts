@@ -11,32 +11,17 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import { HANDOUT_HISTORY_KEY, handOverRecord } from '@/lib/handout';
 import { scenarioQuery } from '@/lib/link';
 import type { Scenario } from '@/lib/scenario/schema';
-import { baselineOf, DEMO_HEART_FAILURE_10Y } from '@/lib/tables';
 import { CAUTION_HEADING } from '@/lib/wording';
 import { TYPED_SCENARIO } from './support';
+import { demoScenario, openHandout, squash } from './handoutSupport';
 
 const OUT = path.join('test-results', 'handout-sheet');
 mkdirSync(OUT, { recursive: true });
 const AXE_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
 const SCHEMA_TEXT = /[{}]|expected|Invalid input|received|undefined/;
-
-function demoScenario(ageFrom: number): Scenario {
-  const stratum = DEMO_HEART_FAILURE_10Y.strata.find((s) => s.sex === 'female' && s.ageFrom === ageFrom);
-  if (!stratum) throw new Error(`no demo stratum for women ${ageFrom}`);
-  const entry = DEMO_WORKFORCE_HBA1C_HEART_FAILURE;
-  return {
-    baseline: baselineOf(DEMO_HEART_FAILURE_10Y, stratum),
-    effect: entry.effect,
-    horizonYears: 10,
-    wording: entry.wording,
-    person: { age: ageFrom + 3, sex: 'female' },
-    tableId: DEMO_HEART_FAILURE_10Y.id,
-  };
-}
 
 /** Women 60–69 (100 people in the pictures) and 40–49 (a small risk, so 1,000). */
 const DEMOS = [
@@ -51,15 +36,6 @@ const LAYOUTS = [
   { key: 'standard', label: 'Standard: pictures beside the words' },
   { key: 'large', label: 'Large pictures (at least 6 cm wide)' },
 ] as const;
-
-function squash(text: string): string {
-  return text.replace(/\s+/g, ' ').trim();
-}
-
-async function openHandout(page: Page, scenario: Scenario) {
-  await page.goto(`/handout${scenarioQuery(scenario)}`);
-  await expect(page.getByTestId('handout-sheet')).toBeVisible();
-}
 
 /** Prints the page, checks it is one page, saves a PNG to look at, returns the text (drawing order) and the raw lines. */
 async function printOnePage(page: Page, base: string): Promise<{ text: string; lines: string[] }> {

@@ -9,30 +9,13 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import { computeScenario } from '@/lib/engine/compute';
-import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
-import { scenarioFragment } from '@/lib/link';
-import type { Scenario } from '@/lib/scenario/schema';
-import { baselineOf, DEMO_HEART_FAILURE_10Y } from '@/lib/tables';
 import { CAUTION_TEXT } from '@/lib/wording';
+import { demoScenario, openHandout, squash } from './handoutSupport';
 
 const OUT = path.join('test-results', 'handout');
 mkdirSync(OUT, { recursive: true });
-
-function demoScenario(ageFrom: number): Scenario {
-  const stratum = DEMO_HEART_FAILURE_10Y.strata.find((s) => s.sex === 'female' && s.ageFrom === ageFrom);
-  if (!stratum) throw new Error(`no demo stratum for women ${ageFrom}`);
-  const entry = DEMO_WORKFORCE_HBA1C_HEART_FAILURE;
-  return {
-    baseline: baselineOf(DEMO_HEART_FAILURE_10Y, stratum),
-    effect: entry.effect,
-    horizonYears: 10,
-    wording: entry.wording,
-    person: { age: ageFrom + 3, sex: 'female' },
-    tableId: DEMO_HEART_FAILURE_10Y.id,
-  };
-}
 
 /** Women 60–69 (D = 100) and women 40–49 (a small risk, so D = 1,000) from the demo table. */
 const DEMOS = [
@@ -44,15 +27,6 @@ const PAPERS = [
   { key: 'a4', label: 'A4', widthPt: 595.28, heightPt: 841.89 },
   { key: 'letter', label: 'US Letter', widthPt: 612, heightPt: 792 },
 ] as const;
-
-function squash(text: string): string {
-  return text.replace(/\s+/g, ' ').trim();
-}
-
-async function openHandout(page: Page, scenario: Scenario) {
-  await page.goto(`/handout${scenarioFragment(scenario)}`);
-  await expect(page.getByTestId('handout-sheet')).toBeVisible();
-}
 
 for (const demo of DEMOS) {
   for (const paper of PAPERS) {
