@@ -28,9 +28,10 @@ import { parseTableCsv } from '../../tables/csv';
 import type { PopulationTable } from '../../tables/schema';
 import {
   createCheckupTextReader,
-  DelimitedSplitter,
+  ColumnScanner,
   GroupingCheck,
-  type CellLine,
+  RunCounter,
+  type Delimiter,
   evaluateWorker,
   isRefusal,
   noUsableRows,
@@ -317,8 +318,8 @@ async function sniffKind(file: string): Promise<Kind | string> {
   }
 }
 
-async function* fileChunks(file: string): AsyncGenerator<string> {
-  const stream = createReadStream(file, { encoding: 'utf8', highWaterMark: 1 << 20 });
+async function* fileChunks(file: string, chunkBytes = 1 << 20): AsyncGenerator<string> {
+  const stream = createReadStream(file, { encoding: 'utf8', highWaterMark: chunkBytes });
   for await (const chunk of stream) yield chunk as string;
 }
 
@@ -362,27 +363,25 @@ function strataNames(header: HeaderInfo | null): string[] {
   return header ? header.proposal.mapping.columns.filter((c) => c.field === 'stratum' && c.stratum !== null).map((c) => c.stratum as string) : [];
 }
 
+/** The worker column of a CSV/TSV file and where its data rows start, found as the checkup reader finds them. */
+interface WorkerColumn {
+  readonly delimiter: Delimiter;
+  readonly index: number;
+  readonly headerLine: number;
+}
+
 /**
- * Pass 1 for a CSV/TSV file: is it grouped by worker? Finds the header with a checkup reader,
- * then only splits lines and looks at the worker column (about the cost of reading the file).
+ * One quick pass over the worker column (./delimited.ts ColumnScanner: lines cut, no row
+ * checked), feeding each data row's trimmed worker id to `add`; false when the header cannot be
+ * read or `add` said stop.
  */
-async function isGrouped(file: string, options: { today: string; overrides: MappingOverrides }): Promise<boolean> {
+async function scanWorkerIds(file: string, options: { today: string; overrides: MappingOverrides }, add: (id: string) => boolean): Promise<boolean> {
   const probe = createCheckupTextReader(options);
-  const check = new GroupingCheck();
-  let splitter: DelimitedSplitter | null = null;
-  let headerLine = 0;
-  let workerIndex = -1;
+  let column: WorkerColumn | null = null;
+  let scanner: ColumnScanner | null = null;
   let buffered = '';
-  const feed = (lines: readonly CellLine[]) => {
-    for (const l of lines) {
-      if (l.line <= headerLine) continue;
-      const id = (l.cells[workerIndex] ?? '').trim();
-      if (id !== '' && !check.add(id)) return false;
-    }
-    return true;
-  };
   for await (const chunk of fileChunks(file)) {
-    if (splitter === null) {
+    if (scanner === null) {
       buffered += chunk;
       const step = probe.push(chunk);
       if (isRefusal(step)) return false;
@@ -390,17 +389,36 @@ async function isGrouped(file: string, options: { today: string; overrides: Mapp
       if (header === null) continue;
       const worker = header.proposal.mapping.columns.find((c) => c.field === 'worker');
       if (!worker) return false;
-      splitter = new DelimitedSplitter(header.delimiter);
-      headerLine = header.headerLine;
-      workerIndex = worker.index;
-      if (!feed(splitter.push(buffered))) return false;
+      column = { delimiter: header.delimiter, index: worker.index, headerLine: header.headerLine };
+      const headerLine = column.headerLine;
+      scanner = new ColumnScanner(column.delimiter, column.index, (cell, line) => {
+        if (line <= headerLine) return true;
+        const id = cell.trim();
+        return id === '' || add(id);
+      });
+      if (!scanner.push(buffered.charCodeAt(0) === 0xfeff ? buffered.slice(1) : buffered)) return false;
       buffered = '';
       continue;
     }
-    if (!feed(splitter.push(chunk))) return false;
+    if (!scanner.push(chunk)) return false;
   }
-  if (splitter === null) return false;
-  return feed(splitter.end());
+  return scanner !== null && scanner.end();
+}
+
+/**
+ * Pass 1 for a CSV/TSV file: is it grouped by worker? Looks only at the worker column (about the
+ * cost of reading the file). When the Bloom filter of finished workers answers "seen" for some
+ * ids (./group.ts GroupingCheck: rare, and only in very large files), one more quick pass counts
+ * those ids' runs exactly. Returns the ids so cleared (for the StreamingGrouper), or null when
+ * the file is not grouped (then it is read whole).
+ */
+async function groupedIds(file: string, options: { today: string; overrides: MappingOverrides }): Promise<ReadonlySet<string> | null> {
+  const check = new GroupingCheck();
+  if (!(await scanWorkerIds(file, options, (id) => check.add(id)))) return null;
+  if (check.suspects.size === 0) return check.suspects;
+  const runs = new RunCounter(check.suspects);
+  if (!(await scanWorkerIds(file, options, (id) => runs.add(id)))) return null;
+  return check.suspects;
 }
 
 export async function checkups(io: CommandIo): Promise<number> {
@@ -480,15 +498,15 @@ export async function checkups(io: CommandIo): Promise<number> {
       return complain(io, `checkups: ${readProblem(file, error)}`);
     }
   } else {
-    let grouped = false;
+    let confirmed: ReadonlySet<string> | null = null;
     if (file !== '-') {
       try {
-        grouped = await isGrouped(file, reader);
+        confirmed = await groupedIds(file, reader);
       } catch (error) {
         return complain(io, `checkups: ${readProblem(file, error)}`);
       }
     }
-    if (grouped) outcome = await streamGrouped(file, context, reader, { onWorker, onProblems: (p) => problems.add(p), pause, setHeader: onHeader });
+    if (confirmed) outcome = await streamGrouped(file, context, reader, confirmed, { onWorker, onProblems: (p) => problems.add(p), pause, setHeader: onHeader });
     else {
       const source = file === '-' ? [await readAll(io.stdin)] : fileChunks(file);
       try {
@@ -521,6 +539,18 @@ export async function checkups(io: CommandIo): Promise<number> {
   return summary.rows.skipped > 0 ? EXIT_SOME_FAILED : EXIT_OK;
 }
 
+/**
+ * The first pass found the file grouped by worker, but a worker's rows came back after another
+ * worker's in the second: the file changed between the passes. Lines already written stand; the
+ * rest is refused.
+ */
+function changedWhileRead(line: number): CheckupsOutcome {
+  return {
+    ok: false,
+    refusal: { refused: true, code: 'unreadable', message: `the file changed while it was read (row ${line} belongs to a worker whose rows ended earlier); run the command again`, problems: [] },
+  };
+}
+
 interface StreamHooks {
   readonly onWorker: (result: WorkerResult) => void;
   readonly onProblems: (problems: readonly RowProblem[]) => void;
@@ -529,9 +559,15 @@ interface StreamHooks {
 }
 
 /** Pass 2 for a grouped file: each worker evaluated as soon as the next worker's row arrives. */
-async function streamGrouped(file: string, context: CheckupsContext, options: { today: string; overrides: MappingOverrides }, hooks: StreamHooks): Promise<CheckupsOutcome> {
+async function streamGrouped(
+  file: string,
+  context: CheckupsContext,
+  options: { today: string; overrides: MappingOverrides },
+  confirmed: ReadonlySet<string>,
+  hooks: StreamHooks,
+): Promise<CheckupsOutcome> {
   const reader = createCheckupTextReader(options);
-  const grouper = new StreamingGrouper();
+  const grouper = new StreamingGrouper(confirmed);
   const summary = new SummaryAccumulator();
   let extraSkipped = 0;
   let problemCount = 0;
@@ -552,7 +588,7 @@ async function streamGrouped(file: string, context: CheckupsContext, options: { 
       hooks.onWorker(result);
     }
   };
-  for await (const chunk of fileChunks(file)) {
+  for await (const chunk of fileChunks(file, Number(process.env.HF_CHUNK ?? 1 << 20))) {
     const step = reader.push(chunk);
     if (isRefusal(step)) return { ok: false, refusal: step };
     if (step.problems.length > 0) {
@@ -560,6 +596,7 @@ async function streamGrouped(file: string, context: CheckupsContext, options: { 
       hooks.onProblems(step.problems);
     }
     evaluate(grouper.add(step.rows));
+    if (grouper.ungrouped) return changedWhileRead(grouper.ungrouped.line);
     await hooks.pause();
   }
   const last = reader.end();
@@ -568,7 +605,9 @@ async function streamGrouped(file: string, context: CheckupsContext, options: { 
     problemCount += last.problems.length;
     hooks.onProblems(last.problems);
   }
-  evaluate([...grouper.add(last.rows), ...grouper.end()]);
+  evaluate(grouper.add(last.rows));
+  if (grouper.ungrouped) return changedWhileRead(grouper.ungrouped.line);
+  evaluate(grouper.end());
   const counts = reader.counts();
   const empty = noUsableRows(counts);
   if (empty) return { ok: false, refusal: empty };
