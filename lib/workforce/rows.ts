@@ -215,15 +215,26 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
   const numbers = new TextMemo<number | CellProblem>((text) => readNumberCell(text, decimalComma));
   const sexes = new TextMemo((text) => readSexCell(text));
   const units = { hba1c: new TextMemo((text) => unitCell(text, 'hba1c')), fpg: new TextMemo((text) => unitCell(text, 'fpg')) };
-  const checkReading = (test: 'hba1c' | 'fpg', key: string): Reading<Hba1cUnitName | FpgUnitName> | CellProblem => {
-    const at = key.indexOf(' ');
-    const value = Number(key.slice(0, at));
-    const unit = key.slice(at + 1);
+  /** A value cell in a known unit → the reading, or why not (not a number, or out of range for the unit). */
+  const checkReading = (test: 'hba1c' | 'fpg', cell: CellValue | undefined, unit: Hba1cUnitName | FpgUnitName): Reading<Hba1cUnitName | FpgUnitName> | CellProblem => {
+    const value = readNumberCell(cell, decimalComma);
+    if (typeof value !== 'number') return value;
     const parsed = (test === 'hba1c' ? hba1cReadingSchema : fpgReadingSchema).safeParse({ value, unit });
     if (!parsed.success) return { code: 'out-of-range', message: parsed.error.issues[0]?.message ?? 'the value is not usable' };
     return parsed.data;
   };
-  const readings = { hba1c: new TextMemo((key) => checkReading('hba1c', key)), fpg: new TextMemo((key) => checkReading('fpg', key)) };
+  /** One memo per test and unit, keyed by the cell's text. */
+  const readingMemos = new Map<string, TextMemo<Reading<Hba1cUnitName | FpgUnitName> | CellProblem>>();
+  const readingOf = (test: 'hba1c' | 'fpg', cell: CellValue | undefined, unit: Hba1cUnitName | FpgUnitName) => {
+    if (typeof cell !== 'string') return checkReading(test, cell, unit);
+    const name = `${test} ${unit}`;
+    let memo = readingMemos.get(name);
+    if (!memo) {
+      memo = new TextMemo((text) => checkReading(test, text, unit));
+      readingMemos.set(name, memo);
+    }
+    return memo.get(cell);
+  };
   const numberOf = (cell: CellValue | undefined): number | CellProblem => (typeof cell === 'string' ? numbers.get(cell) : readNumberCell(cell, decimalComma));
 
   function read(cells: readonly CellValue[], line: number): RowOutcome {
@@ -253,23 +264,24 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
       if (!column) return undefined;
       const cell = cells[column.index];
       if (cellText(cell) === '') return undefined;
-      const value = numberOf(cell);
-      if (typeof value !== 'number') {
-        problem(column, value.code, value.message);
-        return undefined;
-      }
       let unit = column.unit;
       if (unit === null) {
         const unitCellValue = cells[unitColumn?.index ?? -1];
         unit = typeof unitCellValue === 'string' ? units[test].get(unitCellValue) : unitCell(unitCellValue, test);
         if (unit === null) {
+          // A value that is not a number is reported as such before its missing unit.
+          const value = numberOf(cell);
+          if (typeof value !== 'number') {
+            problem(column, value.code, value.message);
+            return undefined;
+          }
           const allowed = test === 'hba1c' ? '% or mmol/mol' : 'mmol/L or mg/dL';
           const text = cellText(unitCellValue);
           problem(unitColumn ?? column, 'unit-unknown', text === '' ? `the unit is empty; write ${allowed}` : `"${text.slice(0, 20)}" is not a unit of this test; write ${allowed}`);
           return undefined;
         }
       }
-      const checked = readings[test].get(`${value} ${unit}`);
+      const checked = readingOf(test, cell, unit);
       if ('code' in checked) {
         problem(column, checked.code, checked.message);
         return undefined;
