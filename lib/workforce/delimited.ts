@@ -104,7 +104,10 @@ export class DelimitedSplitter {
       this.nextLine = line;
       return out;
     }
-    const parsed = Papa.parse<string[]>(block.replace(/(\r\n|\n|\r)$/, ''), { delimiter: this.delimiter, header: false, skipEmptyLines: false });
+    const body = block.replace(/(\r\n|\n|\r)$/, '');
+    // papaparse gives no row at all for empty text: a lone blank line is still a line.
+    if (body === '') return [{ line: this.nextLine++, cells: [''] }];
+    const parsed = Papa.parse<string[]>(body, { delimiter: this.delimiter, header: false, skipEmptyLines: false });
     for (const cells of parsed.data) {
       const line = this.nextLine;
       let breaks = 0;

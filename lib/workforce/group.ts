@@ -47,7 +47,7 @@ export class BloomFilter {
     private readonly hashes = 7,
   ) {
     this.size = 2 ** bitsLog2;
-    this.bits = new Uint32Array(this.size / 32);
+    this.bits = new Uint32Array(Math.ceil(this.size / 32));
   }
 
   /** The two hashes of a text (into h1, h2: no allocation per call). */
@@ -63,8 +63,9 @@ export class BloomFilter {
     this.h2 = (h2 | 1) >>> 0;
   }
 
+  /** Bit k of the text: (h1 + k·h2) mod 2^32, then mod the size (never negative, never past the end). */
   private position(k: number): number {
-    return (this.h1 + Math.imul(k, this.h2)) % this.size >>> 0;
+    return ((this.h1 + Math.imul(k, this.h2)) >>> 0) % this.size;
   }
 
   add(text: string): void {
@@ -85,8 +86,12 @@ export class BloomFilter {
   }
 }
 
-/** Most ids {@link GroupingCheck} keeps to confirm; past that the file is taken as not grouped (read whole). */
-export const MAX_SUSPECTS = 100_000;
+/**
+ * Most ids {@link GroupingCheck} keeps to confirm; past that the file is taken as not grouped (read
+ * whole). A grouped file of a million workers gives about 500 (2^24 bits, 7 hashes); an ungrouped
+ * one reaches this soon.
+ */
+export const MAX_SUSPECTS = 10_000;
 
 /**
  * Whether worker ids arrive grouped (each worker's rows together), fed one id per row; for a
@@ -101,10 +106,15 @@ export const MAX_SUSPECTS = 100_000;
  */
 export class GroupingCheck {
   private current: string | null = null;
-  private readonly done = new BloomFilter();
+  private readonly done: BloomFilter;
   /** Ids the filter says came before: each may be a false "seen"; confirm with {@link countRuns}. */
   readonly suspects = new Set<string>();
   grouped = true;
+
+  /** @param bitsLog2 - the filter's size (2^bitsLog2 bits); the same as the StreamingGrouper's that follows */
+  constructor(bitsLog2 = 24) {
+    this.done = new BloomFilter(bitsLog2);
+  }
 
   /** Feeds the next row's worker id; false once the file is known not to be grouped. */
   add(worker: string): boolean {
@@ -150,6 +160,9 @@ export class RunCounter {
  *
  * @param confirmed - ids a first pass confirmed to have one run each ({@link GroupingCheck}
  *   suspects that {@link RunCounter} cleared): the Bloom filter's "seen" for them is false.
+ *   The filter holds only ids of rows that were read, a subset of the first pass's, so each
+ *   "seen" it gives for a new id the first pass gave too (same size, same hashes).
+ * @param bitsLog2 - the filter's size; the same as the GroupingCheck's
  *
  * @example
  * const g = new StreamingGrouper();
@@ -158,11 +171,16 @@ export class RunCounter {
  */
 export class StreamingGrouper {
   private current: { worker: string; rows: CheckupRow[] } | null = null;
-  private readonly done = new BloomFilter();
+  private readonly done: BloomFilter;
   /** Set when a finished worker's id appears again: the file is not grouped by worker. */
   ungrouped: { readonly worker: string; readonly line: number } | null = null;
 
-  constructor(private readonly confirmed: ReadonlySet<string> = new Set()) {}
+  constructor(
+    private readonly confirmed: ReadonlySet<string> = new Set(),
+    bitsLog2 = 24,
+  ) {
+    this.done = new BloomFilter(bitsLog2);
+  }
 
   /** The workers completed by these rows. Once {@link ungrouped} is set, nothing more is handed over. */
   add(rows: readonly CheckupRow[]): WorkerRows[] {

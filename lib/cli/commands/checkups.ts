@@ -50,7 +50,7 @@ import {
   type WorkerRows,
   type WorkforceSummary,
 } from '../../workforce';
-import { complain, EXIT_OK, EXIT_SOME_FAILED, readAll, type CommandIo } from '../io';
+import { complain, EXIT_OK, EXIT_SOME_FAILED, streamTextChunks, type CommandIo } from '../io';
 import { writeText } from './scenarioInput';
 // One cell writer (with the spreadsheet-formula guard of lib/export) for the command and the screen.
 import { csvCell } from '../../checkups/exportCsv';
@@ -541,10 +541,11 @@ export async function checkups(io: CommandIo): Promise<number> {
     }
     if (confirmed) outcome = await streamGrouped(file, context, reader, confirmed, { onWorker, onProblems: (p) => problems.add(p), pause, setHeader: onHeader });
     else {
-      const source = file === '-' ? [await readAll(io.stdin)] : fileChunks(file);
+      const source = file === '-' ? streamTextChunks(io.stdin, 'standard input') : fileChunks(file);
       try {
         outcome = await runCheckups(source, { context, reader, format: 'delimited', onHeader, onWorker, onProblems: (p) => problems.add(p), pause });
       } catch (error) {
+        if (file === '-') return complain(io, `checkups: ${error instanceof Error ? error.message : String(error)}`);
         return complain(io, `checkups: ${readProblem(file, error)}`);
       }
     }
