@@ -238,7 +238,14 @@ export function workerRecord(result: WorkerResult): Record<string, unknown> {
   };
 }
 
-/** A CSV cell: quoted when needed; text a spreadsheet would take as a formula is written as text (a leading '). */
+/**
+ * The command's CSV columns (`--format csv`), documented in the README: one column per key of the
+ * NDJSON line, snake_case, reasons and warnings apart, the number needed as a number and as text,
+ * `stratum_<name>` last. The screen's export (lib/checkups/exportCsv.ts `workersCsv`) is a sheet
+ * for people — headers in words, reasons and warnings in one "notes" column, no number-needed
+ * display figure, a preamble naming the evidence — so the two keep their own lists: one
+ * definition would change one of the two documented files. They share the cell writer (`csvCell`).
+ */
 const CSV_COLUMNS = [
   'worker',
   'age',
