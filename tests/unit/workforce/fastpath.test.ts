@@ -96,11 +96,8 @@ describe('evaluateWorker with remembered scenarios and categories gives the plai
           if (!parsed.ok) throw new Error(parsed.issues[0]?.message);
           const plain = computeScenario(parsed.value);
           if (!plain.ok) throw new Error('valid scenario');
-          expect(warm.referenceRisk).toBe(plain.value.referenceRisk);
-          expect(warm.exposedRisk).toEqual(plain.value.exposedRisk);
-          expect(warm.riskDifference).toEqual(plain.value.riskDifference);
-          expect(warm.numberNeeded).toEqual(plain.value.numberNeeded);
-          expect(warm.warnings).toEqual(plain.value.warnings);
+          const { referenceRisk, exposedRisk, riskDifference, numberNeeded, warnings } = plain.value;
+          expect(warm).toMatchObject({ referenceRisk, exposedRisk, riskDifference, numberNeeded, warnings });
         }
       }),
       { numRuns: 60 },
