@@ -271,7 +271,7 @@ export function ConsultationScreen({
           <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
         </div>
         <div className="screen__result">
-          <ResultPanel figures={figures} extraWarnings={glucose.warnings} entry={entryCheck} />
+          <ResultPanel figures={figures} extraWarnings={glucose.warnings} entry={entryCheck} handoutHistory={glucose.handoutHistory} />
         </div>
       </div>
     </FormProvider>

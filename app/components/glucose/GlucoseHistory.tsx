@@ -358,6 +358,12 @@ export function GlucoseHistory({ history }: GlucoseHistoryProps) {
             </ul>
           </div>
         ) : null}
+        {view.ownResults ? (
+          <div className="glucose__own" data-testid="glucose-own-results">
+            <p className="glucose__own-lead">{view.ownResults.heading}:</p>
+            <p>{view.ownResults.text}</p>
+          </div>
+        ) : null}
       </div>
 
       {view.checkups.length > 0 ? (
