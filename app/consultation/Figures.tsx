@@ -10,7 +10,7 @@ import { Caution } from '@/app/components/Caution';
 import { consultationDetails, type ConsultationView } from '@/lib/consultation';
 import type { GlucoseHistory } from '@/lib/glycaemia/parse';
 import { ClinicianPanel } from './ClinicianPanel';
-import type { FormFigures } from './formModel';
+import type { FormFigures } from '@/lib/consultation/formValues';
 import { PatientView } from './PatientView';
 import { IssueLinks } from './IssueLinks';
 import { ShareBar } from './ShareBar';

@@ -8,7 +8,7 @@ import { consultationView, ENTRY_NO_LONGER_APPLIES, leftoverIssues, type EntryCh
 import type { GlucoseHistory } from '@/lib/glycaemia/parse';
 import type { Issue, Result, Warning } from '@/lib/result';
 import { NO_RESULT_ANNOUNCEMENT, NO_RESULT_LEAD } from '@/lib/wording/screen';
-import type { FormFigures } from './formModel';
+import type { FormFigures } from '@/lib/consultation/formValues';
 import { IssueLinks } from './IssueLinks';
 
 /**

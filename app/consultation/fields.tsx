@@ -12,8 +12,8 @@
  */
 import { useId, type ReactNode } from 'react';
 import { useFormContext, useFormState, useWatch, type FieldPath, type FieldValues, type RegisterOptions } from 'react-hook-form';
-import type { Choice } from './choices';
-import type { ConsultationFormValues } from './formModel';
+import type { Choice } from '@/lib/consultation/choices';
+import type { ConsultationFormValues } from '@/lib/consultation/formValues';
 
 export type FieldName<T extends FieldValues = ConsultationFormValues> = FieldPath<T>;
 

@@ -170,12 +170,13 @@ export function GlucoseHistory({ history }: GlucoseHistoryProps) {
         >
           {CRITERIA_SETS.map((c) => (
             <option key={c} value={c}>
-              {CRITERIA[c].name}
+              {CRITERIA[c].id}
             </option>
           ))}
         </select>
+        {/* Short names in the list, so it fits a 390 px phone; the full name is in the hint. */}
         <p className="field__hint" id={`${id}-criteria-source`}>
-          Thresholds from {CRITERIA[criteria].source}, applied in its own units.
+          {CRITERIA[criteria].name}: thresholds from {CRITERIA[criteria].source}, applied in its own units.
         </p>
       </div>
 

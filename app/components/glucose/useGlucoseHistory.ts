@@ -94,7 +94,17 @@ export function loadGlucoseView(): Promise<ViewModule> {
 
 function sameExposure(a: ExposureDefinition | undefined, b: ExposureDefinition | undefined): boolean {
   if (a === b) return true;
-  return a !== undefined && b !== undefined && a.category === b.category && a.criteria === b.criteria && a.minYears === b.minYears;
+  return (
+    a !== undefined &&
+    b !== undefined &&
+    a.category === b.category &&
+    a.criteria === b.criteria &&
+    a.minYears === b.minYears &&
+    a.test === b.test &&
+    a.maxGapMonths === b.maxGapMonths &&
+    a.comparison?.category === b.comparison?.category &&
+    a.comparison?.minYears === b.comparison?.minYears
+  );
 }
 
 function sameWarnings(a: readonly Warning[], b: readonly Warning[]): boolean {

@@ -14,7 +14,7 @@ import type { Issue } from '@/lib/result';
 import { parseEvidenceEntry } from '@/lib/evidence/parse';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { EFFECT_MEASURES, INTERVAL_LEVELS, STUDY_DESIGNS } from '@/lib/scenario/schema';
-import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/app/consultation/choices';
+import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/lib/consultation/choices';
 import { ProblemList } from './ProblemList';
 import { ExposureFields, withExposure } from '../exposure/ExposureFields';
 
