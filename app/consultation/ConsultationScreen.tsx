@@ -28,6 +28,7 @@ import type { PopulationTable } from '@/lib/tables/schema';
 import { BaselineSection } from './BaselineSection';
 import { EvidenceSection } from './EvidenceSection';
 import { EMPTY_FORM_VALUES, formExposure, formInputSchema, type ConsultationFormValues } from '@/lib/consultation/formValues';
+import { createResultLinkStore, ResultLinkContext } from './fields';
 import { GlucoseSection, LibrarySection } from './OptionalSections';
 import { createFormPipeline, sameFormValues, type FormPipeline } from '@/lib/consultation/pipeline';
 import { preloadFigures, ResultPanel } from './ResultPanel';
@@ -110,9 +111,16 @@ export function ConsultationScreen({
     mode: 'onChange',
     delayError: 350,
   });
-  const { reset, setValue, getValues, control, trigger } = methods;
+  const { reset, setValue, getValues, control, trigger, subscribe } = methods;
   const values = useWatch({ control });
   const figures = pipeline(values, allTables);
+  // After every change on a narrow screen, a link to the result under the field that changed (./fields.tsx).
+  const [resultLink] = useState(() => createResultLinkStore(SEE_STILL_NEEDED));
+  useEffect(
+    () => subscribe({ formState: { values: true }, callback: ({ name, type }) => resultLink.changed(type === 'change' ? name : undefined) }),
+    [subscribe, resultLink],
+  );
+  useEffect(() => resultLink.setText(figures.ok ? SEE_RESULT : SEE_STILL_NEEDED), [figures.ok, resultLink]);
   // Whether the saved entry the form started from still applies, and which of its words are left.
   const [kept, setKept] = useState<Partial<Record<WordingField, string>>>({});
   const entryCheck = useMemo(() => {
@@ -233,50 +241,52 @@ export function ConsultationScreen({
 
   return (
     <FormProvider {...methods}>
-      <a className="skip-link" href="#result">
-        Skip to the result
-      </a>
-      <div className="screen">
-        <div className="screen__form">
-          <div className="intro">
-            <h1>Hundredfold</h1>
-            <p>
-              Turn a published relative effect and a population baseline into absolute numbers for the person in front of you. The result
-              updates as you type. Nothing you type is sent anywhere: the scenario stays in this page and its address.
-            </p>
-            <div className="intro__actions">
-              <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((example) => reset(example))} data-testid="load-example">
-                Fill in an example (illustrative numbers)
-              </button>
-              <button type="button" className="button button--quiet" onClick={clearForm} data-testid="clear-form">
-                Clear the form
-              </button>
-            </div>
-            <a className="see-result" href="#result" data-testid="see-result">
-              {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
-            </a>
-            {cleared ? (
-              <p className="cleared" role="status" data-testid="cleared">
-                The form was cleared.{' '}
-                <button type="button" className="button button--quiet" onClick={undoClear} data-testid="undo-clear">
-                  Undo
-                </button>
+      <ResultLinkContext.Provider value={resultLink}>
+        <a className="skip-link" href="#result">
+          Skip to the result
+        </a>
+        <div className="screen">
+          <div className="screen__form">
+            <div className="intro">
+              <h1>Hundredfold</h1>
+              <p>
+                Turn a published relative effect and a population baseline into absolute numbers for the person in front of you. The result
+                updates as you type. Nothing you type is sent anywhere: the scenario stays in this page and its address.
               </p>
-            ) : null}
-            <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
+              <div className="intro__actions">
+                <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((example) => reset(example))} data-testid="load-example">
+                  Fill in an example (illustrative numbers)
+                </button>
+                <button type="button" className="button button--quiet" onClick={clearForm} data-testid="clear-form">
+                  Clear the form
+                </button>
+              </div>
+              <a className="see-result" href="#result" data-testid="see-result">
+                {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
+              </a>
+              {cleared ? (
+                <p className="cleared" role="status" data-testid="cleared">
+                  The form was cleared.{' '}
+                  <button type="button" className="button button--quiet" onClick={undoClear} data-testid="undo-clear">
+                    Undo
+                  </button>
+                </p>
+              ) : null}
+              <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
+            </div>
+            <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
+              <Baseline tables={allTables} />
+              <Evidence entries={allEntries} entryCheck={entryCheck} onKeepWording={keepWording} />
+              <Settings />
+            </form>
+            <Glucose history={glucose} />
+            <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
           </div>
-          <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
-            <Baseline tables={allTables} />
-            <Evidence entries={allEntries} entryCheck={entryCheck} onKeepWording={keepWording} />
-            <Settings />
-          </form>
-          <Glucose history={glucose} />
-          <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
+          <div className="screen__result">
+            <ResultPanel figures={figures} extraWarnings={glucose.warnings} entry={entryCheck} handoutHistory={glucose.handoutHistory} />
+          </div>
         </div>
-        <div className="screen__result">
-          <ResultPanel figures={figures} extraWarnings={glucose.warnings} entry={entryCheck} handoutHistory={glucose.handoutHistory} />
-        </div>
-      </div>
+      </ResultLinkContext.Provider>
     </FormProvider>
   );
 }

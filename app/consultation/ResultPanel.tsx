@@ -78,7 +78,7 @@ function ResultPanelView({ figures, extraWarnings = NO_WARNINGS, entry = NO_ENTR
   }, [figures, extraWarnings, entry]);
   const announced = useQuietAnnouncement(view ? view.announcement : NO_RESULT_ANNOUNCEMENT);
   return (
-    <section className="result" id="result" aria-labelledby="result-heading">
+    <section className="result" id="result" aria-labelledby="result-heading" tabIndex={-1}>
       <h2 id="result-heading">Result</h2>
       <p className="visually-hidden" role="status" aria-live="polite">
         {announced}

@@ -10,12 +10,76 @@
  * Each component is generic over the form's values: `TextField<MyValues>` checks `name`
  * against that form. The default is the consultation form.
  */
-import { useId, type ReactNode } from 'react';
+import { createContext, useContext, useEffect, useId, useRef, useSyncExternalStore, type ReactNode } from 'react';
 import { useFormContext, useFormState, useWatch, type FieldPath, type FieldValues, type RegisterOptions } from 'react-hook-form';
 import type { Choice } from '@/lib/consultation/choices';
 import type { ConsultationFormValues } from '@/lib/consultation/formValues';
 
 export type FieldName<T extends FieldValues = ConsultationFormValues> = FieldPath<T>;
+
+/**
+ * On a narrow screen the result is below the form, so after every change a link to it appears
+ * right under the field that changed (issue 12 item 11): in the page's flow, so it never covers
+ * another control, and one tap away wherever the clinician is on the page. The screen tells the
+ * store which field changed last and whether there is a result yet; each field asks only
+ * whether it is that field, so a change redraws two fields at most.
+ */
+export interface ResultLinkStore {
+  subscribe(listener: () => void): () => void;
+  /** The link's words under this field, or null when it is not the field that changed last. */
+  linkFor(name: string): string | null;
+  changed(name: string | undefined): void;
+  setText(text: string): void;
+}
+
+export function createResultLinkStore(initialText: string): ResultLinkStore {
+  let last: string | undefined;
+  let text = initialText;
+  const listeners = new Set<() => void>();
+  const notify = () => listeners.forEach((listener) => listener());
+  return {
+    subscribe(listener) {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+    linkFor: (name) => (name === last ? text : null),
+    changed(name) {
+      if (name === last) return;
+      last = name;
+      notify();
+    },
+    setText(next) {
+      if (next === text) return;
+      text = next;
+      notify();
+    },
+  };
+}
+
+export const ResultLinkContext = createContext<ResultLinkStore | null>(null);
+
+const noSubscription = () => () => {};
+
+function ResultLink({ name }: { name: string }) {
+  const store = useContext(ResultLinkContext);
+  const text = useSyncExternalStore(
+    store?.subscribe ?? noSubscription,
+    () => store?.linkFor(name) ?? null,
+    () => null,
+  );
+  const ref = useRef<HTMLAnchorElement>(null);
+  // When it appears below the bottom of the screen (the field was at the very bottom), the page
+  // moves just enough to show it; where it is already in view, nothing moves.
+  const shown = text !== null;
+  useEffect(() => {
+    if (shown) ref.current?.scrollIntoView({ block: 'nearest' });
+  }, [shown]);
+  return text ? (
+    <a ref={ref} className="see-result see-result--inline" href="#result" data-testid="see-result-inline">
+      {text}
+    </a>
+  ) : null;
+}
 
 /** The DOM id of a field's control, derived from its name so links and tests can find it. */
 export function fieldDomId(name: string): string {
@@ -72,7 +136,7 @@ function Flag({ id, flag }: { id: string; flag: ReactNode }) {
 }
 
 /** A labelled single control (text box or select) with its hint, flag and inline error. */
-function FieldFrame({ wiring, label, hint, flag, size, children }: { wiring: Wiring; label: string; hint: ReactNode; flag: ReactNode; size: 'short' | 'long'; children: ReactNode }) {
+function FieldFrame({ name, wiring, label, hint, flag, size, children }: { name: string; wiring: Wiring; label: string; hint: ReactNode; flag: ReactNode; size: 'short' | 'long'; children: ReactNode }) {
   return (
     <div className={`field field--${size}${wiring.error ? ' field--invalid' : ''}${flag ? ' field--flagged' : ''}`}>
       <label htmlFor={wiring.id} className="field__label">
@@ -82,6 +146,7 @@ function FieldFrame({ wiring, label, hint, flag, size, children }: { wiring: Wir
       {children}
       <Flag id={wiring.flagId} flag={flag} />
       <ErrorText id={wiring.errorId} message={wiring.error} />
+      <ResultLink name={name} />
     </div>
   );
 }
@@ -107,7 +172,7 @@ export function TextField<T extends FieldValues = ConsultationFormValues>({ name
   const wiring = useFieldWiring<T>(name, Boolean(hint), Boolean(flag));
   const options: RegisterOptions<T, FieldPath<T>> = deps ? { deps } : {};
   return (
-    <FieldFrame wiring={wiring} label={label} hint={hint} flag={flag} size={size}>
+    <FieldFrame name={name} wiring={wiring} label={label} hint={hint} flag={flag} size={size}>
       <input
         id={wiring.id}
         type="text"
@@ -141,7 +206,7 @@ export function SelectField<T extends FieldValues = ConsultationFormValues>({ na
   const wiring = useFieldWiring<T>(name, Boolean(hint), Boolean(flag));
   const registered = register(name, onChosen ? { onChange: (event: { target: { value: string } }) => onChosen(event.target.value) } : {});
   return (
-    <FieldFrame wiring={wiring} label={label} hint={hint} flag={flag} size="long">
+    <FieldFrame name={name} wiring={wiring} label={label} hint={hint} flag={flag} size="long">
       <select
         id={wiring.id}
         className="field__input"
@@ -194,6 +259,7 @@ export function RadioField<T extends FieldValues = ConsultationFormValues>({ nam
         })}
       </div>
       <ErrorText id={errorId} message={error} />
+      <ResultLink name={name} />
     </fieldset>
   );
 }

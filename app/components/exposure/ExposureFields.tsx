@@ -13,13 +13,13 @@
  * - issues: problems whose path ends in a field of the definition (e.g. ["exposureDefinition", "minYears"]).
  */
 import { useId } from 'react';
+import { DECIDING_TEST_LABELS as TEST_LABELS, EXPOSURE_FIELD_TEXT as TEXT, GAP_MONTHS as GAPS, RANGE_LABELS, RUN_YEARS as YEARS } from '@/lib/evidence/exposureForm';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import {
   CRITERIA_SETS,
   DECIDING_TESTS,
   GLYCAEMIC_CATEGORIES,
   MAX_RUN_GAP_MONTHS,
-  MIN_RUN_GAP_MONTHS,
   type DecidingTest,
   type ExposureDefinition,
   type GlycaemicCategory,
@@ -32,24 +32,8 @@ export interface ExposureFieldsProps {
   readonly issues?: readonly Issue[];
 }
 
-const TEST_LABELS: Readonly<Record<DecidingTest, string>> = {
-  either: 'HbA1c or fasting glucose (the higher range counts)',
-  hba1c: 'HbA1c only',
-  fpg: 'Fasting glucose only',
-  both: 'Both tests, in the same range',
-};
-
-const RANGE_LABELS: Readonly<Record<GlycaemicCategory, string>> = {
-  normal: 'Normal range',
-  prediabetes: 'Prediabetes range',
-  'diabetes-range': 'Diabetes range',
-};
-
 /** A new definition's starting values: the common shape of a workforce study. */
 export const DEFAULT_EXPOSURE: ExposureDefinition = { category: 'prediabetes', criteria: 'ADA', minYears: 3, test: 'either', comparison: { category: 'normal' } };
-
-const YEARS = Array.from({ length: 15 }, (_, i) => i + 1);
-const GAPS = Array.from({ length: MAX_RUN_GAP_MONTHS - MIN_RUN_GAP_MONTHS + 1 }, (_, i) => MIN_RUN_GAP_MONTHS + i);
 
 /** The entry with this exposure definition, or with none. */
 export function withExposure(entry: EvidenceEntry, exposure: ExposureDefinition | undefined): EvidenceEntry {
@@ -101,8 +85,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
       <legend className="subsection__title">Exposure over time (optional)</legend>
       {field(
         'defined',
-        'Does the study define its exposure over time?',
-        'Needed to check a person’s checkup history, or a workforce’s, against the study.',
+        TEXT.defined.label,
+        TEXT.defined.hint,
         (props) => (
           <select {...props} className="field__input" value={defined ? 'yes' : 'no'} onChange={(e) => onChange(e.target.value === 'yes' ? current : undefined)}>
             <option value="no">No, or not stated</option>
@@ -115,8 +99,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
         <>
           {field(
             'test',
-            'Which test decides',
-            'The test the study used to place people in a range at each checkup.',
+            TEXT.test.label,
+            TEXT.test.hint,
             (props) => (
               <select {...props} className="field__input" value={current.test ?? 'either'} onChange={(e) => set({ test: e.target.value as DecidingTest })}>
                 {DECIDING_TESTS.map((t) => (
@@ -130,8 +114,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
           )}
           {field(
             'category',
-            'Range of the exposed group',
-            'The range the exposed people were in, for example the prediabetes range.',
+            TEXT.category.label,
+            TEXT.category.hint,
             (props) => (
               <select {...props} className="field__input" value={current.category} onChange={(e) => set({ category: e.target.value as GlycaemicCategory })}>
                 {GLYCAEMIC_CATEGORIES.map((c) => (
@@ -145,8 +129,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
           )}
           {field(
             'criteria',
-            'Criteria set',
-            'Whose cut-points the study used for the ranges: ADA, WHO or NICE.',
+            TEXT.criteria.label,
+            TEXT.criteria.hint,
             (props) => (
               <select {...props} className="field__input" value={current.criteria} onChange={(e) => set({ criteria: e.target.value as ExposureDefinition['criteria'] })}>
                 {CRITERIA_SETS.map((c) => (
@@ -160,8 +144,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
           )}
           {field(
             'minYears',
-            'Yearly results in a row',
-            'How many yearly checkups in a row had to be in that range.',
+            TEXT.minYears.label,
+            TEXT.minYears.hint,
             (props) => (
               <select {...props} className="field__input" value={String(current.minYears)} onChange={(e) => set({ minYears: Number(e.target.value) })}>
                 {withYears(YEARS, current.minYears).map((n) => (
@@ -175,8 +159,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
           )}
           {field(
             'maxGapMonths',
-            'Longest gap allowed between checkups',
-            'A longer gap breaks the run; 18 months is a missed yearly round.',
+            TEXT.maxGapMonths.label,
+            TEXT.maxGapMonths.hint,
             (props) => (
               <select {...props} className="field__input" value={String(current.maxGapMonths ?? MAX_RUN_GAP_MONTHS)} onChange={(e) => set({ maxGapMonths: Number(e.target.value) })}>
                 {GAPS.map((n) => (
@@ -190,8 +174,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
           )}
           {field(
             'comparison',
-            'Range of the comparison group',
-            'The range the comparison people stayed in, for example the normal range.',
+            TEXT.comparison.label,
+            TEXT.comparison.hint,
             (props) => (
               <select
                 {...props}
@@ -216,8 +200,8 @@ export function ExposureFields({ value, onChange, issues = [] }: ExposureFieldsP
           {current.comparison &&
             field(
               'comparisonYears',
-              'Comparison: yearly results in a row',
-              'Leave at “same as the exposed group” when the study compared the same span.',
+              TEXT.comparisonYears.label,
+              TEXT.comparisonYears.hint,
               (props) => (
                 <select
                   {...props}
