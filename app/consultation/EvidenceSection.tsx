@@ -1,9 +1,9 @@
 'use client';
-import { useFormContext, useWatch } from 'react-hook-form';
+import { useFormContext } from 'react-hook-form';
 import { ENTRY_NO_LONGER_APPLIES, LEFTOVER_WORDING, type EntryCheck, type WordingField } from '@/lib/consultation/entry';
-import { EXPOSURE_FIELD_TEXT, exposureChoices } from '@/lib/evidence/exposureForm';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/lib/consultation/choices';
+import { ExposureDefinitionFields } from './ExposureDefinitionFields';
 import { RadioField, SelectField, TextField, type FieldName } from './fields';
 import type { ConsultationFormValues } from '@/lib/consultation/formValues';
 
@@ -112,33 +112,3 @@ export function EvidenceSection({ entries, entryCheck, onKeepWording, children }
   );
 }
 
-/**
- * The study's exposure over time (lib/evidence/exposureForm.ts): the same labels, one-line
- * explanations and choices as the library's evidence editor. The glucose history is checked
- * against it, the link carries it, and saving the evidence keeps it.
- */
-function ExposureDefinitionFields() {
-  const { control } = useFormContext<ConsultationFormValues>();
-  const exposure = useWatch({ control, name: 'exposure' });
-  const choices = exposureChoices(exposure);
-  const t = EXPOSURE_FIELD_TEXT;
-  return (
-    <fieldset className="subsection" data-testid="exposure-definition">
-      <legend className="subsection__title">Exposure over time (optional)</legend>
-      <SelectField name="exposure.defined" label={t.defined.label} hint={t.defined.hint} choices={choices.defined} />
-      {exposure.defined === 'yes' ? (
-        <>
-          <SelectField name="exposure.test" label={t.test.label} hint={t.test.hint} choices={choices.test} />
-          <SelectField name="exposure.category" label={t.category.label} hint={t.category.hint} choices={choices.category} />
-          <SelectField name="exposure.criteria" label={t.criteria.label} hint={t.criteria.hint} choices={choices.criteria} />
-          <SelectField name="exposure.minYears" label={t.minYears.label} hint={t.minYears.hint} choices={choices.minYears} />
-          <SelectField name="exposure.maxGapMonths" label={t.maxGapMonths.label} hint={t.maxGapMonths.hint} choices={choices.maxGapMonths} />
-          <SelectField name="exposure.comparison" label={t.comparison.label} hint={t.comparison.hint} choices={choices.comparison} />
-          {exposure.comparison !== '' ? (
-            <SelectField name="exposure.comparisonYears" label={t.comparisonYears.label} hint={t.comparisonYears.hint} choices={choices.comparisonYears} />
-          ) : null}
-        </>
-      ) : null}
-    </fieldset>
-  );
-}

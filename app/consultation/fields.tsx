@@ -82,16 +82,22 @@ function ResultLink({ name }: { name: string }) {
 }
 
 /** The DOM id of a field's control, derived from its name so links and tests can find it. */
-export function fieldDomId(name: string): string {
-  return `field-${name.replace(/\./g, '-')}`;
+export function fieldDomId(name: string, prefix = 'field-'): string {
+  return `${prefix}${name.replace(/\./g, '-')}`;
 }
+
+/**
+ * The start of every field id inside it: "field-" for the consultation form; another form on
+ * the same page (the library's evidence editor) gives its own, so no two controls share an id.
+ */
+export const FieldIdPrefix = createContext('field-');
 
 function useVisibleError<T extends FieldValues>(name: FieldPath<T>): string | undefined {
   const { getFieldState } = useFormContext<T>();
   const formState = useFormState<T>({ name, exact: true });
   const state = getFieldState(name, formState);
   if (!state.error?.message) return undefined;
-  return state.isTouched || state.isDirty ? state.error.message : undefined;
+  return state.isTouched || state.isDirty || formState.isSubmitted ? state.error.message : undefined;
 }
 
 function describedBy(...ids: (string | false | undefined)[]): string | undefined {
@@ -110,7 +116,7 @@ function ErrorText({ id, message }: { id: string; message: string | undefined })
 /** What every field derives from its name: the visible error, the control's id and its aria wiring. */
 function useFieldWiring<T extends FieldValues>(name: FieldPath<T>, hasHint: boolean, hasFlag: boolean) {
   const error = useVisibleError<T>(name);
-  const id = fieldDomId(name);
+  const id = fieldDomId(name, useContext(FieldIdPrefix));
   const hintId = `${id}-hint`;
   const flagId = `${id}-flag`;
   const errorId = `${id}-error`;
@@ -160,8 +166,8 @@ interface CommonProps<T extends FieldValues> {
 }
 
 interface TextFieldProps<T extends FieldValues> extends CommonProps<T> {
-  /** "decimal" for numbers (the default), "numeric" for whole numbers, "text" for words. */
-  readonly kind?: 'decimal' | 'numeric' | 'text';
+  /** "decimal" for numbers (the default), "numeric" for whole numbers, "text" for words, "multiline" for a paragraph. */
+  readonly kind?: 'decimal' | 'numeric' | 'text' | 'multiline';
   readonly size?: 'short' | 'long';
   readonly deps?: FieldPath<T>[];
   readonly placeholder?: string;
@@ -173,18 +179,30 @@ export function TextField<T extends FieldValues = ConsultationFormValues>({ name
   const options: RegisterOptions<T, FieldPath<T>> = deps ? { deps } : {};
   return (
     <FieldFrame name={name} wiring={wiring} label={label} hint={hint} flag={flag} size={size}>
-      <input
-        id={wiring.id}
-        type="text"
-        inputMode={kind === 'text' ? 'text' : kind}
-        autoComplete="off"
-        spellCheck={kind === 'text'}
-        className="field__input"
-        placeholder={placeholder}
-        aria-invalid={wiring.error ? true : undefined}
-        aria-describedby={wiring.describedBy}
-        {...register(name, options)}
-      />
+      {kind === 'multiline' ? (
+        <textarea
+          id={wiring.id}
+          rows={3}
+          className="field__input"
+          placeholder={placeholder}
+          aria-invalid={wiring.error ? true : undefined}
+          aria-describedby={wiring.describedBy}
+          {...register(name, options)}
+        />
+      ) : (
+        <input
+          id={wiring.id}
+          type="text"
+          inputMode={kind === 'text' ? 'text' : kind}
+          autoComplete="off"
+          spellCheck={kind === 'text'}
+          className="field__input"
+          placeholder={placeholder}
+          aria-invalid={wiring.error ? true : undefined}
+          aria-describedby={wiring.describedBy}
+          {...register(name, options)}
+        />
+      )}
     </FieldFrame>
   );
 }

@@ -225,6 +225,38 @@ function baselinePart(
 }
 
 /**
+ * The effect fields as typed → the effect for the scenario schema to judge: numbers through the
+ * one decimal reader (lib/text/decimal.ts), "" (not stated) left out. The consultation form and
+ * the library's evidence editor (./evidenceEditor.ts) both use it.
+ * @example
+ * effectFromForm({ measure: 'RR', estimate: '1,5', lower: '1.2', upper: '1.9', level: '', design: '', followUpYears: '', adjusted: 'yes' })
+ * //=> { measure: 'RR', estimate: 1.5, lower: 1.2, upper: 1.9, adjusted: true }
+ */
+export function effectFromForm(e: ConsultationFormValues['effect']): Record<string, unknown> {
+  return defined({
+    measure: e.measure === '' ? undefined : e.measure,
+    estimate: numberFromText(e.estimate),
+    lower: numberFromText(e.lower),
+    upper: numberFromText(e.upper),
+    level: e.level === '' ? undefined : Number(e.level),
+    design: e.design === '' ? undefined : e.design,
+    followUpYears: numberFromText(e.followUpYears),
+    adjusted: e.adjusted === '' ? undefined : e.adjusted === 'yes',
+  });
+}
+
+/** The wording fields, trimmed; blank ones left out. */
+export function wordingFromForm(w: ConsultationFormValues['wording']): Record<string, string> {
+  return defined({
+    outcome: optionalText(w.outcome),
+    exposure: optionalText(w.exposure),
+    comparison: optionalText(w.comparison),
+    population: optionalText(w.population),
+    citation: optionalText(w.citation),
+  });
+}
+
+/**
  * Valid numbers → scenario, result and context, with the words the patient sentences still
  * need (`wordsNeeded`, each on its form field); otherwise the issues, each on its form field.
  * The figures do not wait for the words: the screen shows them as soon as the numbers are valid.
@@ -238,24 +270,8 @@ function baselinePart(
 export function formToFigures(values: ConsultationFormValues, tables: readonly PopulationTable[]): Result<FormFigures> {
   const source = values.baselineSource;
   const base = baselinePart(values, tables);
-  const { effect: e, wording: w } = values;
-  const effect = defined({
-    measure: e.measure === '' ? undefined : e.measure,
-    estimate: numberFromText(e.estimate),
-    lower: numberFromText(e.lower),
-    upper: numberFromText(e.upper),
-    level: e.level === '' ? undefined : Number(e.level),
-    design: e.design === '' ? undefined : e.design,
-    followUpYears: numberFromText(e.followUpYears),
-    adjusted: e.adjusted === '' ? undefined : e.adjusted === 'yes',
-  });
-  const wordingFields = defined({
-    outcome: optionalText(w.outcome),
-    exposure: optionalText(w.exposure),
-    comparison: optionalText(w.comparison),
-    population: optionalText(w.population),
-    citation: optionalText(w.citation),
-  });
+  const effect = effectFromForm(values.effect);
+  const wordingFields = wordingFromForm(values.wording);
   const exposure = exposureFromFormValues(values.exposure, ['exposure']);
   const horizonTyped = numberFromText(values.horizonYears);
   const horizonYears = horizonTyped ?? (base.ok ? base.value.horizonFromTable : undefined);
