@@ -141,6 +141,76 @@ function Flag({ id, flag }: { id: string; flag: ReactNode }) {
   ) : null;
 }
 
+/**
+ * The same family without react-hook-form, for rows whose state a screen holds itself (the
+ * glucose history's checkups, app/components/glucose): the same frame — visible label, the
+ * inline error linked with aria-describedby and announced politely — around a controlled text
+ * box or select. The caller gives the id, the value, the error (from a lib view model) and any
+ * hint ids kept elsewhere on the page.
+ */
+interface PlainFieldProps {
+  readonly id: string;
+  readonly label: string;
+  readonly value: string;
+  readonly onChange: (value: string) => void;
+  /** The error to show under the control; none when undefined. */
+  readonly error?: string | undefined;
+  /** Ids of hints shown elsewhere (one hint for every row), read before the error. */
+  readonly hintIds?: readonly string[];
+  readonly className?: string;
+}
+
+function PlainFrame({ id, label, error, className, children }: { id: string; label: string; error: string | undefined; className: string | undefined; children: ReactNode }) {
+  return (
+    <div className={`field${className ? ` ${className}` : ''}${error ? ' field--invalid' : ''}`}>
+      <label htmlFor={id} className="field__label">
+        {label}
+      </label>
+      {children}
+      <ErrorText id={`${id}-error`} message={error} />
+    </div>
+  );
+}
+
+export function PlainTextField({ id, label, value, onChange, error, hintIds = [], className, kind = 'text' }: PlainFieldProps & { readonly kind?: 'decimal' | 'text' }) {
+  return (
+    <PlainFrame id={id} label={label} error={error} className={className}>
+      <input
+        id={id}
+        className="field__input"
+        type="text"
+        autoComplete="off"
+        inputMode={kind === 'decimal' ? 'decimal' : undefined}
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(...hintIds, error ? `${id}-error` : undefined)}
+      />
+    </PlainFrame>
+  );
+}
+
+export function PlainSelectField({ id, label, value, onChange, error, hintIds = [], className, choices }: PlainFieldProps & { readonly choices: readonly Choice[] }) {
+  return (
+    <PlainFrame id={id} label={label} error={error} className={className}>
+      <select
+        id={id}
+        className="field__input"
+        value={value}
+        onChange={(e) => onChange(e.target.value)}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(...hintIds, error ? `${id}-error` : undefined)}
+      >
+        {choices.map((choice) => (
+          <option key={choice.value} value={choice.value}>
+            {choice.label}
+          </option>
+        ))}
+      </select>
+    </PlainFrame>
+  );
+}
+
 /** A labelled single control (text box or select) with its hint, flag and inline error. */
 function FieldFrame({ name, wiring, label, hint, flag, size, children }: { name: string; wiring: Wiring; label: string; hint: ReactNode; flag: ReactNode; size: 'short' | 'long'; children: ReactNode }) {
   return (
