@@ -3,9 +3,9 @@ import { lazy, Suspense } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { tableNeeds } from '@/lib/tables/lookup';
-import { BASELINE_SOURCE_CHOICES, SEX_CHOICES_FOR_FORM } from './choices';
+import { BASELINE_SOURCE_CHOICES, SEX_CHOICES_FOR_FORM } from '@/lib/consultation/choices';
 import { RadioField, SelectField, TextField } from './fields';
-import type { ConsultationFormValues } from './formModel';
+import type { ConsultationFormValues } from '@/lib/consultation/formValues';
 
 /** Loaded once a table is chosen. */
 const LookupSummary = lazy(() => import('./LookupSummary'));

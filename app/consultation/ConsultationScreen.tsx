@@ -5,7 +5,7 @@
  * Data flow, once per change (DEVELOPERS.md "Follow a number"):
  * - react-hook-form holds the text as typed. The list of tables (bundled plus those taken from
  *   the clinic library) is derived while rendering and handed to the resolver as its context.
- * - The resolver and the result ask one pipeline (./pipeline.ts → ./formModel.ts
+ * - The resolver and the result ask one pipeline (lib/consultation/pipeline.ts → lib/consultation/formValues.ts
  *   formToFigures) for the same values; it runs the engine once and answers both.
  * - The result panel renders the view model from lib/consultation (consultationView); it
  *   computes nothing.
@@ -27,9 +27,10 @@ import { SEE_RESULT, SEE_STILL_NEEDED } from '@/lib/wording/screen';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { BaselineSection } from './BaselineSection';
 import { EvidenceSection } from './EvidenceSection';
-import { EMPTY_FORM_VALUES, formInputSchema, type ConsultationFormValues } from './formModel';
+import { EMPTY_FORM_VALUES, formExposure, formInputSchema, type ConsultationFormValues } from '@/lib/consultation/formValues';
+import { createResultLinkStore, ResultLinkContext } from './fields';
 import { GlucoseSection, LibrarySection } from './OptionalSections';
-import { createFormPipeline, sameFormValues, type FormPipeline } from './pipeline';
+import { createFormPipeline, sameFormValues, type FormPipeline } from '@/lib/consultation/pipeline';
 import { preloadFigures, ResultPanel } from './ResultPanel';
 import { SettingsSection } from './SettingsSection';
 
@@ -70,7 +71,7 @@ function pipelineResolver(pipeline: FormPipeline): Resolver<ConsultationFormValu
 
 /** An example the clinician can load with one click: demo table and demo evidence, both invented. */
 export async function exampleValues(): Promise<ConsultationFormValues> {
-  const { evidenceToFormValues } = await import('./fromScenario');
+  const { evidenceToFormValues } = await import('@/lib/consultation/fromScenario');
   return {
     ...EMPTY_FORM_VALUES,
     baselineSource: 'table',
@@ -110,9 +111,16 @@ export function ConsultationScreen({
     mode: 'onChange',
     delayError: 350,
   });
-  const { reset, setValue, getValues, control, trigger } = methods;
+  const { reset, setValue, getValues, control, trigger, subscribe } = methods;
   const values = useWatch({ control });
   const figures = pipeline(values, allTables);
+  // After every change on a narrow screen, a link to the result under the field that changed (./fields.tsx).
+  const [resultLink] = useState(() => createResultLinkStore(SEE_STILL_NEEDED));
+  useEffect(
+    () => subscribe({ formState: { values: true }, callback: ({ name, type }) => resultLink.changed(type === 'change' ? name : undefined) }),
+    [subscribe, resultLink],
+  );
+  useEffect(() => resultLink.setText(figures.ok ? SEE_RESULT : SEE_STILL_NEEDED), [figures.ok, resultLink]);
   // Whether the saved entry the form started from still applies, and which of its words are left.
   const [kept, setKept] = useState<Partial<Record<WordingField, string>>>({});
   const entryCheck = useMemo(() => {
@@ -121,8 +129,10 @@ export function ConsultationScreen({
     return checkEntry(allEntries.find((e) => e.id === shaped.data.evidenceId), shaped.data, kept);
   }, [values, allEntries, kept]);
   const keepWording = useCallback((field: WordingField, text: string) => setKept((k) => ({ ...k, [field]: text })), []);
-  // The glucose rows live here, so closing their section keeps them; the match is derived from them.
-  const glucose = useGlucoseHistory({ exposure: allEntries.find((e) => e.id === values.evidenceId)?.exposureDefinition });
+  // The glucose rows live here, so closing their section keeps them; the match is derived from
+  // them, against the exposure definition in the form (typed, from an entry, or from a link).
+  const exposure = useMemo(() => formExposure(values), [values]);
+  const glucose = useGlucoseHistory({ exposure });
 
   // When the list of tables changes (one taken from the library, or read back for a link), the
   // form is checked again against the new list: the resolver gets it as its context.
@@ -144,12 +154,13 @@ export function ConsultationScreen({
   const takeLibraryEntry = useCallback(
     async (entry: EvidenceEntry) => {
       setLibraryEntries((list) => [...list.filter((e) => e.id !== entry.id), entry]);
-      const { evidenceToFormValues } = await import('./fromScenario');
+      const { evidenceToFormValues } = await import('@/lib/consultation/fromScenario');
       const filled = evidenceToFormValues(entry);
       const options = { shouldValidate: true, shouldDirty: true, shouldTouch: true } as const;
       setValue('evidenceId', entry.id, options);
       setValue('effect', filled.effect, options);
       setValue('wording', filled.wording, options);
+      setValue('exposure', filled.exposure, options);
     },
     [setValue],
   );
@@ -176,7 +187,7 @@ export function ConsultationScreen({
     idle(() => {
       preloadFigures();
       void loadLinkCodec();
-      void import('./fromScenario');
+      void import('@/lib/consultation/fromScenario');
     });
   }, []);
 
@@ -188,7 +199,7 @@ export function ConsultationScreen({
     // the notice below is shown only while the address holds a link.
     if (link === undefined || link === '') return;
     let current = true;
-    void Promise.all([loadLinkCodec(), import('./fromScenario')]).then(async ([{ readScenarioLink }, { scenarioToFormValues }]) => {
+    void Promise.all([loadLinkCodec(), import('@/lib/consultation/fromScenario')]).then(async ([{ readScenarioLink }, { scenarioToFormValues }]) => {
       if (!current) return;
       const reading = readScenarioLink(link);
       setLinkReading(reading);
@@ -230,50 +241,52 @@ export function ConsultationScreen({
 
   return (
     <FormProvider {...methods}>
-      <a className="skip-link" href="#result">
-        Skip to the result
-      </a>
-      <div className="screen">
-        <div className="screen__form">
-          <div className="intro">
-            <h1>Hundredfold</h1>
-            <p>
-              Turn a published relative effect and a population baseline into absolute numbers for the person in front of you. The result
-              updates as you type. Nothing you type is sent anywhere: the scenario stays in this page and its address.
-            </p>
-            <div className="intro__actions">
-              <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((example) => reset(example))} data-testid="load-example">
-                Fill in an example (illustrative numbers)
-              </button>
-              <button type="button" className="button button--quiet" onClick={clearForm} data-testid="clear-form">
-                Clear the form
-              </button>
-            </div>
-            <a className="see-result" href="#result" data-testid="see-result">
-              {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
-            </a>
-            {cleared ? (
-              <p className="cleared" role="status" data-testid="cleared">
-                The form was cleared.{' '}
-                <button type="button" className="button button--quiet" onClick={undoClear} data-testid="undo-clear">
-                  Undo
-                </button>
+      <ResultLinkContext.Provider value={resultLink}>
+        <a className="skip-link" href="#result">
+          Skip to the result
+        </a>
+        <div className="screen">
+          <div className="screen__form">
+            <div className="intro">
+              <h1>Hundredfold</h1>
+              <p>
+                Turn a published relative effect and a population baseline into absolute numbers for the person in front of you. The result
+                updates as you type. Nothing you type is sent anywhere: the scenario stays in this page and its address.
               </p>
-            ) : null}
-            <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
+              <div className="intro__actions">
+                <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((example) => reset(example))} data-testid="load-example">
+                  Fill in an example (illustrative numbers)
+                </button>
+                <button type="button" className="button button--quiet" onClick={clearForm} data-testid="clear-form">
+                  Clear the form
+                </button>
+              </div>
+              <a className="see-result" href="#result" data-testid="see-result">
+                {figures.ok ? SEE_RESULT : SEE_STILL_NEEDED}
+              </a>
+              {cleared ? (
+                <p className="cleared" role="status" data-testid="cleared">
+                  The form was cleared.{' '}
+                  <button type="button" className="button button--quiet" onClick={undoClear} data-testid="undo-clear">
+                    Undo
+                  </button>
+                </p>
+              ) : null}
+              <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
+            </div>
+            <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
+              <Baseline tables={allTables} />
+              <Evidence entries={allEntries} entryCheck={entryCheck} onKeepWording={keepWording} />
+              <Settings />
+            </form>
+            <Glucose history={glucose} />
+            <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
           </div>
-          <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
-            <Baseline tables={allTables} />
-            <Evidence entries={allEntries} entryCheck={entryCheck} onKeepWording={keepWording} />
-            <Settings />
-          </form>
-          <Glucose history={glucose} />
-          <Library tables={allTables} entries={allEntries} figures={figures} onUseTable={takeLibraryTable} onUseEvidence={useEvidence} />
+          <div className="screen__result">
+            <ResultPanel figures={figures} extraWarnings={glucose.warnings} entry={entryCheck} handoutHistory={glucose.handoutHistory} />
+          </div>
         </div>
-        <div className="screen__result">
-          <ResultPanel figures={figures} extraWarnings={glucose.warnings} entry={entryCheck} />
-        </div>
-      </div>
+      </ResultLinkContext.Provider>
     </FormProvider>
   );
 }

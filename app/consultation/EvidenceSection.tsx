@@ -2,9 +2,10 @@
 import { useFormContext } from 'react-hook-form';
 import { ENTRY_NO_LONGER_APPLIES, LEFTOVER_WORDING, type EntryCheck, type WordingField } from '@/lib/consultation/entry';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from './choices';
+import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/lib/consultation/choices';
+import { ExposureDefinitionFields } from './ExposureDefinitionFields';
 import { RadioField, SelectField, TextField, type FieldName } from './fields';
-import type { ConsultationFormValues } from './formModel';
+import type { ConsultationFormValues } from '@/lib/consultation/formValues';
 
 const LIMITS: FieldName[] = ['effect.estimate', 'effect.lower', 'effect.upper'];
 
@@ -48,11 +49,12 @@ export function EvidenceSection({ entries, entryCheck, onKeepWording, children }
   async function fillFrom(id: string) {
     const entry = entries.find((e) => e.id === id);
     if (!entry) return;
-    const { evidenceToFormValues } = await import('./fromScenario');
+    const { evidenceToFormValues } = await import('@/lib/consultation/fromScenario');
     const filled = evidenceToFormValues(entry);
     const options = { shouldValidate: true, shouldDirty: true, shouldTouch: true } as const;
     setValue('effect', filled.effect, options);
     setValue('wording', filled.wording, options);
+    setValue('exposure', filled.exposure, options);
   }
 
   return (
@@ -104,7 +106,9 @@ export function EvidenceSection({ entries, entryCheck, onKeepWording, children }
         />
         <TextField name="wording.citation" label="Citation" kind="text" size="long" flag={flag('citation')} />
       </fieldset>
+      <ExposureDefinitionFields />
       {children}
     </fieldset>
   );
 }
+

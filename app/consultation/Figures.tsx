@@ -8,8 +8,9 @@
 import { lazy, Suspense, useEffect, useMemo, useState } from 'react';
 import { Caution } from '@/app/components/Caution';
 import { consultationDetails, type ConsultationView } from '@/lib/consultation';
+import type { GlucoseHistory } from '@/lib/glycaemia/parse';
 import { ClinicianPanel } from './ClinicianPanel';
-import type { FormFigures } from './formModel';
+import type { FormFigures } from '@/lib/consultation/formValues';
 import { PatientView } from './PatientView';
 import { IssueLinks } from './IssueLinks';
 import { ShareBar } from './ShareBar';
@@ -34,7 +35,7 @@ function useSettled<T>(value: T): T {
   return settled;
 }
 
-export function Figures({ figures, view }: { figures: FormFigures; view: ConsultationView }) {
+export function Figures({ figures, view, handoutHistory = null }: { figures: FormFigures; view: ConsultationView; handoutHistory?: GlucoseHistory | null }) {
   // The pictures, sentences and figures update at once; the charts and the worked-out steps
   // follow once typing pauses, so a keystroke is never held up by drawing the charts.
   const later = useSettled(figures);
@@ -62,7 +63,7 @@ export function Figures({ figures, view }: { figures: FormFigures; view: Consult
           {view.entryNotice}
         </p>
       ) : null}
-      <ShareBar scenario={figures.scenario} handoutAllowed={view.handoutAllowed} />
+      <ShareBar scenario={figures.scenario} handoutAllowed={view.handoutAllowed} history={handoutHistory} />
       {view.capped ? (
         <div className="capped" role="note" data-testid="capped">
           <p className="capped__title">{view.capped.title}</p>

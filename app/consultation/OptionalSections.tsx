@@ -10,7 +10,7 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { PopulationTable } from '@/lib/tables/schema';
 import type { Result } from '@/lib/result';
-import type { ConsultationFormValues, FormFigures } from './formModel';
+import type { ConsultationFormValues, FormFigures } from '@/lib/consultation/formValues';
 
 const LibraryPanel = lazy(() => import('./LibraryPanel'));
 
@@ -38,7 +38,7 @@ function OpenLibrary({ entries, onUseTable, onUseEvidence, figures }: LibrarySec
     ? {
         effect: figures.value.scenario.effect,
         wording: figures.value.scenario.wording,
-        exposureDefinition: entry?.exposureDefinition,
+        exposureDefinition: figures.value.scenario.exposureDefinition,
         illustrative: entry?.illustrative === true,
       }
     : undefined;

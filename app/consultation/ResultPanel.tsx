@@ -5,9 +5,10 @@
  */
 import { lazy, memo, Suspense, useEffect, useMemo, useState } from 'react';
 import { consultationView, ENTRY_NO_LONGER_APPLIES, leftoverIssues, type EntryCheck } from '@/lib/consultation';
+import type { GlucoseHistory } from '@/lib/glycaemia/parse';
 import type { Issue, Result, Warning } from '@/lib/result';
 import { NO_RESULT_ANNOUNCEMENT, NO_RESULT_LEAD } from '@/lib/wording/screen';
-import type { FormFigures } from './formModel';
+import type { FormFigures } from '@/lib/consultation/formValues';
 import { IssueLinks } from './IssueLinks';
 
 /**
@@ -57,9 +58,11 @@ interface ResultPanelProps {
   readonly extraWarnings?: readonly Warning[];
   /** Whether the saved entry the form started from still applies (lib/consultation/entry.ts). */
   readonly entry?: EntryCheck;
+  /** The valid glucose history, handed to /handout with "Prepare handout"; null without one. */
+  readonly handoutHistory?: GlucoseHistory | null;
 }
 
-function ResultPanelView({ figures, extraWarnings = NO_WARNINGS, entry = NO_ENTRY }: ResultPanelProps) {
+function ResultPanelView({ figures, extraWarnings = NO_WARNINGS, entry = NO_ENTRY, handoutHistory = null }: ResultPanelProps) {
   const view = useMemo(() => {
     if (!figures.ok) return undefined;
     const { scenario, result, context, wordsNeeded } = figures.value;
@@ -75,14 +78,14 @@ function ResultPanelView({ figures, extraWarnings = NO_WARNINGS, entry = NO_ENTR
   }, [figures, extraWarnings, entry]);
   const announced = useQuietAnnouncement(view ? view.announcement : NO_RESULT_ANNOUNCEMENT);
   return (
-    <section className="result" id="result" aria-labelledby="result-heading">
+    <section className="result" id="result" aria-labelledby="result-heading" tabIndex={-1}>
       <h2 id="result-heading">Result</h2>
       <p className="visually-hidden" role="status" aria-live="polite">
         {announced}
       </p>
       {figures.ok && view ? (
         <Suspense fallback={<p className="charts__loading">Preparing the result…</p>}>
-          <Figures figures={figures.value} view={view} />
+          <Figures figures={figures.value} view={view} handoutHistory={handoutHistory} />
         </Suspense>
       ) : (
         <Pending issues={figures.ok ? [] : figures.issues} />

@@ -1,5 +1,5 @@
 'use client';
-import { DENOMINATOR_CHOICES_FOR_FORM } from './choices';
+import { DENOMINATOR_CHOICES_FOR_FORM } from '@/lib/consultation/choices';
 import { RadioField, TextField } from './fields';
 
 export function SettingsSection() {

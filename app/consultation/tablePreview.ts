@@ -8,7 +8,7 @@ import { lookupStratum, tableNeeds } from '@/lib/tables/lookup';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { formatCount, formatPercent, formatYears } from '@/lib/wording/format';
 import { scenarioContext } from '@/lib/context';
-import { checkedPerson, defined, numberFromText } from './formModel';
+import { checkedPerson, defined, numberFromText } from '@/lib/consultation/formValues';
 
 export type TablePreview =
   | { readonly ok: true; readonly group: string; readonly figure: string }

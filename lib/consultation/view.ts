@@ -27,7 +27,7 @@ import { explainSteps, type ExplainStep } from '../explain/steps';
 import type { Issue, Warning } from '../result';
 import type { Scenario } from '../scenario/schema';
 import { formatCount, phraseText } from '../text';
-import { clinicianText } from '../wording/clinician';
+import { clinicianText, type ClinicianText } from '../wording/clinician';
 import { formatYears, intervalLabel } from '../wording/format';
 import { patientText, type ArrayText, type LegendItem, type LegendKind, type PatientText } from '../wording/patient';
 import {
@@ -105,12 +105,8 @@ export interface PatientPanelView {
   readonly doesNotMean: readonly string[];
 }
 
-export interface ClinicianPanelView {
-  readonly absoluteRisks: string;
-  readonly riskRatio: string;
-  readonly riskDifference: string;
-  readonly numberNeeded: string;
-  readonly intervalNote: string;
+/** The clinician's figures (lib/wording/clinician.ts), with every warning and the teach-back questions. */
+export interface ClinicianPanelView extends Omit<ClinicianText, 'warnings'> {
   /** The engine's warnings, then those from outside it (glucose history, outcome mismatch). */
   readonly warnings: readonly Warning[];
   readonly noWarningsText: string;
@@ -234,11 +230,7 @@ export function consultationView(input: ConsultationViewInput): ConsultationView
     wordsNeeded: { lead: WORDS_NEEDED_LEAD, issues: capped ? [] : wordsNeeded },
     ...(input.entryNotice ? { entryNotice: input.entryNotice } : {}),
     clinician: {
-      absoluteRisks: clinician.absoluteRisks,
-      riskRatio: clinician.riskRatio,
-      riskDifference: clinician.riskDifference,
-      numberNeeded: clinician.numberNeeded,
-      intervalNote: clinician.intervalNote,
+      ...clinician,
       warnings,
       noWarningsText: NO_WARNINGS_TEXT,
       ...(teachBack ? { teachBack } : {}),

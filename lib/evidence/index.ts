@@ -4,3 +4,4 @@ export * from './parse';
 export * from './file';
 export * from './search';
 export * from './demo';
+export * from './exposureForm';

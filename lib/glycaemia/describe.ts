@@ -8,7 +8,7 @@
 import type { ClassifiedCheckup, TestClassification } from './classify';
 import { CRITERIA } from './criteria';
 import { categoryLabel, rangeName, roundTo, TEST_LABELS, yearlyResults } from './format';
-import type { ExposureDefinition } from './exposure';
+import type { DecidingTest, ExposureDefinition } from './exposure';
 import { MAX_GAP_MONTHS, type Persistence } from './persistence';
 
 /**
@@ -105,14 +105,35 @@ export function describePersistence(p: Persistence): string {
   return parts.join(' ');
 }
 
+/** The deciding test in words, after "decided by". */
+const DECIDING_TEST_WORDS: Readonly<Record<DecidingTest, string>> = {
+  either: 'HbA1c or fasting glucose, whichever is in the higher range',
+  hba1c: 'HbA1c alone',
+  fpg: 'fasting glucose alone',
+  both: 'HbA1c and fasting glucose together, both in the range',
+};
+
+function runWords(minYears: number): string {
+  return minYears === 1 ? 'a result' : `${yearlyResults(minYears)} in a row`;
+}
+
 /**
- * A study's exposure definition in words.
+ * A study's exposure definition in words: the run, the range and the body; then, when the
+ * definition states them, the deciding test, the longest gap allowed and the comparison group's
+ * own definition (its run defaults to the exposure's: "over the same span").
  *
  * @example
  * describeExposure({ category: 'prediabetes', criteria: 'ADA', minYears: 3 })
  * //=> 'The study's exposure: 3 yearly results in a row in the prediabetes range (ADA).'
+ * describeExposure({ category: 'prediabetes', criteria: 'ADA', minYears: 3, test: 'hba1c', maxGapMonths: 15, comparison: { category: 'normal' } })
+ * //=> 'The study's exposure: 3 yearly results in a row in the prediabetes range (ADA), decided by HbA1c alone, with no gap longer than 15 months. Comparison group: 3 yearly results in a row in the normal range, over the same span.'
  */
 export function describeExposure(exposure: ExposureDefinition): string {
-  const count = exposure.minYears === 1 ? 'a result' : `${yearlyResults(exposure.minYears)} in a row`;
-  return `The study's exposure: ${count} in the ${rangeName(exposure.category)} (${CRITERIA[exposure.criteria].id}).`;
+  const test = exposure.test === undefined ? '' : `, decided by ${DECIDING_TEST_WORDS[exposure.test]}`;
+  const gap = exposure.maxGapMonths === undefined ? '' : `, with no gap longer than ${exposure.maxGapMonths} months`;
+  const main = `The study's exposure: ${runWords(exposure.minYears)} in the ${rangeName(exposure.category)} (${CRITERIA[exposure.criteria].id})${test}${gap}.`;
+  const c = exposure.comparison;
+  if (!c) return main;
+  const span = c.minYears === undefined ? ', over the same span' : '';
+  return `${main} Comparison group: ${runWords(c.minYears ?? exposure.minYears)} in the ${rangeName(c.category)}${span}.`;
 }

@@ -3,6 +3,7 @@
  * drafts into the history input happens here, so the screen does no conversion of its own and
  * the same schema (./schema.ts) judges typed, pasted and imported rows.
  */
+import { readDecimal as readTypedDecimal } from '../text/decimal';
 import type { Checkup } from './schema';
 import { CRITERIA } from './criteria';
 import type { CriteriaSet } from './exposure';
@@ -30,11 +31,10 @@ export function isBlankDraft(draft: CheckupDraft): boolean {
   return draft.date.trim() === '' && draft.hba1cValue.trim() === '' && draft.fpgValue.trim() === '';
 }
 
-const DECIMAL = /^[+-]?\d+(?:[.,]\d+)?$/;
-
 /**
- * A typed number: "" → absent; "6.1" or "6,1" (decimal comma) → 6.1; anything else is passed on
- * unchanged so that the schema reports it as not a number.
+ * A typed number, read by the one decimal reader (lib/text/decimal.ts) that the consultation form
+ * and the evidence editor use: "" → absent; "6.1" or "6,1" (decimal comma) → 6.1; anything else
+ * ("high", "6.1.2", "6%") is passed on unchanged so that the schema reports it as not a number.
  *
  * @example
  * readDecimal('6,1')  //=> 6.1
@@ -42,10 +42,9 @@ const DECIMAL = /^[+-]?\d+(?:[.,]\d+)?$/;
  * readDecimal('high') //=> 'high'
  */
 export function readDecimal(text: string): number | string | undefined {
-  const trimmed = text.trim();
-  if (trimmed === '') return undefined;
-  if (!DECIMAL.test(trimmed)) return trimmed;
-  return Number(trimmed.replace(',', '.'));
+  const reading = readTypedDecimal(text);
+  if (reading.kind === 'blank') return undefined;
+  return reading.kind === 'number' ? reading.value : reading.text;
 }
 
 /**

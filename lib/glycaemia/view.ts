@@ -5,6 +5,7 @@
  * The component renders this object and computes nothing.
  */
 import type { Warning } from '../result';
+import { OWN_RESULTS_HEADING, ownResultsText } from '../wording/ownResults';
 import { classifyHistory } from './classify';
 import { CRITERIA } from './criteria';
 import { decidedByText, describeCheckup, describeExposure, describePersistence, GLYCAEMIA_CAUTION } from './describe';
@@ -12,7 +13,7 @@ import { draftsToCheckups, type CheckupDraft, type DraftField } from './draft';
 import type { CriteriaSet, ExposureDefinition, GlycaemicCategory } from './exposure';
 import { categoryLabel } from './format';
 import { diabetesRangeNote, matchHistory, type HistoryMatch } from './match';
-import { parseGlucoseHistory } from './parse';
+import { parseGlucoseHistory, type GlucoseHistory } from './parse';
 import { persistence } from './persistence';
 import { glucoseTimeline, type Timeline } from './timeline';
 
@@ -61,6 +62,10 @@ export interface GlucoseHistoryView {
   readonly diabetesRangeNote: Warning | null;
   /** The study's exposure in words; null without one. */
   readonly exposureText: string | null;
+  /** The valid history, for the handout's hand-over; null until every row is valid. */
+  readonly history: GlucoseHistory | null;
+  /** The person's own results as the handout prints them (lib/wording/ownResults.ts); null until the rows are valid. */
+  readonly ownResults: { readonly heading: string; readonly text: string } | null;
   /** One line on what the screen shows: "3 checkups, classified under ADA." */
   readonly statusText: string;
   readonly caution: string;
@@ -98,7 +103,7 @@ export function glucoseHistoryView(input: GlucoseHistoryViewInput): GlucoseHisto
     caution: GLYCAEMIA_CAUTION,
     exposureText: exposure ? describeExposure(exposure) : null,
   };
-  const empty = { checkups: [], runText: null, notes: [], timeline: null, match: null, diabetesRangeNote: null } as const;
+  const empty = { checkups: [], runText: null, notes: [], timeline: null, match: null, diabetesRangeNote: null, history: null, ownResults: null } as const;
   const { checkups, rowOf } = draftsToCheckups(drafts);
   if (checkups.length === 0) {
     return { ...base, ...empty, status: 'empty', rowErrors, errorLines: [], statusText: 'No checkups yet: add a row, paste rows or load a FHIR file.' };
@@ -128,6 +133,7 @@ export function glucoseHistoryView(input: GlucoseHistoryViewInput): GlucoseHisto
   const classified = classifyHistory(history.checkups, criteria);
   const run = persistence(classified, criteria);
   const match = exposure ? matchHistory(history.checkups, exposure, { shownCriteria: criteria }) : null;
+  const own = ownResultsText(history);
   return {
     ...base,
     status: 'ready',
@@ -150,5 +156,7 @@ export function glucoseHistoryView(input: GlucoseHistoryViewInput): GlucoseHisto
     timeline: glucoseTimeline(classified, criteria),
     match,
     diabetesRangeNote: diabetesRangeNote(classified, exposure?.category) ?? match?.diabetesRangeNote ?? null,
+    history,
+    ownResults: own ? { heading: `${OWN_RESULTS_HEADING}, as the handout words them`, text: own.text } : null,
   };
 }

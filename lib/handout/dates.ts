@@ -30,13 +30,3 @@ export function preparedOnLine(date: Date, paper: PaperSize): string {
   const written = writtenDate(date, PAPER_SIZES[paper].dateOrder);
   return written === undefined ? 'Prepared today.' : `Prepared on ${written}.`;
 }
-
-/**
- * A month of an ISO date "YYYY-MM-DD" in words: "March 2023" (the same in both orders).
- * @example
- * monthAndYear('2023-03-01') //=> "March 2023"
- */
-export function monthAndYear(iso: string): string {
-  const month = MONTH_NAMES[Number(iso.slice(5, 7)) - 1] ?? '';
-  return `${month} ${iso.slice(0, 4)}`;
-}

@@ -22,13 +22,12 @@ import { MAX_GRADE, readability } from '../readability';
 import { fail, ok, type Issue, type Result } from '../result';
 import type { Scenario } from '../scenario/schema';
 import type { PopulationTable } from '../tables/schema';
-import { CAUTION_HEADING, patientProse, type LegendItem, type PatientText } from '../wording';
+import { CAUTION_HEADING, OWN_RESULTS_HEADING, ownResultsText, patientProse, type LegendItem, type PatientText } from '../wording';
 import { blockReadability, type HandoutBlockKey, type HandoutBlocks } from './blocks';
 import { contactSegments, type ContactSegment } from './contact';
 import { buildHandout, type HandoutAudience } from './content';
 import { preparedOnLine } from './dates';
 import { illustrativeBand, type IllustrativeBand } from './illustrative';
-import { OWN_RESULTS_HEADING, ownResultsSentences } from './ownResults';
 import { PAGE_MARGIN_MM, pageRule, PAPER_SIZES, type PaperSize } from './paper';
 import type { Clinic } from './template';
 
@@ -213,7 +212,7 @@ export function handoutSheet(scenario: Scenario, template: HandoutSheetTemplate,
   if (result.warnings.some((w) => w.code === CERTAINTY_WARNING_CODE)) return fail([certaintyIssue()]);
 
   const { blocks, clinic } = template;
-  const own = audience === 'person' && options.history && options.history.checkups.length > 0 ? ownResultsSentences(options.history) : [];
+  const own = audience === 'person' && options.history ? (ownResultsText(options.history)?.sentences ?? []) : [];
   const clinicName = clinic.name?.trim() || undefined;
   const clinicContact = clinic.contact?.trim() ?? '';
   const size = PAPER_SIZES[paper];

@@ -37,6 +37,9 @@
  * | wr    | wording.citation (reference)  | text                                               |
  * | pa    | person.age                    | number                                             |
  * | ps    | person.sex                    | female or male                                     |
+ * | x     | exposureDefinition            | JSON object (lib/glycaemia/exposure.ts), e.g.      |
+ * |       |                               | {"category":"prediabetes","criteria":"ADA",        |
+ * |       |                               | "minYears":3}                                      |
  * | t     | tableId                       | text                                               |
  * | w, p  | wording, person present but   | empty value; written only when the object is there |
  * |       | empty (`{}`)                  | with no field, so `{}` and absent stay distinct    |
@@ -75,7 +78,7 @@ import { fail, type Issue, type Result } from '../result';
 import { parseScenario } from '../scenario/parse';
 import type { Scenario } from '../scenario/schema';
 
-type ParamKind = 'number' | 'text' | 'choice' | 'flag';
+type ParamKind = 'number' | 'text' | 'choice' | 'flag' | 'json';
 
 interface Param {
   readonly key: string;
@@ -111,14 +114,17 @@ export const LINK_PARAMS: readonly Param[] = [
   { key: 'wr', path: ['wording', 'citation'], kind: 'text', label: 'the citation' },
   { key: 'pa', path: ['person', 'age'], kind: 'number', label: 'the age' },
   { key: 'ps', path: ['person', 'sex'], kind: 'choice', label: 'the sex' },
+  { key: 'x', path: ['exposureDefinition'], kind: 'json', label: 'the exposure definition' },
   { key: 't', path: ['tableId'], kind: 'text', label: 'the table id' },
 ];
 
 /**
  * The longest link the codec writes or reads, in characters. Every valid scenario fits: its five
  * wording fields of at most 500 characters each, written as three-byte UTF-8 (9 characters per
- * character once percent-encoded), make about 22,500; the rest adds under 2,000 (hand-computed:
- * 5 × 500 × 9 = 22,500; table id 100 × 9 = 900; 16 numbers of at most 24 characters = 384).
+ * character once percent-encoded), make about 22,500; the rest adds under 2,500 (hand-computed:
+ * 5 × 500 × 9 = 22,500; table id 100 × 9 = 900; 16 numbers of at most 24 characters = 384; the
+ * longest exposure definition, about 170 characters of JSON, at most 3 characters each once
+ * percent-encoded = 510).
  * Anything longer was not made by this codec.
  */
 export const MAX_LINK_CHARS = 32_768;
@@ -178,6 +184,9 @@ function scenarioParams(scenario: Scenario): string {
         break;
       case 'choice':
         params.append(param.key, String(value));
+        break;
+      case 'json':
+        params.append(param.key, JSON.stringify(value));
         break;
       case 'text':
         // Broken text is not written (scenarioLinkIssues names it); everything else is.
@@ -324,6 +333,16 @@ function readValue(param: Param, raw: string, asJson: boolean): { value: unknown
       return { problem: `${named} must be 1 (adjusted) or 0 (unadjusted), not ${quote(raw)}` };
     case 'choice':
       return { value: raw };
+    case 'json': {
+      let value: unknown;
+      try {
+        value = JSON.parse(raw);
+      } catch {
+        value = undefined;
+      }
+      if (typeof value !== 'object' || value === null || Array.isArray(value)) return { problem: `${named} must be a JSON object, not ${quote(raw)}` };
+      return { value };
+    }
     case 'text': {
       if (!asJson) return { value: raw };
       let value: unknown;

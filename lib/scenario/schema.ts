@@ -9,6 +9,7 @@
  * Ranges are stated once here, with the reason for each bound. Risks are fractions.
  */
 import { z } from '../zod';
+import { exposureDefinitionSchema } from '../glycaemia/exposure';
 import { fraction, MAX_RATIO, MAX_TEXT, MAX_YEARS, MIN_RATIO, numberField, ratio, text, years } from '../validation/fields';
 
 /**
@@ -162,6 +163,11 @@ const scenarioShape = {
     .optional(),
   wording: wordingSchema.optional(),
   person: personSchema.optional(),
+  /**
+   * How the study defined its exposure over time (lib/glycaemia/exposure.ts), when it did: the
+   * glucose history check uses it. Carried with the evidence, never computed with.
+   */
+  exposureDefinition: exposureDefinitionSchema.optional(),
   /** Id of the population table the baseline was looked up in, when it was. */
   tableId: z
     .string({ error: 'The table id must be text' })

@@ -5,3 +5,4 @@ export * from './caution';
 export * from './patient';
 export * from './clinician';
 export * from './screen';
+export * from './ownResults';

@@ -4,6 +4,7 @@
  * flagged, outcomes that differ are named, "8%" and decimal commas are read, Clear is undoable,
  * demo data carries its band, and the 390 px layout keeps the result one tap away.
  */
+import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { scenarioQuery } from '../../lib/link';
 import type { Scenario } from '../../lib/scenario/schema';
@@ -136,4 +137,43 @@ test('at 390 px the result is one tap away and nothing widens the page (item 11)
   await page.setViewportSize({ width: 1280, height: 900 });
   await expect(page.getByTestId('see-result')).toBeHidden();
   await page.screenshot({ path: 'test-results/screens/vm-consultation-1280.png', fullPage: true });
+});
+
+test('at 390 px, after a change far down the form, a link right under that field takes one tap to the result; it covers nothing and axe is clean (item 11)', async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  await page.goto('/');
+  await page.getByTestId('load-example').click();
+  await expect(page.getByTestId('result')).toBeAttached();
+  // The horizon is in the last section, far below the top link.
+  const horizon = field(page, 'horizonYears');
+  await horizon.fill('5');
+  const link = page.getByTestId('see-result-inline');
+  await expect(link).toHaveCount(1);
+  await expect(link).toBeInViewport();
+  await expect(link).toHaveText('See the result');
+  await expect(page.getByTestId('see-result')).not.toBeInViewport();
+  // Directly under the changed field, in the page's flow: it overlaps no other control.
+  const [fieldBox, linkBox] = await Promise.all([horizon.boundingBox(), link.boundingBox()]);
+  expect(linkBox && fieldBox && linkBox.y >= fieldBox.y + fieldBox.height).toBe(true);
+  expect(linkBox && linkBox.height >= 24).toBe(true);
+  const covered = await link.evaluate((a) => {
+    const r = a.getBoundingClientRect();
+    const hit = document.elementFromPoint(r.left + r.width / 2, r.top + r.height / 2);
+    return hit !== a && !a.contains(hit);
+  });
+  expect(covered).toBe(false);
+  await page.screenshot({ path: 'test-results/screens/consult-390-inline-link.png' });
+  // One key press: the result comes into view.
+  await link.press('Enter');
+  await expect(page.getByRole('heading', { name: 'Result', exact: true })).toBeInViewport();
+  await page.screenshot({ path: 'test-results/screens/consult-390-after-link.png' });
+  // A field that does not change the numbers' validity still gets the link; only one at a time.
+  await field(page, 'person.age').fill('56');
+  await expect(page.getByTestId('see-result-inline')).toHaveCount(1);
+  await expect(page.getByTestId('see-result-inline')).toBeInViewport();
+  const report = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join('; ')}`)).toEqual([]);
+  // On a wide screen the result is beside the form: no link.
+  await page.setViewportSize({ width: 1280, height: 900 });
+  await expect(page.getByTestId('see-result-inline')).toBeHidden();
 });

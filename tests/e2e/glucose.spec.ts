@@ -391,3 +391,38 @@ test('on a desktop the chart is wide enough for every date, and its text alterna
   for (const point of series.points) await expect(chart.locator('svg text', { hasText: point.date })).toHaveCount(1);
   await page.getByTestId('glucose-history').screenshot({ path: 'test-results/screens/glucose-desktop.png' });
 });
+
+test('"Prepare handout" carries the pasted history: the sheet prints the person’s own results in plain words (issue 12 item 15)', async ({ page }) => {
+  await paste(page, FITTING);
+  // Hand-written: HbA1c 6.0%, 6.1%, 44 mmol/mol = 6.2% (hand-computed above; mixed units, so all in
+  // ADA's %), 6.3%, one a year from 2022 to 2025.
+  const sentence = 'Your HbA1c was between 6.0% and 6.3% at four yearly checkups, from 2022 to 2025.';
+  await expect(page.getByTestId('glucose-own-results')).toContainText(sentence);
+  await page.getByTestId('prepare-handout').click();
+  await expect(page).toHaveURL(/\/handout#/);
+  const own = page.getByTestId('handout-own-results');
+  await expect(own).toContainText('Your own results');
+  await expect(own).toContainText(sentence);
+  await expect(own).toContainText('A range is not a diagnosis.');
+  await page.screenshot({ path: 'test-results/screens/glucose-handout-own-results.png', fullPage: true });
+});
+
+test('an exposure definition typed on the screen is the one the history is checked against (issue 9 item 1)', async ({ page }) => {
+  // Start from the demo entry, then say the study counted HbA1c alone with no gap over 12 months:
+  // the 2024 checkup's 44 mmol/mol is in the prediabetes range, so the run still holds.
+  const exposure = page.getByTestId('exposure-definition');
+  await expect(field(page, 'exposure.defined')).toHaveValue('yes');
+  await field(page, 'exposure.test').selectOption('hba1c');
+  await field(page, 'exposure.minYears').selectOption('5');
+  await expect(page.getByTestId('glucose-history')).toContainText('5 yearly results in a row in the prediabetes range (ADA), decided by HbA1c alone');
+  await paste(page, FITTING);
+  // Four yearly results cannot make the five now asked for.
+  await expect(page.getByTestId('glucose-match').locator('.glucose__match-lead')).toHaveText(DOES_NOT_FIT);
+  await expect(mismatchWarning(page)).toHaveCount(1);
+  // The link carries it: a reload keeps the definition and the check.
+  await expect(page).toHaveURL(/&x=/);
+  await page.reload();
+  await expect(field(page, 'exposure.test')).toHaveValue('hba1c');
+  await expect(field(page, 'exposure.minYears')).toHaveValue('5');
+  await expect(exposure).toBeVisible();
+});

@@ -132,11 +132,11 @@ test('the person’s own results, handed over from the consultation screen, are 
   });
   await page.addInitScript(([key, value]) => window.sessionStorage.setItem(key, value), [HANDOUT_HISTORY_KEY, record] as const);
   await openHandout(page, scenario);
-  await expect(page.getByTestId('handout-own-results')).toContainText('Your HbA1c was between 5.8% and 6.2% at 5 yearly checkups, from March 2019 to March 2023.');
+  await expect(page.getByTestId('handout-own-results')).toContainText('Your HbA1c was between 5.8% and 6.2% at five yearly checkups, from 2019 to 2023.');
   await expect(page.getByTestId('handout-demo-band')).toHaveCount(0);
   const { text } = await printOnePage(page, 'own-results-a4');
   expect(text).toContain('Your own results');
-  expect(text).toContain('Your HbA1c was between 5.8% and 6.2% at 5 yearly checkups');
+  expect(text).toContain('Your HbA1c was between 5.8% and 6.2% at five yearly checkups');
   expect(text).not.toMatch(/illustrative figures/i);
   // Left off when the clinician unticks it.
   await page.getByLabel('Print them on the handout', { exact: true }).uncheck();

@@ -29,6 +29,7 @@ import { importLimitIssue, MAX_PASTE_PROBLEMS, parsePastedRows, pasteSummary, PA
 import { importFhirGlucoseJson } from '@/lib/fhir/importGlucose';
 import { fhirImportSummary, skipLine } from '@/lib/fhir/summary';
 import { GlucoseTimelineChart } from './GlucoseTimelineChart';
+import { PlainSelectField, PlainTextField } from '@/app/consultation/fields';
 import type { GlucoseHistoryHolder, ImportMode } from './useGlucoseHistory';
 import './glucose.css';
 
@@ -170,12 +171,13 @@ export function GlucoseHistory({ history }: GlucoseHistoryProps) {
         >
           {CRITERIA_SETS.map((c) => (
             <option key={c} value={c}>
-              {CRITERIA[c].name}
+              {CRITERIA[c].id}
             </option>
           ))}
         </select>
+        {/* Short names in the list, so it fits a 390 px phone; the full name is in the hint. */}
         <p className="field__hint" id={`${id}-criteria-source`}>
-          Thresholds from {CRITERIA[criteria].source}, applied in its own units.
+          {CRITERIA[criteria].name}: thresholds from {CRITERIA[criteria].source}, applied in its own units.
         </p>
       </div>
 
@@ -188,52 +190,27 @@ export function GlucoseHistory({ history }: GlucoseHistoryProps) {
           const errors = view.rowErrors[index] ?? {};
           const label = view.rowLabels[index] ?? '';
           const field = (f: DraftField, text: string, extra: { hint?: string; inputMode?: 'decimal' } = {}) => (
-            <div className={`field glucose__field glucose__field--${f}${errors[f] ? ' field--invalid' : ''}`}>
-              <label className="field__label" htmlFor={fieldId(row.key, f)}>
-                {text}
-              </label>
-              <input
-                id={fieldId(row.key, f)}
-                className="field__input"
-                type="text"
-                autoComplete="off"
-                inputMode={extra.inputMode}
-                value={row.draft[f]}
-                onChange={(e) => history.setField(row.key, f, e.target.value)}
-                aria-invalid={errors[f] ? true : undefined}
-                aria-describedby={describedBy(extra.hint, errors[f] && errorId(row.key, f))}
-              />
-              {errors[f] ? (
-                <p className="field__error" id={errorId(row.key, f)}>
-                  {errors[f]}
-                </p>
-              ) : null}
-            </div>
+            <PlainTextField
+              id={fieldId(row.key, f)}
+              label={text}
+              className={`glucose__field glucose__field--${f}`}
+              kind={extra.inputMode === 'decimal' ? 'decimal' : 'text'}
+              value={row.draft[f]}
+              onChange={(value) => history.setField(row.key, f, value)}
+              error={errors[f]}
+              hintIds={extra.hint ? [extra.hint] : []}
+            />
           );
           const unit = (f: 'hba1cUnit' | 'fpgUnit', text: string, units: readonly string[]) => (
-            <div className={`field glucose__field glucose__field--unit${errors[f] ? ' field--invalid' : ''}`}>
-              <label className="field__label" htmlFor={fieldId(row.key, f)}>
-                {text}
-              </label>
-              <select
-                id={fieldId(row.key, f)}
-                className="field__input"
-                value={row.draft[f]}
-                onChange={(e) => history.setField(row.key, f, e.target.value)}
-                aria-describedby={errors[f] ? errorId(row.key, f) : undefined}
-              >
-                {units.map((u) => (
-                  <option key={u} value={u}>
-                    {u}
-                  </option>
-                ))}
-              </select>
-              {errors[f] ? (
-                <p className="field__error" id={errorId(row.key, f)}>
-                  {errors[f]}
-                </p>
-              ) : null}
-            </div>
+            <PlainSelectField
+              id={fieldId(row.key, f)}
+              label={text}
+              className="glucose__field glucose__field--unit"
+              value={row.draft[f]}
+              onChange={(value) => history.setField(row.key, f, value)}
+              error={errors[f]}
+              choices={units.map((u) => ({ value: u, label: u }))}
+            />
           );
           return (
             <fieldset
@@ -356,6 +333,12 @@ export function GlucoseHistory({ history }: GlucoseHistoryProps) {
                 <li key={reason}>{reason}</li>
               ))}
             </ul>
+          </div>
+        ) : null}
+        {view.ownResults ? (
+          <div className="glucose__own" data-testid="glucose-own-results">
+            <p className="glucose__own-lead">{view.ownResults.heading}:</p>
+            <p>{view.ownResults.text}</p>
           </div>
         ) : null}
       </div>

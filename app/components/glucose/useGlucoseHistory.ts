@@ -23,6 +23,7 @@ import { localIsoDate } from '@/lib/glycaemia/dates';
 import { emptyDraft, isBlankDraft, type CheckupDraft, type DraftField } from '@/lib/glycaemia/draft';
 import type { CriteriaSet, ExposureDefinition } from '@/lib/glycaemia/exposure';
 import type { HistoryMatch } from '@/lib/glycaemia/match';
+import type { GlucoseHistory } from '@/lib/glycaemia/parse';
 import type { GlucoseHistoryView } from '@/lib/glycaemia/view';
 import type { Warning } from '@/lib/result';
 
@@ -57,6 +58,8 @@ export interface GlucoseHistoryHolder {
   readonly view: GlucoseHistoryView | null;
   /** The history against the exposure; null while closed, without an exposure, or before the rows are valid. */
   readonly match: HistoryMatch | null;
+  /** The valid history for the handout's "Your own results"; null while closed or while a row is invalid. */
+  readonly handoutHistory: GlucoseHistory | null;
   /** For the result's warnings: the diabetes-range note and the mismatch warning, when present. */
   readonly warnings: readonly Warning[];
   /** How many rows "Clear all rows" removed, while its undo is offered; null otherwise. */
@@ -91,7 +94,17 @@ export function loadGlucoseView(): Promise<ViewModule> {
 
 function sameExposure(a: ExposureDefinition | undefined, b: ExposureDefinition | undefined): boolean {
   if (a === b) return true;
-  return a !== undefined && b !== undefined && a.category === b.category && a.criteria === b.criteria && a.minYears === b.minYears;
+  return (
+    a !== undefined &&
+    b !== undefined &&
+    a.category === b.category &&
+    a.criteria === b.criteria &&
+    a.minYears === b.minYears &&
+    a.test === b.test &&
+    a.maxGapMonths === b.maxGapMonths &&
+    a.comparison?.category === b.comparison?.category &&
+    a.comparison?.minYears === b.comparison?.minYears
+  );
 }
 
 function sameWarnings(a: readonly Warning[], b: readonly Warning[]): boolean {
@@ -206,6 +219,7 @@ export function useGlucoseHistory({ exposure, today, initiallyOpen = false }: Gl
     today: day,
     view,
     match,
+    handoutHistory: view?.history ?? null,
     warnings,
     clearedRows: kept.cleared ? kept.cleared.filter((r) => !isBlankDraft(r.draft)).length : null,
     setOpen,

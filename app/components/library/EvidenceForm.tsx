@@ -1,22 +1,27 @@
 'use client';
 /**
  * Edit an evidence entry: its title, the effect (measure, estimate, interval, level, design,
- * follow-up, adjusted), the wording and notes. Validated by the entry schema on save; each
- * problem appears beside its field (aria-describedby) and nothing is saved until all are fixed.
+ * follow-up, adjusted), the wording, the exposure over time and notes. The same field
+ * components (app/consultation/fields.tsx), choice lists and number reader as the consultation
+ * form; the values and their reading are lib/consultation/evidenceEditor.ts. Validated by the
+ * entry schema on save; each problem appears under its field (aria-describedby) and nothing is
+ * saved until all are fixed.
  *
  * Props:
- * - entry: the entry to edit (its id and exposure definition are kept);
+ * - entry: the entry to edit (its id and whether it is illustrative are kept);
  * - onSave(entry): called with the valid entry; it resolves to issues when the library refused it;
  * - onCancel().
  */
-import { useId, useState, type FormEvent } from 'react';
-import type { Issue } from '@/lib/result';
-import { parseEvidenceEntry } from '@/lib/evidence/parse';
+import { useId, useState } from 'react';
+import { FormProvider, useForm, type FieldError, type Resolver } from 'react-hook-form';
+import { toNestErrors } from '@hookform/resolvers';
+import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/lib/consultation/choices';
+import { entryFromEditorValues, evidenceEditorValues, type EvidenceEditorValues } from '@/lib/consultation/evidenceEditor';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import { EFFECT_MEASURES, INTERVAL_LEVELS, STUDY_DESIGNS } from '@/lib/scenario/schema';
-import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES, LEVEL_CHOICES_FOR_FORM, MEASURE_CHOICES } from '@/app/consultation/choices';
+import type { Issue } from '@/lib/result';
+import { ExposureDefinitionFields } from '@/app/consultation/ExposureDefinitionFields';
+import { FieldIdPrefix, SelectField, TextField } from '@/app/consultation/fields';
 import { ProblemList } from './ProblemList';
-import { ExposureFields, withExposure } from '../exposure/ExposureFields';
 
 export interface EvidenceFormProps {
   readonly entry: EvidenceEntry;
@@ -24,191 +29,86 @@ export interface EvidenceFormProps {
   readonly onCancel: () => void;
 }
 
-const WORDING = ['outcome', 'exposure', 'comparison', 'population', 'citation'] as const;
-type Draft = Record<string, string>;
+/** The editor's own field names: every issue whose path is one of them shows under that field. */
+const FIELDS = new Set([
+  'title',
+  'notes',
+  ...['measure', 'estimate', 'lower', 'upper', 'level', 'design', 'followUpYears', 'adjusted'].map((k) => `effect.${k}`),
+  ...['outcome', 'exposure', 'comparison', 'population', 'citation'].map((k) => `wording.${k}`),
+  ...['defined', 'test', 'category', 'criteria', 'minYears', 'maxGapMonths', 'comparison', 'comparisonYears'].map((k) => `exposure.${k}`),
+]);
 
-function toDraft(e: EvidenceEntry): Draft {
-  const d: Draft = {
-    title: e.title,
-    measure: e.effect.measure,
-    estimate: String(e.effect.estimate),
-    lower: String(e.effect.lower),
-    upper: String(e.effect.upper),
-    level: e.effect.level === undefined ? '' : String(e.effect.level),
-    design: e.effect.design ?? '',
-    followUpYears: e.effect.followUpYears === undefined ? '' : String(e.effect.followUpYears),
-    adjusted: e.effect.adjusted === undefined ? '' : String(e.effect.adjusted),
-    notes: e.notes ?? '',
+function resolverFor(entry: EvidenceEntry): Resolver<EvidenceEditorValues> {
+  return (values, _context, options) => {
+    const read = entryFromEditorValues(values, entry);
+    if (read.ok) return { values, errors: {} };
+    const flat: Record<string, FieldError> = {};
+    for (const issue of read.issues) {
+      const name = issue.path.join('.');
+      if (FIELDS.has(name) && flat[name] === undefined) flat[name] = { type: issue.code, message: issue.message };
+    }
+    return { values: {}, errors: toNestErrors(flat, options) };
   };
-  for (const k of WORDING) d[k] = e.wording[k] ?? '';
-  return d;
-}
-
-/** Text to a number for the schema to judge; "" stays absent; a non-number stays text so the schema names it. */
-function numberOrText(text: string): number | string {
-  const t = text.trim();
-  return /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t) ? Number(t) : t;
-}
-
-function fromDraft(d: Draft, base: EvidenceEntry): unknown {
-  const opt = <T,>(key: string, value: T) => ((d[key] ?? '').trim() === '' ? {} : { [key]: value });
-  const wording: Record<string, string> = {};
-  for (const k of WORDING) if ((d[k] ?? '').trim() !== '') wording[k] = (d[k] ?? '').trim();
-  return {
-    id: base.id,
-    title: d.title ?? '',
-    effect: {
-      measure: d.measure,
-      estimate: numberOrText(d.estimate ?? ''),
-      lower: numberOrText(d.lower ?? ''),
-      upper: numberOrText(d.upper ?? ''),
-      ...opt('level', numberOrText(d.level ?? '')),
-      ...opt('design', d.design),
-      ...opt('followUpYears', numberOrText(d.followUpYears ?? '')),
-      ...opt('adjusted', d.adjusted === 'true'),
-    },
-    wording,
-    ...(base.exposureDefinition ? { exposureDefinition: base.exposureDefinition } : {}),
-    illustrative: base.illustrative,
-    ...opt('notes', d.notes ?? ''),
-  };
-}
-
-const LABELS: Record<string, string> = {
-  title: 'Title in the library',
-  measure: 'Measure',
-  estimate: 'Estimate',
-  lower: 'Lower limit',
-  upper: 'Upper limit',
-  level: 'Interval level',
-  design: 'Study design',
-  followUpYears: 'Follow-up (years)',
-  adjusted: 'Adjusted',
-  outcome: 'Outcome',
-  exposure: 'Exposure',
-  comparison: 'Comparison',
-  population: 'Population',
-  citation: 'Citation',
-  notes: 'Notes',
-};
-
-/** An option in the form's words (the consultation form's choice lists), never its stored code. */
-function optionWords(key: string, value: string): string {
-  const list = key === 'measure' ? MEASURE_CHOICES : key === 'level' ? LEVEL_CHOICES_FOR_FORM : key === 'design' ? DESIGN_CHOICES : undefined;
-  if (key === 'adjusted') return ADJUSTED_CHOICES_FOR_FORM.find((c) => c.value === (value === 'true' ? 'yes' : 'no'))?.label ?? value;
-  return list?.find((c) => c.value === value)?.label ?? value;
 }
 
 export function EvidenceForm({ entry, onSave, onCancel }: EvidenceFormProps) {
   const id = useId();
-  const [draft, setDraft] = useState<Draft>(() => toDraft(entry));
-  const [issues, setIssues] = useState<readonly Issue[]>([]);
+  const [resolver] = useState(() => resolverFor(entry));
+  const methods = useForm<EvidenceEditorValues>({ resolver, defaultValues: evidenceEditorValues(entry), mode: 'onSubmit', reValidateMode: 'onChange' });
+  const [problems, setProblems] = useState<readonly Issue[]>([]);
   const [saving, setSaving] = useState(false);
-  const [exposure, setExposure] = useState(entry.exposureDefinition);
 
-  const fieldIssues = (key: string) => issues.filter((i) => i.path[i.path.length - 1] === key);
-  const other = issues.filter((i) => !(String(i.path[i.path.length - 1]) in LABELS) && i.path[0] !== 'exposureDefinition');
-
-  async function submit(event: FormEvent) {
-    event.preventDefault();
-    const parsed = parseEvidenceEntry(fromDraft(draft, withExposure(entry, exposure)));
-    if (!parsed.ok) return setIssues(parsed.issues);
+  async function save(values: EvidenceEditorValues) {
+    const read = entryFromEditorValues(values, entry);
+    if (!read.ok) return;
     setSaving(true);
-    const refused = await onSave(parsed.value);
+    const refused = await onSave(read.value);
     setSaving(false);
-    setIssues(refused);
+    setProblems(refused);
   }
-
-  function field(key: string, kind: 'text' | 'number' | 'textarea' = 'text') {
-    const errs = fieldIssues(key);
-    const errId = `${id}-${key}-error`;
-    const common = {
-      id: `${id}-${key}`,
-      className: 'field__input',
-      value: draft[key] ?? '',
-      'aria-invalid': errs.length > 0,
-      'aria-describedby': errs.length > 0 ? errId : undefined,
-    };
-    return (
-      <div className={`field${errs.length > 0 ? ' field--invalid' : ''}`} key={key}>
-        <label className="field__label" htmlFor={`${id}-${key}`}>
-          {LABELS[key]}
-        </label>
-        {kind === 'textarea' ? (
-          <textarea {...common} rows={3} onChange={(e) => setDraft({ ...draft, [key]: e.target.value })} />
-        ) : (
-          <input {...common} inputMode={kind === 'number' ? 'decimal' : undefined} onChange={(e) => setDraft({ ...draft, [key]: e.target.value })} />
-        )}
-        {errs.length > 0 && (
-          <p className="field__error" id={errId}>
-            {errs.map((e) => e.message).join(' ')}
-          </p>
-        )}
-      </div>
-    );
-  }
-
-  function select(key: string, options: readonly (string | number)[], allowEmpty: boolean) {
-    const errs = fieldIssues(key);
-    const errId = `${id}-${key}-error`;
-    return (
-      <div className={`field${errs.length > 0 ? ' field--invalid' : ''}`} key={key}>
-        <label className="field__label" htmlFor={`${id}-${key}`}>
-          {LABELS[key]}
-        </label>
-        <select
-          id={`${id}-${key}`}
-          className="field__input"
-          value={draft[key] ?? ''}
-          aria-invalid={errs.length > 0}
-          aria-describedby={errs.length > 0 ? errId : undefined}
-          onChange={(e) => setDraft({ ...draft, [key]: e.target.value })}
-        >
-          {allowEmpty && <option value="">(not stated)</option>}
-          {options.map((o) => (
-            <option key={String(o)} value={String(o)}>
-              {optionWords(key, String(o))}
-            </option>
-          ))}
-        </select>
-        {errs.length > 0 && (
-          <p className="field__error" id={errId}>
-            {errs.map((e) => e.message).join(' ')}
-          </p>
-        )}
-      </div>
-    );
-  }
+  // Problems with no field of their own (the library refused the entry) are listed together.
+  const invalid = () => {
+    const read = entryFromEditorValues(methods.getValues(), entry);
+    setProblems(read.ok ? [] : read.issues.filter((i) => !FIELDS.has(i.path.join('.'))));
+  };
 
   return (
-    <form className="library__form" onSubmit={(e) => void submit(e)} noValidate aria-label={`Edit ${entry.title}`}>
-      {field('title')}
-      <fieldset className="subsection">
-        <legend className="subsection__title">Effect</legend>
-        {select('measure', EFFECT_MEASURES, false)}
-        {field('estimate', 'number')}
-        {field('lower', 'number')}
-        {field('upper', 'number')}
-        {select('level', INTERVAL_LEVELS, true)}
-        {select('design', STUDY_DESIGNS, true)}
-        {field('followUpYears', 'number')}
-        {select('adjusted', ['true', 'false'], true)}
-      </fieldset>
-      <fieldset className="subsection">
-        <legend className="subsection__title">Wording</legend>
-        {WORDING.map((k) => field(k))}
-      </fieldset>
-      <ExposureFields value={exposure} onChange={setExposure} issues={issues.filter((i) => i.path[0] === 'exposureDefinition')} />
-      {field('notes', 'textarea')}
-      <ProblemList problems={other} heading="Not saved" />
-      <div className="library__buttons">
-        <button type="submit" className="button" disabled={saving}>
-          {saving ? 'Saving…' : 'Save changes'}
-        </button>
-        <button type="button" className="button button--secondary" onClick={onCancel}>
-          Cancel
-        </button>
-      </div>
-    </form>
+    <FormProvider {...methods}>
+      <FieldIdPrefix.Provider value={`${id}-`}>
+        <form className="library__form" onSubmit={(e) => void methods.handleSubmit(save, invalid)(e)} noValidate aria-label={`Edit ${entry.title}`}>
+          <TextField<EvidenceEditorValues> name="title" label="Title in the library" kind="text" size="long" />
+          <fieldset className="subsection">
+            <legend className="subsection__title">Effect</legend>
+            <SelectField<EvidenceEditorValues> name="effect.measure" label="Measure" choices={MEASURE_CHOICES} />
+            <TextField<EvidenceEditorValues> name="effect.estimate" label="Estimate" />
+            <TextField<EvidenceEditorValues> name="effect.lower" label="Lower limit" />
+            <TextField<EvidenceEditorValues> name="effect.upper" label="Upper limit" />
+            <SelectField<EvidenceEditorValues> name="effect.level" label="Interval level" choices={LEVEL_CHOICES_FOR_FORM} />
+            <SelectField<EvidenceEditorValues> name="effect.design" label="Study design" choices={DESIGN_CHOICES} />
+            <TextField<EvidenceEditorValues> name="effect.followUpYears" label="Follow-up (years)" />
+            <SelectField<EvidenceEditorValues> name="effect.adjusted" label="Adjusted" choices={ADJUSTED_CHOICES_FOR_FORM} />
+          </fieldset>
+          <fieldset className="subsection">
+            <legend className="subsection__title">Wording</legend>
+            <TextField<EvidenceEditorValues> name="wording.outcome" label="Outcome" kind="text" size="long" />
+            <TextField<EvidenceEditorValues> name="wording.exposure" label="Exposure" kind="text" size="long" />
+            <TextField<EvidenceEditorValues> name="wording.comparison" label="Comparison" kind="text" size="long" />
+            <TextField<EvidenceEditorValues> name="wording.population" label="Population" kind="text" size="long" />
+            <TextField<EvidenceEditorValues> name="wording.citation" label="Citation" kind="text" size="long" />
+          </fieldset>
+          <ExposureDefinitionFields />
+          <TextField<EvidenceEditorValues> name="notes" label="Notes" kind="multiline" size="long" />
+          <ProblemList problems={problems} heading="Not saved" />
+          <div className="library__buttons">
+            <button type="submit" className="button" disabled={saving}>
+              {saving ? 'Saving…' : 'Save changes'}
+            </button>
+            <button type="button" className="button button--secondary" onClick={onCancel}>
+              Cancel
+            </button>
+          </div>
+        </form>
+      </FieldIdPrefix.Provider>
+    </FormProvider>
   );
 }

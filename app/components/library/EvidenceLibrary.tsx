@@ -20,7 +20,7 @@ import type { Issue } from '@/lib/result';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { StoredEvidence } from '@/lib/storage/records';
 import { fileKindCode, fileKindSentence, sniffBytes, SNIFF_BYTES } from '@/lib/files/kind';
-import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES } from '@/app/consultation/choices';
+import { ADJUSTED_CHOICES_FOR_FORM, DESIGN_CHOICES } from '@/lib/consultation/choices';
 import { searchEvidence } from '@/lib/evidence/search';
 import { MAX_EVIDENCE_FILE_CHARS } from '@/lib/evidence/file';
 import type { Library } from '@/app/storage/library';

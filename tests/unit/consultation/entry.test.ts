@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { evidenceToFormValues } from '@/app/consultation/fromScenario';
+import { evidenceToFormValues } from '@/lib/consultation/fromScenario';
 import { checkEntry, effectMatches, leftoverIssues } from '@/lib/consultation';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { EMPTY_FORM_VALUES, formToFigures } from '@/app/consultation/formModel';
-import { createFormPipeline, sameFormValues } from '@/app/consultation/pipeline';
+import { EMPTY_FORM_VALUES, formToFigures } from '@/lib/consultation/formValues';
+import { createFormPipeline, sameFormValues } from '@/lib/consultation/pipeline';
 import { DEMO_TABLES } from '@/lib/tables/demo';
 
 describe('createFormPipeline: the engine runs once per change', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EMPTY_FORM_VALUES, formToFigures, type ConsultationFormValues } from '@/app/consultation/formModel';
+import { EMPTY_FORM_VALUES, formToFigures, type ConsultationFormValues } from '@/lib/consultation/formValues';
 import { consultationDetails, consultationView, outcomeMismatch, type ConsultationView } from '@/lib/consultation';
 import { scenarioContext } from '@/lib/context';
 import { computeScenario } from '@/lib/engine/compute';

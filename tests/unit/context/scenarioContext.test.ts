@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EMPTY_FORM_VALUES, formToOutcome, type ConsultationFormValues } from '@/app/consultation/formModel';
+import { EMPTY_FORM_VALUES, formToOutcome, type ConsultationFormValues } from '@/lib/consultation/formValues';
 import { tablePreview } from '@/app/consultation/tablePreview';
 import { groupPhrase, scenarioContext, stratumAgeBand } from '@/lib/context';
 import { DEFAULT_BLOCKS, handoutSheet } from '@/lib/handout';

@@ -105,4 +105,19 @@ describe('describeExposure', () => {
     expect(describeExposure({ category: 'prediabetes', criteria: 'ADA', minYears: 3 })).toBe("The study's exposure: 3 yearly results in a row in the prediabetes range (ADA).");
     expect(describeExposure({ category: 'normal', criteria: 'NICE', minYears: 1 })).toBe("The study's exposure: a result in the normal range (NICE).");
   });
+
+  it('names the deciding test, the longest gap and the comparison group when the definition states them (issue 9 item 1)', () => {
+    expect(describeExposure({ category: 'prediabetes', criteria: 'ADA', minYears: 3, test: 'hba1c', maxGapMonths: 15, comparison: { category: 'normal' } })).toBe(
+      "The study's exposure: 3 yearly results in a row in the prediabetes range (ADA), decided by HbA1c alone, with no gap longer than 15 months. Comparison group: 3 yearly results in a row in the normal range, over the same span.",
+    );
+    expect(describeExposure({ category: 'diabetes-range', criteria: 'WHO', minYears: 2, test: 'fpg' })).toBe(
+      "The study's exposure: 2 yearly results in a row in the diabetes range (WHO), decided by fasting glucose alone.",
+    );
+    expect(describeExposure({ category: 'prediabetes', criteria: 'NICE', minYears: 4, test: 'both', comparison: { category: 'normal', minYears: 2 } })).toBe(
+      "The study's exposure: 4 yearly results in a row in the prediabetes range (NICE), decided by HbA1c and fasting glucose together, both in the range. Comparison group: 2 yearly results in a row in the normal range.",
+    );
+    expect(describeExposure({ category: 'prediabetes', criteria: 'ADA', minYears: 1, test: 'either', maxGapMonths: 18 })).toBe(
+      "The study's exposure: a result in the prediabetes range (ADA), decided by HbA1c or fasting glucose, whichever is in the higher range, with no gap longer than 18 months.",
+    );
+  });
 });

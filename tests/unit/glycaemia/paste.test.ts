@@ -81,8 +81,13 @@ describe('drafts → history input', () => {
     expect(readDecimal('-2')).toBe(-2);
     expect(readDecimal('')).toBeUndefined();
     expect(readDecimal('6.1.2')).toBe('6.1.2');
-    expect(readDecimal('1e3')).toBe('1e3');
+    // The one decimal reader (lib/text/decimal.ts) reads an exponent, as the form and the CSV
+    // reader do (issue 13 item 4); the schema's range then judges the value.
+    expect(readDecimal('1e3')).toBe(1000);
     expect(readDecimal('NaN')).toBe('NaN');
+    expect(readDecimal('6%')).toBe('6%');
+    // A comma before exactly three digits could be a thousands separator: not guessed at.
+    expect(readDecimal('1,000')).toBe('1,000');
   });
 
   it('leaves blank rows out and remembers which row each checkup came from', () => {

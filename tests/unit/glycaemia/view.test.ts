@@ -59,6 +59,8 @@ describe('glucoseHistoryView', () => {
     expect(v.rowErrors).toEqual([{}]);
     expect(v.rowLabels).toEqual(['Row 1']);
     expect(v.statusText).toBe('No checkups yet: add a row, paste rows or load a FHIR file.');
+    expect(v.ownResults).toBeNull();
+    expect(v.history).toBeNull();
   });
 
   it('maps every issue to its row and field', () => {
@@ -104,6 +106,16 @@ describe('glucoseHistoryView', () => {
     expect(v.timeline?.series).toHaveLength(2);
     expect(v.diabetesRangeNote).toBeNull();
     expect(v.caution).toMatch(/not a diagnosis/);
+    // The person's own results as the handout words them (lib/wording/ownResults.ts), and the
+    // valid history for the hand-over. Hand-written: HbA1c 6.0% and 6.2% a year apart; fasting
+    // glucose 99 mg/dL once (ADA normal below 100 mg/dL); the latest checkup is in the
+    // prediabetes range by its HbA1c (the higher range counts), and so is the one before.
+    expect(v.ownResults).toEqual({
+      heading: 'Your own results, as the handout words them',
+      text:
+        'Your HbA1c was between 6.0% and 6.2% at two yearly checkups, from 2022 to 2023. Your fasting blood sugar (glucose) was 99 mg/dL at one checkup, in 2023. Both results, from 2022 to 2023, were in the prediabetes range. A range is not a diagnosis. Ranges as set by the American Diabetes Association (ADA).',
+    });
+    expect(v.history?.checkups).toHaveLength(2);
   });
 
   it('shows the diabetes-range note for a latest result in that range', () => {

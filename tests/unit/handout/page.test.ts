@@ -86,7 +86,7 @@ describe('handoutPageView', () => {
     const query = scenarioQuery(TYPED);
     const on = handoutPageView(query, TEMPLATE, { date: DATE, storedHistory: stored });
     expect(on.kind === 'sheet' && on.history.state).toBe('available');
-    expect(on.kind === 'sheet' && on.sheet.ownResults?.items[0]).toBe('Your HbA1c was 6.1% at your checkup in March 2023.');
+    expect(on.kind === 'sheet' && on.sheet.ownResults?.items[0]).toBe('Your HbA1c was 6.1% at one checkup, in 2023.');
     const off = handoutPageView(query, TEMPLATE, { date: DATE, storedHistory: stored, includeHistory: false });
     expect(off.kind === 'sheet' && off.sheet.ownResults).toBeUndefined();
     const group = handoutPageView(query, TEMPLATE, { date: DATE, storedHistory: stored, audience: 'group' });

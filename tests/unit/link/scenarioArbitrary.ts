@@ -21,6 +21,14 @@ import {
   type Effect,
   type Scenario,
 } from '@/lib/scenario/schema';
+import {
+  CRITERIA_SETS,
+  DECIDING_TESTS,
+  GLYCAEMIC_CATEGORIES,
+  MAX_RUN_GAP_MONTHS,
+  MIN_RUN_GAP_MONTHS,
+  type ExposureDefinition,
+} from '@/lib/glycaemia/exposure';
 
 /** Objects as JSON.parse and zod make them (fast-check would otherwise try null prototypes too). */
 const plain = { noNullPrototype: true } as const;
@@ -117,6 +125,21 @@ const personArb = fc.record(
   { requiredKeys: [], ...plain },
 );
 
+/** Every valid exposure definition (lib/glycaemia/exposure.ts): the comparison's range differs from the exposure's. */
+export const exposureDefinitionArb: fc.Arbitrary<ExposureDefinition> = fc
+  .record(
+    {
+      category: fc.constantFrom(...GLYCAEMIC_CATEGORIES),
+      criteria: fc.constantFrom(...CRITERIA_SETS),
+      minYears: fc.integer({ min: 1, max: 50 }),
+      test: fc.constantFrom(...DECIDING_TESTS),
+      maxGapMonths: fc.integer({ min: MIN_RUN_GAP_MONTHS, max: MAX_RUN_GAP_MONTHS }),
+      comparison: fc.record({ category: fc.constantFrom(...GLYCAEMIC_CATEGORIES), minYears: fc.integer({ min: 1, max: 50 }) }, { requiredKeys: ['category'], ...plain }),
+    },
+    { requiredKeys: ['category', 'criteria', 'minYears'], ...plain },
+  )
+  .filter((d) => d.comparison === undefined || d.comparison.category !== d.category);
+
 export const anyValidScenarioArb: fc.Arbitrary<Scenario> = fc
   .record(
     {
@@ -127,6 +150,7 @@ export const anyValidScenarioArb: fc.Arbitrary<Scenario> = fc
       // An empty object is valid too, and must stay an empty object.
       wording: fc.oneof(fc.constant({}), wordingArb),
       person: fc.oneof(fc.constant({}), personArb),
+      exposureDefinition: exposureDefinitionArb,
       tableId: textArb(1, 100),
     },
     { requiredKeys: ['baseline', 'effect'], ...plain },

@@ -58,6 +58,28 @@ describe('encodeScenarioLink', () => {
     expect(decoded(encodeScenarioLink(full))).toStrictEqual(full);
   });
 
+  it('carries the study\'s exposure definition as one JSON parameter, and reads it back unchanged (issue 9 item 1)', () => {
+    const s: Scenario = {
+      ...minimal,
+      exposureDefinition: { category: 'prediabetes', criteria: 'ADA', minYears: 3, test: 'hba1c', maxGapMonths: 15, comparison: { category: 'normal' } },
+    };
+    // Hand-written: JSON.stringify of the definition, then form-encoded ({ → %7B, " → %22, : → %3A, , → %2C, } → %7D).
+    expect(encodeScenarioLink(s)).toBe(
+      '/#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9' +
+        '&x=%7B%22category%22%3A%22prediabetes%22%2C%22criteria%22%3A%22ADA%22%2C%22minYears%22%3A3%2C%22test%22%3A%22hba1c%22%2C%22maxGapMonths%22%3A15%2C%22comparison%22%3A%7B%22category%22%3A%22normal%22%7D%7D',
+    );
+    expect(decoded(encodeScenarioLink(s))).toStrictEqual(s);
+  });
+
+  it('leaves out an exposure definition that is not a JSON object, or that the schema refuses, and keeps the rest', () => {
+    const notJson = readScenarioLink('#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&x=prediabetes');
+    expect(notJson.result).toEqual({ ok: true, value: minimal });
+    expect(notJson.dropped[0]?.message).toBe('The link\'s "x" (the exposure definition) must be a JSON object, not "prediabetes"');
+    const refused = readScenarioLink(`#br=0.08&by=10&em=RR&ee=1.5&el=1.2&eu=1.9&x=${encodeURIComponent(JSON.stringify({ category: 'prediabetes', criteria: 'ADA', minYears: 0 }))}`);
+    expect(refused.result).toEqual({ ok: true, value: minimal });
+    expect(refused.dropped[0]?.path).toEqual(['exposureDefinition', 'minYears']);
+  });
+
   it('writes a rate baseline with its horizon, and adjusted false as 0', () => {
     const rate: Scenario = {
       baseline: { rate: 12, perPersonYears: 1000 },

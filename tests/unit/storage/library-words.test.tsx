@@ -21,8 +21,9 @@ describe('the library in people’s words', () => {
     const entry = DEMO_EVIDENCE.find((e) => e.effect.design === 'risk-set-case-control')!;
     render(<EvidenceForm entry={entry} onSave={async () => []} onCancel={() => {}} />);
     const texts = (label: string) => within(screen.getByLabelText(label)).getAllByRole('option').map((o) => o.textContent);
-    expect(texts('Interval level')).toEqual(['(not stated)', '90%', '95%', '99%']);
-    expect(texts('Adjusted')).toEqual(['(not stated)', 'Adjusted', 'Unadjusted']);
+    // The consultation form's own choice lists (lib/consultation/choices.ts), "not stated" in its words.
+    expect(texts('Interval level')).toEqual(['Not stated (95% assumed)', '95%', '90%', '99%']);
+    expect(texts('Adjusted')).toEqual(['Not stated', 'Adjusted', 'Unadjusted']);
     expect(texts('Study design')).not.toContain('risk-set-case-control');
     expect(texts('Study design')).toContain('Case-control with risk-set sampling (e.g. nested in a cohort)');
     expect(texts('Measure')).toEqual(['Odds ratio (OR)', 'Risk ratio (RR)', 'Hazard ratio (HR)']);

@@ -3,8 +3,8 @@
  * means. What each design's odds ratio estimates follows lib/engine/conversion.ts (Zhang & Yu
  * 1998; Greenland & Thomas 1982; Rodrigues & Kirkwood 1990; Knol et al. 2008).
  */
-import { EFFECT_MEASURES, INTERVAL_LEVELS, STUDY_DESIGNS } from '@/lib/scenario/schema';
-import { formatLevel } from '@/lib/wording/format';
+import { EFFECT_MEASURES, INTERVAL_LEVELS, STUDY_DESIGNS } from '../scenario/schema';
+import { formatLevel } from '../wording/format';
 
 /** One option of a choice field: its value in the form, its label and, when useful, what it means. */
 export interface Choice {

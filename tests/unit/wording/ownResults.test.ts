@@ -1,17 +1,23 @@
+/**
+ * "Your own results" (lib/wording/ownResults.ts): the one wording of a person's glucose history
+ * for the patient, used by the handout sheet and the glucose history section. Expected sentences
+ * are hand-written; conversions are hand-computed.
+ *
+ * Histories invented for the tests (illustrative values). Ranges under ADA: HbA1c 5.7–6.4% is the
+ * prediabetes range, 6.5% and above the diabetes range; fasting glucose 100–125 mg/dL is the
+ * prediabetes range, 126 mg/dL and above the diabetes range (ADA Standards of Care, section 2, as
+ * in lib/glycaemia/criteria.ts).
+ */
 import { describe, expect, it } from 'vitest';
-import { classifyHistory } from '@/lib/glycaemia/classify';
-import { countText, patientGlucoseSummary } from '@/lib/glycaemia/patientSummary';
 import type { CriteriaSet } from '@/lib/glycaemia/exposure';
 import type { Checkup } from '@/lib/glycaemia/schema';
-
-// Histories invented for the tests (illustrative values). Ranges under ADA: HbA1c 5.7–6.4% is
-// the prediabetes range, 6.5% and above the diabetes range; fasting glucose 100–125 mg/dL is the
-// prediabetes range (ADA Standards of Care, section 2, as in lib/glycaemia/criteria.ts).
+import { countWords, ownResultsText } from '@/lib/wording/ownResults';
 
 const pct = (date: string, value: number): Checkup => ({ date, hba1c: { value, unit: '%' } });
-const summary = (checkups: readonly Checkup[], criteria: CriteriaSet = 'ADA') => patientGlucoseSummary(classifyHistory([...checkups], criteria), criteria);
+const summary = (checkups: readonly Checkup[], criteria: CriteriaSet = 'ADA') => ownResultsText({ criteria, checkups });
+const yearly = (values: readonly number[]): Checkup[] => values.map((value, i) => pct(`${2019 + i}-03-01`, value));
 
-describe('patientGlucoseSummary', () => {
+describe('ownResultsText', () => {
   it('five yearly HbA1c results in the prediabetes range', () => {
     const s = summary([pct('2021-03-01', 5.8), pct('2022-03-07', 6.0), pct('2023-03-06', 6.2), pct('2024-03-04', 6.1), pct('2025-03-03', 5.9)]);
     expect(s?.tests).toEqual(['Your HbA1c was between 5.8% and 6.2% at five yearly checkups, from 2021 to 2025.']);
@@ -20,6 +26,12 @@ describe('patientGlucoseSummary', () => {
     expect(s?.text).toBe(
       'Your HbA1c was between 5.8% and 6.2% at five yearly checkups, from 2021 to 2025. All five results, from 2021 to 2025, were in the prediabetes range. A range is not a diagnosis. Ranges as set by the American Diabetes Association (ADA).',
     );
+    expect(s?.sentences).toEqual([
+      'Your HbA1c was between 5.8% and 6.2% at five yearly checkups, from 2021 to 2025.',
+      'All five results, from 2021 to 2025, were in the prediabetes range.',
+      'A range is not a diagnosis.',
+      'Ranges as set by the American Diabetes Association (ADA).',
+    ]);
   });
 
   it('gives mixed units in the body’s unit with the decimals labs print', () => {
@@ -36,10 +48,14 @@ describe('patientGlucoseSummary', () => {
     expect(s?.criteriaLine).toBe('Ranges as set by the National Institute for Health and Care Excellence (NICE).');
   });
 
-  it('one fasting glucose result', () => {
+  it('one fasting glucose result, in words a patient knows', () => {
     const s = summary([{ date: '2024-06-10', fpg: { value: 104, unit: 'mg/dL' } }]);
-    expect(s?.tests).toEqual(['Your fasting glucose was 104 mg/dL at one checkup, in 2024.']);
+    expect(s?.tests).toEqual(['Your fasting blood sugar (glucose) was 104 mg/dL at one checkup, in 2024.']);
     expect(s?.range).toBe('Your latest result, in 2024, is in the prediabetes range.');
+  });
+
+  it('says one HbA1c result plainly', () => {
+    expect(summary([pct('2023-03-01', 6.1)])?.tests).toEqual(['Your HbA1c was 6.1% at one checkup, in 2023.']);
   });
 
   it('both tests, one sentence each, HbA1c first', () => {
@@ -49,7 +65,7 @@ describe('patientGlucoseSummary', () => {
     ]);
     expect(s?.tests).toEqual([
       'Your HbA1c was between 6.1% and 6.3% at two yearly checkups, from 2023 to 2024.',
-      'Your fasting glucose was between 106 mg/dL and 118 mg/dL at two yearly checkups, from 2023 to 2024.',
+      'Your fasting blood sugar (glucose) was between 106 mg/dL and 118 mg/dL at two yearly checkups, from 2023 to 2024.',
     ]);
   });
 
@@ -68,19 +84,41 @@ describe('patientGlucoseSummary', () => {
     expect(text).toContain('A range is not a diagnosis.');
   });
 
-  it('does not say "yearly" across a long gap, and writes counts above ten in digits', () => {
+  it('fasting glucose in the diabetes range: "diabetes range" only (ADA ≥ 126 mg/dL)', () => {
+    const s = summary([
+      { date: '2022-04-01', fpg: { value: 118, unit: 'mg/dL' } },
+      { date: '2023-04-01', fpg: { value: 131, unit: 'mg/dL' } },
+    ]);
+    expect(s?.tests).toEqual(['Your fasting blood sugar (glucose) was between 118 mg/dL and 131 mg/dL at two yearly checkups, from 2022 to 2023.']);
+    expect(s?.range).toBe('Your latest result, in 2023, is in the diabetes range.');
+    for (const sentence of s?.sentences ?? []) expect(sentence.replace('American Diabetes Association', '')).not.toMatch(/diabetes(?! range)/i);
+  });
+
+  it('does not say "yearly" across a long gap or for checkups months apart, and writes counts above ten in digits', () => {
     expect(summary([pct('2015-03-02', 5.8), pct('2024-03-04', 5.9)])?.tests).toEqual(['Your HbA1c was between 5.8% and 5.9% at two checkups, from 2015 to 2024.']);
+    expect(summary([pct('2019-03-01', 6.1), pct('2021-06-01', 6.3)])?.tests).toEqual(['Your HbA1c was between 6.1% and 6.3% at two checkups, from 2019 to 2021.']);
+    expect(summary([pct('2023-01-10', 6.1), pct('2023-03-01', 6.3)])?.tests).toEqual(['Your HbA1c was between 6.1% and 6.3% at two checkups, in 2023.']);
     const twelve = Array.from({ length: 12 }, (_, i) => pct(`${2013 + i}-03-04`, 6.0));
     expect(summary(twelve)?.tests).toEqual(['Your HbA1c was 6.0% at each of 12 yearly checkups, from 2013 to 2024.']);
   });
 
-  it('gives nothing for no checkups', () => {
-    expect(patientGlucoseSummary([], 'ADA')).toBeNull();
+  it('leaves the range out when the body does not classify the latest result (WHO: HbA1c below 6.5% alone)', () => {
+    expect(summary(yearly([6.0, 6.1]), 'WHO')?.sentences).toEqual([
+      'Your HbA1c was between 6.0% and 6.1% at two yearly checkups, from 2019 to 2020.',
+      'A range is not a diagnosis.',
+      'Ranges as set by the World Health Organization (WHO).',
+    ]);
+  });
+
+  it('sorts the checkups by date first, and gives nothing for no checkups', () => {
+    const shuffled = [...yearly([5.8, 6.0, 6.2])].reverse();
+    expect(summary(shuffled)?.tests[0]).toBe('Your HbA1c was between 5.8% and 6.2% at three yearly checkups, from 2019 to 2021.');
+    expect(summary([])).toBeNull();
   });
 });
 
-describe('countText', () => {
+describe('countWords', () => {
   it('writes one to ten as words and larger counts as digits (common practice)', () => {
-    expect([0, 1, 5, 10, 11, 1000].map(countText)).toEqual(['zero', 'one', 'five', 'ten', '11', '1,000']);
+    expect([0, 1, 5, 10, 11, 1000].map(countWords)).toEqual(['zero', 'one', 'five', 'ten', '11', '1,000']);
   });
 });

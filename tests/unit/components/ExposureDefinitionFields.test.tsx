@@ -1,29 +1,57 @@
 // @vitest-environment jsdom
+/**
+ * The exposure fields (app/consultation/ExposureDefinitionFields.tsx), shared by the consultation
+ * form and the library's evidence editor, in a react-hook-form harness that reads the values the
+ * way both forms do (lib/evidence/exposureForm.ts).
+ */
 import '@testing-library/jest-dom/vitest';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { useState } from 'react';
+import { useEffect } from 'react';
+import { FormProvider, useForm, type Resolver } from 'react-hook-form';
 import { cleanup, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import { ExposureFields, withExposure } from '@/app/components/exposure/ExposureFields';
+import { ExposureDefinitionFields } from '@/app/consultation/ExposureDefinitionFields';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
+import { exposureFromFormValues, exposureToFormValues, type ExposureFormValues } from '@/lib/evidence/exposureForm';
 import { exposureDefinitionSchema, type ExposureDefinition } from '@/lib/glycaemia/exposure';
 
 afterEach(() => cleanup());
 
-function Harness({ initial, onChange }: { initial: ExposureDefinition | undefined; onChange: (v: ExposureDefinition | undefined) => void }) {
-  const [value, setValue] = useState(initial);
+type Values = { exposure: ExposureFormValues };
+
+const resolver: Resolver<Values> = (values) => {
+  const read = exposureFromFormValues(values.exposure);
+  if (read.ok) return { values, errors: {} };
+  const issue = read.issues[0];
+  const field = String(issue?.path[1] ?? 'defined');
+  return { values: {}, errors: { exposure: { [field]: { type: issue?.code ?? 'invalid', message: issue?.message ?? '' } } } };
+};
+
+function Harness({ initial, onChange = () => undefined }: { initial: ExposureDefinition | undefined; onChange?: (v: ExposureDefinition | undefined) => void }) {
+  const methods = useForm<Values>({ resolver, defaultValues: { exposure: exposureToFormValues(initial) } });
+  const { subscribe } = methods;
+  useEffect(
+    () =>
+      subscribe({
+        formState: { values: true },
+        callback: ({ values }) => {
+          const read = exposureFromFormValues(values.exposure);
+          if (read.ok) onChange(read.value);
+        },
+      }),
+    [subscribe, onChange],
+  );
   return (
-    <ExposureFields
-      value={value}
-      onChange={(v) => {
-        setValue(v);
-        onChange(v);
-      }}
-    />
+    <FormProvider {...methods}>
+      <form onSubmit={(e) => void methods.handleSubmit(() => undefined)(e)}>
+        <ExposureDefinitionFields />
+        <button type="submit">Save</button>
+      </form>
+    </FormProvider>
   );
 }
 
-describe('ExposureFields', () => {
+describe('ExposureDefinitionFields', () => {
   it('starts with one question when the study defined nothing; "Yes" gives a valid definition', async () => {
     const onChange = vi.fn();
     render(<Harness initial={undefined} onChange={onChange} />);
@@ -35,7 +63,7 @@ describe('ExposureFields', () => {
   });
 
   it('every control has a plain label and a one-line explanation linked by aria-describedby', () => {
-    render(<Harness initial={DEMO_WORKFORCE_HBA1C_HEART_FAILURE.exposureDefinition} onChange={() => undefined} />);
+    render(<Harness initial={DEMO_WORKFORCE_HBA1C_HEART_FAILURE.exposureDefinition} />);
     const labels = [
       'Does the study define its exposure over time?',
       'Which test decides',
@@ -48,7 +76,7 @@ describe('ExposureFields', () => {
     ];
     for (const label of labels) {
       const control = screen.getByLabelText(label, { exact: true });
-      const hint = document.getElementById(control.getAttribute('aria-describedby') ?? '');
+      const hint = document.getElementById((control.getAttribute('aria-describedby') ?? '').split(' ')[0] ?? '');
       expect(hint?.textContent?.length).toBeGreaterThan(10);
     }
     // The demo entry's definition is shown as it is.
@@ -69,21 +97,11 @@ describe('ExposureFields', () => {
     expect(onChange.mock.calls.at(-1)?.[0]).toBeUndefined();
   });
 
-  it('shows a problem under its field', () => {
-    render(
-      <ExposureFields
-        value={{ category: 'normal', criteria: 'ADA', minYears: 3, comparison: { category: 'normal' } }}
-        onChange={() => undefined}
-        issues={[{ code: 'invalid-choice', path: ['exposureDefinition', 'comparison', 'category'], message: 'The comparison category must differ from the exposure category (normal)' }]}
-      />,
-    );
+  it('shows a problem under its field', async () => {
+    render(<Harness initial={{ category: 'normal', criteria: 'ADA', minYears: 3, comparison: { category: 'normal' } }} />);
+    await userEvent.click(screen.getByRole('button', { name: 'Save' }));
     const control = screen.getByLabelText('Range of the comparison group');
     expect(control).toHaveAttribute('aria-invalid', 'true');
     expect(control).toHaveAccessibleDescription(expect.stringContaining('must differ'));
-  });
-
-  it('withExposure sets or removes the definition on an entry', () => {
-    expect(withExposure(DEMO_WORKFORCE_HBA1C_HEART_FAILURE, undefined)).not.toHaveProperty('exposureDefinition');
-    expect(withExposure(DEMO_WORKFORCE_HBA1C_HEART_FAILURE, { category: 'normal', criteria: 'WHO', minYears: 1 }).exposureDefinition).toEqual({ category: 'normal', criteria: 'WHO', minYears: 1 });
   });
 });

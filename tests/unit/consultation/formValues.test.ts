@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { EMPTY_FORM_VALUES, formToOutcome, makeConsultationSchema, numberFromText, type ConsultationFormValues } from '@/app/consultation/formModel';
-import { evidenceToFormValues, scenarioToFormValues } from '@/app/consultation/fromScenario';
+import { EMPTY_FORM_VALUES, formExposure, formToOutcome, makeConsultationSchema, numberFromText, type ConsultationFormValues } from '@/lib/consultation/formValues';
+import { evidenceToFormValues, scenarioToFormValues } from '@/lib/consultation/fromScenario';
 import { computeScenario } from '@/lib/engine/compute';
 import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
 import { DEMO_CORONARY_RATE, DEMO_HEART_FAILURE_10Y, DEMO_STROKE_5Y, DEMO_TABLES } from '@/lib/tables/demo';
@@ -237,7 +237,28 @@ describe('scenarioToFormValues', () => {
       if (outcome.ok) {
         expect(outcome.value.scenario.effect).toEqual(entry.effect);
         expect(outcome.value.scenario.wording).toEqual(entry.wording);
+        // The exposure definition comes along too (issue 9 item 1), or stays absent.
+        expect(outcome.value.scenario.exposureDefinition).toEqual(entry.exposureDefinition);
       }
     }
+  });
+
+  it('carries an exposure definition typed on the screen into the scenario, and back from a link', () => {
+    const exposure = { defined: 'yes', test: 'hba1c', category: 'prediabetes', criteria: 'ADA', minYears: '3', maxGapMonths: '15', comparison: 'normal', comparisonYears: '' } as const;
+    const outcome = formToOutcome({ ...typed, exposure }, DEMO_TABLES);
+    expect(outcome.ok).toBe(true);
+    if (!outcome.ok) return;
+    const definition = { category: 'prediabetes', criteria: 'ADA', minYears: 3, test: 'hba1c', maxGapMonths: 15, comparison: { category: 'normal' } };
+    expect(outcome.value.scenario.exposureDefinition).toEqual(definition);
+    expect(formExposure({ ...typed, exposure })).toEqual(definition);
+    expect(scenarioToFormValues(outcome.value.scenario, DEMO_TABLES).exposure).toEqual(exposure);
+  });
+
+  it('puts a bad exposure definition on its field, and gives the glucose check none', () => {
+    const exposure = { ...EMPTY_FORM_VALUES.exposure, defined: 'yes', comparison: 'prediabetes' } as const;
+    const outcome = formToOutcome({ ...typed, exposure }, DEMO_TABLES);
+    expect(outcome.ok === false && outcome.issues.map((i) => i.path.join('.'))).toEqual(['exposure.comparison']);
+    expect(formExposure({ ...typed, exposure })).toBeUndefined();
+    expect(formExposure(null)).toBeUndefined();
   });
 });

@@ -5,9 +5,9 @@
  * form gives the very same outcome object (memoised components then skip their redraw).
  * Pure TypeScript (no React), tested in tests/unit/consultation/pipeline.test.ts.
  */
-import { fail, type Result } from '@/lib/result';
-import type { PopulationTable } from '@/lib/tables/schema';
-import { formInputSchema, formToFigures, type ConsultationFormValues, type FormFigures } from './formModel';
+import { fail, type Result } from '../result';
+import type { PopulationTable } from '../tables/schema';
+import { formInputSchema, formToFigures, type ConsultationFormValues, type FormFigures } from './formValues';
 
 /**
  * Structural equality of plain form values (objects of strings): the same fields with the
