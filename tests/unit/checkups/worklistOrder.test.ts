@@ -15,8 +15,8 @@ const rowArb = fc.record({
 });
 
 interface RowSpec {
-  numbers: (number | null)[];
-  texts: (string | null)[];
+  numbers: readonly [number | null, number | null, number | null, number | null, number | null, number | null];
+  texts: readonly [string | null, string | null, string | null, string | null];
   status: (typeof WORKER_STATUSES)[number];
   site: string;
 }
