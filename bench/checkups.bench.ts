@@ -66,7 +66,7 @@ function timeRun(args: readonly string[]): Promise<Timing> {
  * HbA1c patterns that give every status. Grouped by worker, or by year (every worker's first
  * checkup, then every second one …) when `grouped` is false.
  */
-async function writeWorkforce(file: string, workers: number, years: number, grouped: boolean): Promise<void> {
+export async function writeWorkforce(file: string, workers: number, years: number, grouped: boolean): Promise<void> {
   const out = createWriteStream(file);
   const write = (text: string) => (out.write(text) ? Promise.resolve() : new Promise<void>((r) => out.once('drain', () => r())));
   await write('Worker,Checkup date,HbA1c (%),Fasting glucose (mmol/L),Age,Sex,Site\n');

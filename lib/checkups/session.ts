@@ -25,6 +25,7 @@ import { criteriaSchema, fpgReadingSchema, hba1cReadingSchema } from '../glycaem
 import { GLUCOSE_UNITS } from '../glycaemia/glucose';
 import { HBA1C_UNITS } from '../glycaemia/hba1c';
 import { CHECKUP_FIELDS, type CheckupRow, type ColumnMapping, type RowCounts, type RowProblem } from '../workforce/types';
+import { migrateRecord, RECORD_VERSION } from '../storage/records';
 
 /** The session format this program writes and reads. */
 export const SESSION_VERSION = 1;
@@ -200,3 +201,65 @@ export function checkSessionName(name: string): Result<string> {
 /** What is kept and where, in one line (shown beside the save button and the list). */
 export const SESSION_STORAGE_LINE =
   'A saved session keeps the set-up, the columns you confirmed and the checkup rows read from the file (pseudonymous ids, dates, results, age, sex, groups; never the file itself or any column left out) in this browser’s storage on this computer; nothing is sent anywhere. Delete it when you are done.';
+
+// ---------------------------------------------------------------------------------------------
+// As stored (app/storage/sessions.ts): the session without its rows, with its list line, in one
+// store; its rows and row problems in a second store under the same id, written and deleted in
+// the same transaction. The list reads only the first.
+
+/** The session without its rows and row problems. */
+export type SessionHead = Omit<CheckupSession, 'rows' | 'problems'>;
+
+/** A session's rows and row problems, stored apart under the session's id. */
+export interface SessionBody {
+  readonly id: string;
+  readonly rows: readonly CheckupRow[];
+  readonly problems: readonly RowProblem[];
+}
+
+export interface StoredSession {
+  readonly recordVersion: typeof RECORD_VERSION;
+  /** The session's head as saved; checked whole, with the rows, when the session is opened. */
+  readonly session: SessionHead;
+  readonly summary: SessionSummary;
+  readonly revision: number;
+  readonly savedAt: string;
+  readonly updatedAt: string;
+}
+
+const storedEnvelopeSchema = z.strictObject({
+  recordVersion: z.literal(RECORD_VERSION),
+  session: z.looseObject({ id: sessionIdSchema }),
+  summary: z.unknown(),
+  revision: z.number().int().positive(),
+  savedAt: z.iso.datetime(),
+  updatedAt: z.iso.datetime(),
+});
+
+/** Splits a session into what is stored in each store. */
+export function toStoredSession(session: CheckupSession, now: Date, previous: Pick<StoredSession, 'savedAt'> | undefined, revision: number): { stored: StoredSession; body: SessionBody } {
+  const { rows, problems, ...head } = session;
+  const time = now.toISOString();
+  return {
+    stored: { recordVersion: RECORD_VERSION, session: head, summary: summariseSession(session), revision, savedAt: previous?.savedAt ?? time, updatedAt: time },
+    body: { id: session.id, rows, problems },
+  };
+}
+
+/** Reads a stored session's envelope and list line (not its rows); a newer or damaged one is an issue. */
+export function readStoredSession(raw: unknown): Result<StoredSession> {
+  const migrated = migrateRecord(raw, {});
+  if (!migrated.ok) return migrated;
+  const summary = readSessionSummary(migrated.value.summary);
+  if (!summary.ok) return summary;
+  const envelope = parseWith(storedEnvelopeSchema, migrated.value, 'session');
+  if (!envelope.ok) return envelope;
+  return ok({ ...envelope.value, session: envelope.value.session as unknown as SessionHead, summary: summary.value });
+}
+
+/** Joins a stored head and its rows back into a session, checking the whole of it. */
+export function joinSession(stored: StoredSession, body: unknown): Result<CheckupSession> {
+  if (typeof body !== 'object' || body === null) return fail([{ code: 'damaged-record', path: ['rows'], message: 'The saved session’s checkup rows are missing; it may be damaged' }]);
+  const { rows, problems } = body as { rows?: unknown; problems?: unknown };
+  return readSession({ ...stored.session, rows, problems });
+}

@@ -19,6 +19,10 @@ export const STORES = {
   evidence: 'evidence',
   /** What is left of deleted records ({@link StoredTombstone}), by `<store>/<id>`, so a stale save cannot bring one back. */
   tombstones: 'tombstones',
+  /** Saved checkups sessions without their rows (lib/checkups/session.ts), by session id: what the list shows. */
+  checkupSessions: 'checkup-sessions',
+  /** Each saved session's checkup rows and row problems, by session id, written and deleted with its session. */
+  checkupSessionRows: 'checkup-session-rows',
 } as const;
 export type StoreName = (typeof STORES)[keyof typeof STORES];
 
@@ -49,6 +53,16 @@ export const UPGRADE_STEPS: readonly UpgradeStep[] = [
     // Revisions and tombstones (./policy.ts); records are brought to format 2 when read.
     version: 2,
     createStores: [{ name: STORES.tombstones, keyPath: 'key' }],
+    deleteStores: [],
+  },
+  {
+    // Saved checkups sessions (issue "Workforce checkups, part 2"): two new stores; every
+    // existing store and record is left as it is.
+    version: 3,
+    createStores: [
+      { name: STORES.checkupSessions, keyPath: 'session.id' },
+      { name: STORES.checkupSessionRows, keyPath: 'id' },
+    ],
     deleteStores: [],
   },
 ];

@@ -20,8 +20,9 @@ const LATER = new Date('2025-03-02T11:30:00.000Z');
 
 describe('database layout', () => {
   it('version 1 creates the three stores, each keyed by id', () => {
-    // Version 2 (revisions and tombstones) was added after this test was written; version 1 is unchanged.
-    expect(DB_VERSION).toBe(2);
+    // Version 2 (revisions and tombstones) and version 3 (saved checkups sessions) were added after
+    // this test was written; version 1 is unchanged.
+    expect(DB_VERSION).toBe(3);
     expect(upgradeStepsBetween(0, 1)).toEqual([
       {
         version: 1,
@@ -34,6 +35,19 @@ describe('database layout', () => {
       },
     ]);
     expect(upgradeStepsBetween(1, 1)).toEqual([]);
+  });
+
+  it('version 3 adds the checkups session stores and touches nothing else', () => {
+    expect(upgradeStepsBetween(2, 3)).toEqual([
+      {
+        version: 3,
+        createStores: [
+          { name: 'checkup-sessions', keyPath: 'session.id' },
+          { name: 'checkup-session-rows', keyPath: 'id' },
+        ],
+        deleteStores: [],
+      },
+    ]);
   });
 
   it('version 2 adds the tombstone store, keyed by store and id', () => {
