@@ -55,14 +55,15 @@ describe('database layout', () => {
   });
 
   it('applies only the steps between two versions, oldest first', () => {
-    // Made-up later versions 3 and 4 (the real steps now go up to 2), listed out of order.
+    // Made-up later versions 4 and 5, listed out of order. (They were 3 and 4 while the real steps
+    // went up to 2; version 3 is now real — saved checkups sessions — so the made-up ones moved up.)
     const steps: UpgradeStep[] = [
-      { version: 4, createStores: [], deleteStores: [] },
+      { version: 5, createStores: [], deleteStores: [] },
       ...UPGRADE_STEPS,
-      { version: 3, createStores: [], deleteStores: [] },
+      { version: 4, createStores: [], deleteStores: [] },
     ];
-    expect(upgradeStepsBetween(2, 4, steps).map((s) => s.version)).toEqual([3, 4]);
-    expect(upgradeStepsBetween(0, 3, steps).map((s) => s.version)).toEqual([1, 2, 3]);
+    expect(upgradeStepsBetween(3, 5, steps).map((s) => s.version)).toEqual([4, 5]);
+    expect(upgradeStepsBetween(0, 4, steps).map((s) => s.version)).toEqual([1, 2, 3, 4]);
   });
 });
 
