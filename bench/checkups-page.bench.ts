@@ -8,7 +8,8 @@
  * - the longest main-thread task meanwhile (target: none over 50 ms), from a
  *   PerformanceObserver('longtask') armed before the file is chosen; and how many went over;
  * - sorting the 100,000-row worklist (target 200 ms): from the click on a column heading to the
- *   frame after the rows are shown in the new order, for a number column and the worker id.
+ *   frame after the rows are shown in the new order, for a number column and the worker id, once
+ *   the worker's sort ranks have arrived (and how long after the summary that was).
  *
  * It builds the app first (`npm run build`) unless BENCH_REUSE_BUILD=1 and a build exists, then
  * serves it with `next start` on a spare port. A benchmark, not a test: a missed target is
@@ -96,6 +97,9 @@ export async function measure(baseUrl: string, file: string): Promise<Figure[]> 
     const shown = await page.getByTestId('worklist-count').textContent();
     if (!shown?.startsWith(`${WORKERS.toLocaleString('en-US')} of`) && !shown?.startsWith(`${WORKERS} of`)) throw new Error(`the worklist shows "${shown}", not ${WORKERS} workers`);
     const longest = Math.max(0, ...long.map((l) => l.duration));
+    // The sort ranks arrive from the worker after the summary: sorting before then takes the plain path.
+    await page.locator('[data-testid="worklist"][data-ranked="true"]').waitFor({ timeout: 300_000 });
+    const rankedAt = (await page.evaluate('performance.now()')) as number;
     const risk = await sortTime(page, 'Risk with the exposure', 'exposed-ascending');
     const riskDown = await sortTime(page, 'Risk with the exposure', 'exposed-descending');
     const worker = await sortTime(page, 'Worker', 'worker-ascending');
@@ -103,6 +107,7 @@ export async function measure(baseUrl: string, file: string): Promise<Figure[]> 
       { name: 'checkups screen, 100,000 workers × 5: file chosen → summary on screen', value: Math.round(summaryAt - chosenAt), unit: 'ms', target: 15_000, better: 'lower' },
       { name: 'checkups screen: longest main-thread task meanwhile', value: Math.round(longest), unit: 'ms', target: 50, better: 'lower' },
       { name: 'checkups screen: main-thread tasks over 50 ms meanwhile', value: long.filter((l) => l.duration > 50).length, unit: 'tasks', target: 0, better: 'lower' },
+      { name: 'checkups screen: summary on screen → sort ranks ready (at most; polled)', value: Math.round(rankedAt - summaryAt), unit: 'ms', better: 'lower' },
       { name: 'checkups screen: sort 100,000 rows by risk (click → rows shown)', value: Math.round(risk.ms), unit: 'ms', target: 200, better: 'lower' },
       { name: 'checkups screen: sort by risk, descending', value: Math.round(riskDown.ms), unit: 'ms', target: 200, better: 'lower' },
       { name: 'checkups screen: sort by worker id', value: Math.round(worker.ms), unit: 'ms', target: 200, better: 'lower' },

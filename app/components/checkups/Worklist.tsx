@@ -74,7 +74,7 @@ export function Worklist({ rows, choices: given, ranks }: { rows: readonly Workl
         {shown.length} of {rows.length} workers shown
       </p>
       <div ref={scrollRef} className="checkups__worklist" tabIndex={0} role="region" aria-labelledby="worklist-heading">
-        <table className="checkups__table" aria-rowcount={shown.length + 1} data-testid="worklist" data-order={sort ? `${sort.column}-${sort.direction}` : 'file'}>
+        <table className="checkups__table" aria-rowcount={shown.length + 1} data-testid="worklist" data-order={sort ? `${sort.column}-${sort.direction}` : 'file'} data-ranked={ranks ? 'true' : 'false'}>
           <thead>
             <tr aria-rowindex={1}>
               {WORKLIST_COLUMNS.map((c) => (
