@@ -14,6 +14,9 @@ import { DB_NAME, DB_VERSION, STORES, upgradeStepsBetween } from '@/lib/storage/
 import {
   readStoredEvidence,
   readStoredTable,
+  readStoredTemplate,
+  toStoredTemplate,
+  type StoredTemplate,
   readTableSummary,
   summariseStoredTable,
   toStoredEvidence,
@@ -22,7 +25,8 @@ import {
   type StoredTable,
   type TableSummary,
 } from '@/lib/storage/records';
-import { EVIDENCE_WORDS, TABLE_WORDS, type SaveMode } from '@/lib/storage/policy';
+import { EVIDENCE_WORDS, TABLE_WORDS, TEMPLATE_WORDS, type ImportPlan, type SaveMode } from '@/lib/storage/policy';
+import type { TemplateWrite } from '@/lib/handout/templateRecords';
 import { parseTable } from '@/lib/tables/parse';
 import { populationTableSchema, type PopulationTable } from '@/lib/tables/schema';
 import { DEMO_TABLES } from '@/lib/tables/demo';
@@ -87,6 +91,12 @@ export interface Library {
   freeEvidenceId(title: string): Promise<Result<string>>;
 
   close(): void;
+  /** Saved handout templates (lib/handout/templateRecords.ts plans every write). */
+  listTemplates(): Promise<Result<Listing<StoredTemplate>>>;
+  writeTemplate(write: TemplateWrite, options?: Pick<SaveOptions, 'now'>): Promise<Result<StoredTemplate>>;
+  deleteTemplate(id: string): Promise<Result<void>>;
+  /** New templates only (an import), all in one transaction: one refusal writes none. */
+  importTemplates(writes: readonly TemplateWrite[], options?: Pick<SaveOptions, 'now'>): Promise<Result<ImportPlan>>;
 }
 
 export interface OpenOptions {
@@ -192,6 +202,18 @@ const EVIDENCE_SPEC: RecordSpec<StoredEvidence, EvidenceEntry> = {
   read: (raw) => readStoredEvidence(raw),
   valueOf: (s) => s.entry,
   build: (entry, now, previous, revision) => toStoredEvidence(entry, now, previous, revision),
+};
+
+const TEMPLATE_SPEC: RecordSpec<StoredTemplate, { readonly id: string; readonly template: StoredTemplate['template'] }> = {
+  kind: 'templates',
+  store: STORES.templates,
+  words: TEMPLATE_WORDS,
+  companions: [],
+  idOf: (r) => r.id,
+  titleOf: (r) => r.template.name,
+  read: (raw) => readStoredTemplate(raw),
+  valueOf: (s) => ({ id: s.id, template: s.template }),
+  build: (record, now, previous, revision) => toStoredTemplate(record, now, previous, revision),
 };
 
 function createLibrary(db: Db): Library {
@@ -304,6 +326,22 @@ function createLibrary(db: Db): Library {
         const keys = await db.getAllKeys(STORES.evidence);
         return ok(uniqueId(idFromTitle(title, 'entry').replace(/^demo-/, ''), new Set([...keys.map(String), ...demoEvidenceIds])));
       }),
+
+    listTemplates: () => guarded(() => listRecords(db, STORES.templates, (raw) => readStoredTemplate(raw)).then(ok)),
+
+    writeTemplate: (write, options = {}) => guarded(() => saveRecord(db, TEMPLATE_SPEC, { id: write.id, template: write.template }, write.mode, options.now ?? new Date())),
+
+    deleteTemplate: (id) => guarded(() => deleteRecord(db, TEMPLATE_SPEC, id, new Date())),
+
+    importTemplates: (writes, options = {}) =>
+      guarded(() =>
+        importRecords(
+          db,
+          TEMPLATE_SPEC,
+          writes.map((w) => ({ id: w.id, template: w.template })),
+          { replace: false, demoIds: new Set(), now: options.now ?? new Date() },
+        ),
+      ),
 
     close: () => db.close(),
   };

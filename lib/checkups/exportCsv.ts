@@ -54,7 +54,9 @@ export function checkupsFileNames(date: string): { workers: string; summary: str
 }
 
 /**
- * One line per worker, in the file's order.
+ * One line per worker, in the file's order. Its columns are its own, not the command's
+ * (`hundredfold checkups --format csv`, lib/cli/commands/checkups.ts `CSV_COLUMNS`): this file is
+ * read by people in a spreadsheet, the command's by programs; both write cells with {@link csvCell}.
  * @example
  * workersCsv([w001], ctx).split('\r\n')[7] //=> 'worker,age,sex,latest date,latest category,…'
  */

@@ -146,15 +146,38 @@ export async function readStreamText(stream: Readable, what = 'the input'): Prom
 }
 
 /**
- * Reads the whole of standard input as text.
- *
- * @deprecated use {@link readStreamText}, which returns what is wrong instead of rejecting.
- *   This rejects with an Error whose message is that one line.
+ * A stream (standard input) as strict UTF-8 text, chunk by chunk, with no cap on the whole: for
+ * commands that read as they go (`checkups -`). A leading byte-order mark is dropped. Bytes that
+ * are not UTF-8 reject the iteration with an Error whose message is the sentence to show (with
+ * the line) and whose code is `HUNDREDFOLD_INPUT`.
  */
-export async function readAll(stream: Readable): Promise<string> {
-  const read = await readStreamText(stream);
-  if (!read.ok) throw Object.assign(new Error(read.problem), { code: 'HUNDREDFOLD_INPUT' });
-  return read.text;
+export async function* streamTextChunks(stream: Readable, what = 'the input'): AsyncGenerator<string> {
+  const decoder = new TextDecoder('utf-8', { fatal: true });
+  let line = 1;
+  const refuse = (bytes: Uint8Array, tail: string): Error => {
+    const at = Math.max(0, firstInvalidUtf8(bytes));
+    const byte = (bytes[at] ?? 0).toString(16).padStart(2, '0');
+    const where = at < bytes.length ? `byte 0x${byte} at line ${line + lineOf(bytes, at) - 1} is not part of a UTF-8 character` : `it ends in the middle of a UTF-8 character${tail}`;
+    return Object.assign(new Error(`${what} is not UTF-8 text: ${where}, and nothing is guessed. Save it as UTF-8`), { code: 'HUNDREDFOLD_INPUT' });
+  };
+  for await (const chunk of stream) {
+    const bytes: Uint8Array = typeof chunk === 'string' ? Buffer.from(chunk) : (chunk as Buffer);
+    let text: string;
+    try {
+      text = decoder.decode(bytes, { stream: true });
+    } catch {
+      throw refuse(bytes, '');
+    }
+    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) line += 1;
+    if (text !== '') yield text;
+  }
+  let last: string;
+  try {
+    last = decoder.decode();
+  } catch {
+    throw refuse(new Uint8Array(0), ` (line ${line})`);
+  }
+  if (last !== '') yield last;
 }
 
 /**

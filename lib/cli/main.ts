@@ -45,7 +45,7 @@ export async function main(io: CommandIo): Promise<number> {
     return await command({ ...io, args: rest });
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
-    // Input that readAll (io.ts) refused: bad input, said as such.
+    // Input that io.ts refused (streamTextChunks: not UTF-8): bad input, said as such.
     if (typeof error === 'object' && error !== null && (error as { code?: unknown }).code === 'HUNDREDFOLD_INPUT') return complain(io, `input: ${message}`);
     // A bug, not bad input: still one line, never a stack trace.
     return complain(io, `internal error: ${message}`);

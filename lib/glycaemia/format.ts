@@ -33,8 +33,10 @@ export function roundTo(value: number, decimals: number): number {
  * "5.6 mmol/L", "101 mg/dL".
  */
 export function withUnit(value: number, unit: ValueUnit): string {
-  const entered = (String(value).split('.')[1] ?? '').length;
-  const text = /e/i.test(String(value)) ? String(value) : value.toFixed(Math.max(THRESHOLD_DECIMALS[unit], entered));
+  const written = String(value);
+  const point = written.indexOf('.');
+  const entered = point < 0 ? 0 : written.length - point - 1;
+  const text = /e/i.test(written) ? written : value.toFixed(Math.max(THRESHOLD_DECIMALS[unit], entered));
   return unit === '%' ? `${text}%` : `${text} ${unit}`;
 }
 

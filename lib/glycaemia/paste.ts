@@ -27,10 +27,12 @@
  * A paste of more than {@link MAX_CHECKUPS} data lines is refused whole before any line is read
  * (code `too-many`): a history holds at most that many checkups.
  *
- * The header matching here is small and glucose-specific; the workforce file reader
- * (lib/workforce) finds columns by name too, and the two should become one column finder.
+ * Headers are folded and their units found by the rule every header reader shares
+ * (lib/text/headers.ts, also used by the workforce file reader); the names below are the paste
+ * box's own.
  */
 import Papa from 'papaparse';
+import { foldHeader as foldText, unitInHeader } from '../text/headers';
 import type { Issue } from '../result';
 import type { CriteriaSet } from './exposure';
 import { emptyDraft, type CheckupDraft } from './draft';
@@ -90,25 +92,20 @@ const IN_ORDER: PasteColumns = {
   ignored: [],
 };
 
-/** "Glycémie à jeun (mg/dL)" → "glycemie a jeun (mg/dl)": no accents, lower case, single spaces. */
+/** "Glycémie à jeun (mg/dL)" → "glycemie a jeun (mg/dl)": no accents, lower case, single spaces (lib/text/headers.ts). */
 export function foldHeader(cell: string): string {
-  return cell.normalize('NFD').replace(/\p{M}/gu, '').toLowerCase().replace(/\s+/g, ' ').trim();
+  return foldText(cell);
 }
 
-/** A unit named in folded header text, or null. IFCC reports HbA1c in mmol/mol, NGSP/DCCT in % (common practice). */
+/** A unit named in folded header text, or null (lib/text/headers.ts: the same units the workforce reader finds). */
 function headerUnit(folded: string): Hba1cUnit | GlucoseUnit | null {
-  if (/mmol\s*\/\s*mol|\bifcc\b/.test(folded)) return 'mmol/mol';
-  if (/mmol\s*\/\s*l\b/.test(folded)) return 'mmol/L';
-  if (/mg\s*\/\s*dl\b/.test(folded)) return 'mg/dL';
-  if (/%|\bngsp\b|\bdcct\b|percent/.test(folded)) return '%';
-  return null;
+  return unitInHeader(folded).unit;
 }
 
 /** The folded header without its unit and punctuation: "hba1c (%)" → "hba1c". */
 function headerName(folded: string): string {
-  return folded
-    .replace(/mmol\s*\/\s*mol|mmol\s*\/\s*l\b|mg\s*\/\s*dl\b|%|\bifcc\b|\bngsp\b|\bdcct\b/g, ' ')
-    .replace(/[^a-z0-9]+/g, ' ')
+  return unitInHeader(folded)
+    .rest.replace(/[^a-z0-9]+/g, ' ')
     .trim();
 }
 

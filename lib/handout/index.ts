@@ -9,3 +9,4 @@ export * from './ownResults';
 export * from './content';
 export * from './sheet';
 export * from './page';
+export * from './templateRecords';

@@ -8,6 +8,7 @@ import { fail, ok, type Issue, type Result } from '../result';
 import { toIssues } from '../validation/issues';
 import { populationTableSchema, tableForm, type PopulationTable, type TableForm } from '../tables/schema';
 import { evidenceEntrySchema, type EvidenceEntry } from '../evidence/schema';
+import { handoutTemplateSchema, type HandoutTemplate } from '../handout/template';
 
 /**
  * The record format this program writes. Format 2 added `revision` (see ./policy.ts); a
@@ -61,6 +62,20 @@ export const storedEvidenceSchema = z.strictObject({
 });
 export type StoredEvidence = z.infer<typeof storedEvidenceSchema>;
 
+/**
+ * A saved handout template (lib/handout/template.ts) under its own id. Templates were kept in
+ * localStorage before this store existed; app/handout/templateStore.ts moves them here once.
+ */
+export const storedTemplateSchema = z.strictObject({
+  recordVersion: z.literal(RECORD_VERSION),
+  id: z.string().min(1),
+  template: handoutTemplateSchema,
+  revision: revisionSchema,
+  savedAt: isoTime,
+  updatedAt: isoTime,
+});
+export type StoredTemplate = z.infer<typeof storedTemplateSchema>;
+
 /** Upgrades a record from `from` to `from + 1`. */
 export type RecordMigration = (record: Record<string, unknown>) => Record<string, unknown>;
 
@@ -73,6 +88,8 @@ const addRevision: RecordMigration = (record) => ({ ...record, revision: 1 });
  */
 export const TABLE_MIGRATIONS: Readonly<Record<number, RecordMigration>> = { 1: addRevision };
 export const EVIDENCE_MIGRATIONS: Readonly<Record<number, RecordMigration>> = { 1: addRevision };
+/** Templates were first stored at format 2, so there is nothing to migrate yet. */
+export const TEMPLATE_MIGRATIONS: Readonly<Record<number, RecordMigration>> = {};
 export const SUMMARY_MIGRATIONS: Readonly<Record<number, RecordMigration>> = { 1: addRevision };
 
 /** What is left of a deleted record (./policy.ts): its store, id and last revision. */
@@ -145,6 +162,11 @@ export function readStoredEvidence(raw: unknown, migrations = EVIDENCE_MIGRATION
   return readRecord(raw, migrations, storedEvidenceSchema, 'evidence entry');
 }
 
+/** Read a stored handout template. */
+export function readStoredTemplate(raw: unknown, migrations = TEMPLATE_MIGRATIONS): Result<StoredTemplate> {
+  return readRecord(raw, migrations, storedTemplateSchema, 'handout template');
+}
+
 /**
  * A new or updated table record; `savedAt` stays from the previous record when there is one.
  * The revision is the one ./policy.ts decided, or one above the previous record's.
@@ -157,6 +179,16 @@ export function toStoredTable(table: PopulationTable, now: Date, previous?: Pick
 export function toStoredEvidence(entry: EvidenceEntry, now: Date, previous?: Pick<StoredEvidence, 'savedAt'> & Partial<Pick<StoredEvidence, 'revision'>>, revision?: number): StoredEvidence {
   const time = now.toISOString();
   return { recordVersion: RECORD_VERSION, entry, revision: revision ?? (previous?.revision ?? 0) + 1, savedAt: previous?.savedAt ?? time, updatedAt: time };
+}
+
+export function toStoredTemplate(
+  record: { readonly id: string; readonly template: HandoutTemplate },
+  now: Date,
+  previous?: Pick<StoredTemplate, 'savedAt'> & Partial<Pick<StoredTemplate, 'revision'>>,
+  revision?: number,
+): StoredTemplate {
+  const time = now.toISOString();
+  return { recordVersion: RECORD_VERSION, id: record.id, template: record.template, revision: revision ?? (previous?.revision ?? 0) + 1, savedAt: previous?.savedAt ?? time, updatedAt: time };
 }
 
 /** The list summary of a stored table. */

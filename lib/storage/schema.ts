@@ -19,6 +19,8 @@ export const STORES = {
   evidence: 'evidence',
   /** What is left of deleted records ({@link StoredTombstone}), by `<store>/<id>`, so a stale save cannot bring one back. */
   tombstones: 'tombstones',
+  /** Handout templates ({@link StoredTemplate}), by template id. */
+  templates: 'templates',
   /** Saved checkups sessions without their rows (lib/checkups/session.ts), by session id: what the list shows. */
   checkupSessions: 'checkup-sessions',
   /** Each saved session's checkup rows and row problems, by session id, written and deleted with its session. */
@@ -56,9 +58,15 @@ export const UPGRADE_STEPS: readonly UpgradeStep[] = [
     deleteStores: [],
   },
   {
+    // Handout templates join the library (they were kept in localStorage before).
+    version: 3,
+    createStores: [{ name: STORES.templates, keyPath: 'id' }],
+    deleteStores: [],
+  },
+  {
     // Saved checkups sessions (issue "Workforce checkups, part 2"): two new stores; every
     // existing store and record is left as it is.
-    version: 3,
+    version: 4,
     createStores: [
       { name: STORES.checkupSessions, keyPath: 'session.id' },
       { name: STORES.checkupSessionRows, keyPath: 'id' },

@@ -6,3 +6,4 @@ export * from './trim';
 export * from './decimal';
 export * from './ages';
 export * from './case';
+export * from './headers';

@@ -10,15 +10,13 @@
  */
 import type { CheckupField, ColumnAssignment, ColumnMapping, FpgUnitName, Hba1cUnitName, MappingNote, MappingOverrides, MappingProblem } from './types';
 import { CHECKUP_FIELDS } from './types';
+import { foldHeader, unitInHeader } from '../text/headers';
+import { GLUCOSE_UNITS } from '../glycaemia/glucose';
+import { HBA1C_UNITS } from '../glycaemia/hba1c';
 
-/** Lower case, accents removed, runs of spaces, "_", "-" and "." as one space, trimmed. */
+/** Lower case, accents removed, runs of spaces, "_", "-" and "." as one space, trimmed (lib/text/headers.ts, the rule every header reader uses). */
 export function normaliseHeader(text: string): string {
-  return text
-    .normalize('NFKD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .toLowerCase()
-    .replace(/[\s_.-]+/g, ' ')
-    .trim();
+  return foldHeader(text, { separators: true });
 }
 
 const SYNONYMS: Readonly<Record<Exclude<CheckupField, 'stratum' | 'ignore'>, readonly string[]>> = {
@@ -80,26 +78,11 @@ const IDENTIFYING_HEADERS = [
   'address',
 ];
 
-/** Reads a unit written in a header; the rest of the header is returned without it. */
+/** Reads a unit written in a header (lib/text/headers.ts); the rest of the header is returned without it. */
 export function headerUnit(normalised: string): { readonly base: string; readonly unit: Hba1cUnitName | FpgUnitName | null } {
-  const units: readonly [RegExp, Hba1cUnitName | FpgUnitName][] = [
-    [/mmol\s*\/\s*mol|mmol per mol|mmol mol\b/, 'mmol/mol'],
-    [/mg\s*\/\s*dl|mg per dl|mg dl\b/, 'mg/dL'],
-    [/mmol\s*\/\s*l\b|mmol per l\b|mmol l\b/, 'mmol/L'],
-    [/%|percent|\bpct\b/, '%'],
-  ];
-  for (const [pattern, unit] of units) {
-    if (pattern.test(normalised)) {
-      const base = normalised
-        .replace(pattern, ' ')
-        .replace(/[()[\]{},:;]/g, ' ')
-        .replace(/\s+/g, ' ')
-        .replace(/\bin\s*$/, '')
-        .trim();
-      return { base, unit };
-    }
-  }
-  return { base: normalised.replace(/[()[\]{},:;]/g, ' ').replace(/\s+/g, ' ').trim(), unit: null };
+  const { unit, rest } = unitInHeader(normalised);
+  const base = rest.replace(/[()[\]{},:;]/g, ' ').replace(/\s+/g, ' ');
+  return { base: (unit === null ? base : base.replace(/\bin\s*$/, '')).trim(), unit };
 }
 
 function unitFits(field: 'hba1c' | 'fpg', unit: Hba1cUnitName | FpgUnitName): boolean {
@@ -152,25 +135,16 @@ const FIELD_WORDS: Readonly<Record<CheckupField, string>> = {
   ignore: 'nothing (left out)',
 };
 
-/** The --map values accepted, for messages: "worker, date, hba1c:%, hba1c:mmol/mol, …". */
-export const MAP_VALUES = [
-  'worker',
-  'date',
-  'hba1c:%',
-  'hba1c:mmol/mol',
-  'hba1c',
-  'hba1c-unit',
-  'fpg:mmol/L',
-  'fpg:mg/dL',
-  'fpg',
-  'fpg-unit',
-  'age',
-  'birth-year',
-  'birth-date',
-  'sex',
-  'stratum',
-  'ignore',
-] as const;
+/** Units a value field can be given in with --map ("hba1c:%"): lib/glycaemia's own unit lists. */
+const MAP_UNITS: Readonly<Record<'hba1c' | 'fpg', readonly (Hba1cUnitName | FpgUnitName)[]>> = { hba1c: HBA1C_UNITS, fpg: GLUCOSE_UNITS };
+
+/**
+ * The --map values accepted, for messages: "worker, date, hba1c:%, hba1c:mmol/mol, hba1c, …" —
+ * every field of {@link CHECKUP_FIELDS}, a value field also with each of its units.
+ */
+export const MAP_VALUES: readonly string[] = CHECKUP_FIELDS.flatMap((field) =>
+  field === 'hba1c' || field === 'fpg' ? [...MAP_UNITS[field].map((unit) => `${field}:${unit}`), field] : [field],
+);
 
 /** Reads one --map value ("hba1c:%", "stratum", "ignore"); null when it is not one of {@link MAP_VALUES}. */
 export function parseMapValue(value: string): Guess | null {

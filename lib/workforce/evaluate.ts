@@ -17,17 +17,18 @@
  * `neither`, with the table's own message.
  */
 import { computeScenario } from '../engine/compute';
+import type { ComputeResult } from '../engine/types';
 import type { EvidenceEntry } from '../evidence/schema';
 import { classifyCheckup, classifyHistory } from '../glycaemia/classify';
 import { yearsBetween } from '../glycaemia/dates';
-import { CRITERIA_SETS, type CriteriaSet, type ExposureDefinition } from '../glycaemia/exposure';
+import { CRITERIA_SETS, type CriteriaSet, type ExposureDefinition, type GlycaemicCategory } from '../glycaemia/exposure';
 import { diabetesRangeNote, exposureStatus } from '../glycaemia/match';
 import { mergeSameDate } from '../glycaemia/parse';
 import type { Checkup } from '../glycaemia/schema';
 import { fail, ok, type Issue, type Result, type Warning } from '../result';
 import { years as yearsSchema } from '../scenario/schema';
 import type { Scenario } from '../scenario/schema';
-import { lookupStratum } from '../tables/lookup';
+import { lookupStratum, tableNeeds } from '../tables/lookup';
 import type { PopulationTable } from '../tables/schema';
 import type { CheckupRow, RowProblem, WorkerResult, WorkerRows, WorkerStatus } from './types';
 
@@ -88,8 +89,6 @@ export function prepareCheckups(settings: CheckupsSettings): Result<CheckupsCont
   });
 }
 
-const NOT_APPLICABLE = { referenceRisk: null, exposedRisk: null, riskDifference: null, numberNeeded: null, horizonYears: null } as const;
-
 /**
  * Age at the latest checkup: from a birth date (whole years), else from the latest row giving an
  * age (plus the whole years from that row to the latest checkup), else from a birth year
@@ -105,7 +104,9 @@ export function ageAtLatest(rows: readonly CheckupRow[], latestDate: string): { 
       return { age, note: null };
     }
   }
-  const withAge = [...rows].filter((r) => r.age !== undefined).sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0)).at(-1);
+  // The latest row giving an age (the last in file order among rows of that date).
+  let withAge: CheckupRow | undefined;
+  for (const r of rows) if (r.age !== undefined && (withAge === undefined || r.date >= withAge.date)) withAge = r;
   if (withAge?.age !== undefined) {
     return { age: withAge.age + Math.floor(yearsBetween(withAge.date, latestDate) + 1e-9), note: null };
   }
@@ -129,57 +130,73 @@ function checkupOf(row: CheckupRow): Checkup {
  */
 export function evaluateWorker(group: WorkerRows, context: CheckupsContext): WorkerResult {
   const { rows } = group;
-  const names = { hba1c: context.columnNames?.hba1c ?? 'HbA1c', fpg: context.columnNames?.fpg ?? 'fasting glucose' };
   const merged = mergeSameDate(rows.map(checkupOf), (i) => `row ${rows[i]?.line ?? '?'}`);
-  const problems: RowProblem[] = merged.issues.map((issue) => {
-    const index = typeof issue.path[1] === 'number' ? issue.path[1] : -1;
-    const test = issue.path[2] === 'fpg' ? 'fpg' : 'hba1c';
-    return { line: rows[index]?.line ?? 0, column: names[test], code: issue.code, message: issue.message };
-  });
-  const skippedLines = new Set(problems.map((p) => p.line));
-  const kept = rows.filter((r) => !skippedLines.has(r.line));
+  let problems: RowProblem[] = [];
+  let kept = rows;
+  let skippedRows = 0;
+  if (merged.issues.length > 0) {
+    const names = { hba1c: context.columnNames?.hba1c ?? 'HbA1c', fpg: context.columnNames?.fpg ?? 'fasting glucose' };
+    problems = merged.issues.map((issue) => {
+      const index = typeof issue.path[1] === 'number' ? issue.path[1] : -1;
+      const test = issue.path[2] === 'fpg' ? 'fpg' : 'hba1c';
+      return { line: rows[index]?.line ?? 0, column: names[test], code: issue.code, message: issue.message };
+    });
+    const skippedLines = new Set(problems.map((p) => p.line));
+    kept = rows.filter((r) => !skippedLines.has(r.line));
+    skippedRows = skippedLines.size;
+  }
   const checkups = merged.checkups;
 
-  const sex = kept.findLast((r) => r.sex !== undefined)?.sex ?? null;
+  let sex: 'female' | 'male' | null = null;
   const strata: Record<string, string> = {};
-  for (const row of kept) Object.assign(strata, row.strata);
+  for (const row of kept) {
+    if (row.sex !== undefined) sex = row.sex;
+    for (const name in row.strata) strata[name] = row.strata[name] as string;
+  }
 
-  const latestCheckup = checkups.at(-1);
-  const base = {
+  // Every result has the same keys in the same order (one object shape); figures only for exposed and comparison.
+  const result = (
+    age: number | null,
+    latest: WorkerResult['latest'],
+    run: WorkerResult['run'],
+    status: WorkerStatus,
+    reasons: readonly string[],
+    warnings: readonly Warning[],
+    figures: ComputeResult | null,
+  ): WorkerResult => ({
     worker: group.worker,
     sex,
     checkups: checkups.length,
     strata,
     problems,
-    skippedRows: skippedLines.size,
-  };
+    skippedRows,
+    age,
+    latest,
+    run,
+    status,
+    reasons,
+    referenceRisk: figures ? figures.referenceRisk : null,
+    exposedRisk: figures ? figures.exposedRisk : null,
+    riskDifference: figures ? figures.riskDifference : null,
+    numberNeeded: figures ? figures.numberNeeded : null,
+    horizonYears: figures ? figures.horizonYears : null,
+    warnings,
+  });
+
+  const latestCheckup = checkups.at(-1);
   if (!latestCheckup) {
-    return {
-      ...base,
-      age: null,
-      latest: null,
-      run: { category: null, yearlyResults: 0, from: null, to: null },
-      status: 'insufficient',
-      reasons: ['No usable checkup for this worker.'],
-      ...NOT_APPLICABLE,
-      warnings: [],
-    };
+    return result(null, null, { category: null, yearlyResults: 0, from: null, to: null }, 'insufficient', ['No usable checkup for this worker.'], [], null);
   }
   const { age, note: ageNote } = ageAtLatest(kept, latestCheckup.date);
-  const latestCategory = classifyCheckup(latestCheckup, context.criteria).category;
+  const latestCategory = latestCategoryOf(latestCheckup, context);
   const match = exposureStatus(checkups, context.exposure, { shownCriteria: context.criteria });
   const run = { category: match.run.category, yearlyResults: match.run.yearlyResults, from: match.run.from, to: match.run.to };
-  const common = { ...base, age, latest: { date: latestCheckup.date, category: latestCategory }, run };
+  const latest = { date: latestCheckup.date, category: latestCategory };
 
   if (latestCategory === 'diabetes-range') {
     const note = diabetesRangeNote(classifyHistory(checkups, context.criteria), context.exposure.category);
-    return {
-      ...common,
-      status: 'diabetes-range',
-      reasons: [note?.message ?? 'The latest result is in the diabetes range. One result is not a diagnosis: confirm with repeat testing as your local guideline says.'],
-      ...NOT_APPLICABLE,
-      warnings: note ? [note] : [],
-    };
+    const reasons = [note?.message ?? 'The latest result is in the diabetes range. One result is not a diagnosis: confirm with repeat testing as your local guideline says.'];
+    return result(age, latest, run, 'diabetes-range', reasons, note ? [note] : [], null);
   }
 
   let status: WorkerStatus = match.status;
@@ -190,32 +207,44 @@ export function evaluateWorker(group: WorkerRows, context: CheckupsContext): Wor
     reasons[0] = match.neitherReason === 'gap' ? 'Not enough yearly results: a gap cuts the run short.' : match.neitherReason === 'short' ? 'Not enough yearly results yet.' : 'The results cannot be classified with the test the study used.';
   }
   if (status !== 'exposed' && status !== 'comparison') {
-    return { ...common, status, reasons, ...NOT_APPLICABLE, warnings: match.exposure.warning && status === 'neither' ? [match.exposure.warning] : [] };
+    return result(age, latest, run, status, reasons, match.exposure.warning && status === 'neither' ? [match.exposure.warning] : [], null);
   }
 
-  const built = scenarioFor(age, sex, strata, context);
+  const built = cachedScenarioFor(age, sex, strata, context);
   if (!built.ok) {
     const why = built.issues.map((i) => i.message).join('; ');
-    return { ...common, status: 'neither', reasons: [`The population table cannot place this worker: ${why}.`, ...reasons], ...NOT_APPLICABLE, warnings: [] };
+    return result(age, latest, run, 'neither', [`The population table cannot place this worker: ${why}.`, ...reasons], [], null);
   }
-  const scenario = built.value;
-  const computed = computeScenario(scenario);
+  const computed = computeScenario(built.value);
   if (!computed.ok) {
-    return { ...common, status: 'neither', reasons: [`The figures cannot be computed: ${computed.issues.map((i) => i.message).join('; ')}.`, ...reasons], ...NOT_APPLICABLE, warnings: [] };
+    return result(age, latest, run, 'neither', [`The figures cannot be computed: ${computed.issues.map((i) => i.message).join('; ')}.`, ...reasons], [], null);
   }
-  const result = computed.value;
-  const warnings: Warning[] = [...result.warnings];
-  return {
-    ...common,
-    status,
-    reasons,
-    referenceRisk: result.referenceRisk,
-    exposedRisk: result.exposedRisk,
-    riskDifference: result.riskDifference,
-    numberNeeded: result.numberNeeded,
-    horizonYears: result.horizonYears,
-    warnings,
-  };
+  return result(age, latest, run, status, reasons, [...computed.value.warnings], computed.value);
+}
+
+/** Latest categories already found, per context, by the checkup's readings (the date does not change a category). */
+const LATEST_CATEGORIES = new WeakMap<CheckupsContext, Map<string, GlycaemicCategory | null>>();
+/** Most reading pairs kept per context before starting over. */
+const MAX_LATEST_CATEGORIES = 16_384;
+
+/**
+ * The latest checkup's category under the chosen criteria set: lib/glycaemia `classifyCheckup`,
+ * remembered per pair of readings (the category depends only on the values, units and criteria
+ * set, not on the date or the worker).
+ */
+function latestCategoryOf(checkup: Checkup, context: CheckupsContext): GlycaemicCategory | null {
+  let memo = LATEST_CATEGORIES.get(context);
+  if (!memo) {
+    memo = new Map();
+    LATEST_CATEGORIES.set(context, memo);
+  }
+  const key = `${checkup.hba1c ? `${checkup.hba1c.value} ${checkup.hba1c.unit}` : ''}|${checkup.fpg ? `${checkup.fpg.value} ${checkup.fpg.unit}` : ''}`;
+  const known = memo.get(key);
+  if (known !== undefined) return known;
+  const category = classifyCheckup(checkup, context.criteria).category;
+  if (memo.size >= MAX_LATEST_CATEGORIES) memo.clear();
+  memo.set(key, category);
+  return category;
 }
 
 /**
@@ -239,6 +268,31 @@ export function scenarioFor(
     person,
     tableId: context.table.id,
   });
+}
+
+/** Scenarios already built, per context: the same age, sex and table strata give the same scenario. */
+const SCENARIOS = new WeakMap<CheckupsContext, { readonly extra: readonly string[]; readonly byKey: Map<string, Result<Scenario>> }>();
+/** Most scenarios kept per context before starting over (ages × sexes × table strata: a few hundred in practice). */
+const MAX_SCENARIOS = 4096;
+
+/**
+ * {@link scenarioFor}, remembered per context: the table lookup and the scenario depend only on
+ * the age, the sex and the strata the table names, so workers who share them share one (read-only)
+ * scenario. computeScenario still runs for every worker.
+ */
+function cachedScenarioFor(age: number | null, sex: 'female' | 'male' | null, strata: Readonly<Record<string, string>>, context: CheckupsContext): Result<Scenario> {
+  let cache = SCENARIOS.get(context);
+  if (!cache) {
+    cache = { extra: tableNeeds(context.table).extra, byKey: new Map() };
+    SCENARIOS.set(context, cache);
+  }
+  const key = JSON.stringify([age, sex, ...cache.extra.map((k) => strata[k] ?? null)]);
+  const known = cache.byKey.get(key);
+  if (known) return known;
+  const built = scenarioFor(age, sex, strata, context);
+  if (cache.byKey.size >= MAX_SCENARIOS) cache.byKey.clear();
+  cache.byKey.set(key, built);
+  return built;
 }
 
 /** The scenario a worker's figures come from (for the screen's "open one worker"); null where the evidence does not apply. */

@@ -39,16 +39,19 @@ export class WorkerGrouper {
 export class BloomFilter {
   private readonly bits: Uint32Array;
   private readonly size: number;
+  private h1 = 0;
+  private h2 = 0;
 
   constructor(
     bitsLog2 = 24,
     private readonly hashes = 7,
   ) {
     this.size = 2 ** bitsLog2;
-    this.bits = new Uint32Array(this.size / 32);
+    this.bits = new Uint32Array(Math.ceil(this.size / 32));
   }
 
-  private positions(text: string): number[] {
+  /** The two hashes of a text (into h1, h2: no allocation per call). */
+  private hash(text: string): void {
     let h1 = 0x811c9dc5;
     let h2 = 0x01000193;
     for (let i = 0; i < text.length; i++) {
@@ -56,36 +59,73 @@ export class BloomFilter {
       h1 = Math.imul(h1 ^ c, 0x01000193) >>> 0;
       h2 = Math.imul(h2 ^ c, 0x5bd1e995) >>> 0;
     }
-    h2 = (h2 | 1) >>> 0;
-    const out: number[] = [];
-    for (let k = 0; k < this.hashes; k++) out.push((h1 + Math.imul(k, h2)) % this.size >>> 0);
-    return out;
+    this.h1 = h1;
+    this.h2 = (h2 | 1) >>> 0;
+  }
+
+  /** Bit k of the text: (h1 + k·h2) mod 2^32, then mod the size (never negative, never past the end). */
+  private position(k: number): number {
+    return ((this.h1 + Math.imul(k, this.h2)) >>> 0) % this.size;
   }
 
   add(text: string): void {
-    for (const p of this.positions(text)) this.bits[p >>> 5]! |= 1 << (p & 31);
+    this.hash(text);
+    for (let k = 0; k < this.hashes; k++) {
+      const p = this.position(k);
+      this.bits[p >>> 5]! |= 1 << (p & 31);
+    }
   }
 
   mightHave(text: string): boolean {
-    return this.positions(text).every((p) => (this.bits[p >>> 5]! & (1 << (p & 31))) !== 0);
+    this.hash(text);
+    for (let k = 0; k < this.hashes; k++) {
+      const p = this.position(k);
+      if ((this.bits[p >>> 5]! & (1 << (p & 31))) === 0) return false;
+    }
+    return true;
   }
 }
 
 /**
+ * Most ids {@link GroupingCheck} keeps to confirm; past that the file is taken as not grouped (read
+ * whole). A grouped file of a million workers gives about 500 (2^24 bits, 7 hashes); an ungrouped
+ * one reaches this soon.
+ */
+export const MAX_SUSPECTS = 10_000;
+
+/**
  * Whether worker ids arrive grouped (each worker's rows together), fed one id per row; for a
  * quick first pass over a file that reads only the worker column.
+ *
+ * A finished worker's id is remembered in a fixed-size Bloom filter, which can answer "seen" for
+ * an id never seen (about 1 in 2,000 new ids once a million workers are in it). Such ids are
+ * {@link GroupingCheck.suspects}: whether one of them truly comes back is settled exactly by
+ * counting their runs ({@link countRuns}) in a second quick pass, so a false "seen" never sends a
+ * grouped file to the whole read. An id found back next to itself (a worker's rows together) is
+ * never a suspect.
  */
 export class GroupingCheck {
   private current: string | null = null;
-  private readonly done = new BloomFilter();
+  private readonly done: BloomFilter;
+  /** Ids the filter says came before: each may be a false "seen"; confirm with {@link countRuns}. */
+  readonly suspects = new Set<string>();
   grouped = true;
 
-  /** Feeds the next row's worker id; false once a finished worker comes back. */
+  /** @param bitsLog2 - the filter's size (2^bitsLog2 bits); the same as the StreamingGrouper's that follows */
+  constructor(bitsLog2 = 24) {
+    this.done = new BloomFilter(bitsLog2);
+  }
+
+  /** Feeds the next row's worker id; false once the file is known not to be grouped. */
   add(worker: string): boolean {
     if (!this.grouped || worker === this.current) return this.grouped;
     if (this.done.mightHave(worker)) {
-      this.grouped = false;
-      return false;
+      if (this.suspects.has(worker) || this.suspects.size >= MAX_SUSPECTS) {
+        // A suspect seen starting a second run is certainly back; too many suspects: give up streaming.
+        this.grouped = false;
+        return false;
+      }
+      this.suspects.add(worker);
     }
     if (this.current !== null) this.done.add(this.current);
     this.current = worker;
@@ -94,7 +134,35 @@ export class GroupingCheck {
 }
 
 /**
+ * How many separate runs (blocks of consecutive rows) each of some ids has, fed one id per row:
+ * an id with two runs makes the file not grouped. The second pass of {@link GroupingCheck}.
+ */
+export class RunCounter {
+  private current: string | null = null;
+  private readonly runs = new Map<string, number>();
+  grouped = true;
+
+  constructor(private readonly ids: ReadonlySet<string>) {}
+
+  add(worker: string): boolean {
+    if (!this.grouped || worker === this.current) return this.grouped;
+    this.current = worker;
+    if (!this.ids.has(worker)) return true;
+    const runs = (this.runs.get(worker) ?? 0) + 1;
+    this.runs.set(worker, runs);
+    if (runs > 1) this.grouped = false;
+    return this.grouped;
+  }
+}
+
+/**
  * Hands over each worker once the next worker's row arrives.
+ *
+ * @param confirmed - ids a first pass confirmed to have one run each ({@link GroupingCheck}
+ *   suspects that {@link RunCounter} cleared): the Bloom filter's "seen" for them is false.
+ *   The filter holds only ids of rows that were read, a subset of the first pass's, so each
+ *   "seen" it gives for a new id the first pass gave too (same size, same hashes).
+ * @param bitsLog2 - the filter's size; the same as the GroupingCheck's
  *
  * @example
  * const g = new StreamingGrouper();
@@ -103,9 +171,16 @@ export class GroupingCheck {
  */
 export class StreamingGrouper {
   private current: { worker: string; rows: CheckupRow[] } | null = null;
-  private readonly done = new BloomFilter();
+  private readonly done: BloomFilter;
   /** Set when a finished worker's id appears again: the file is not grouped by worker. */
   ungrouped: { readonly worker: string; readonly line: number } | null = null;
+
+  constructor(
+    private readonly confirmed: ReadonlySet<string> = new Set(),
+    bitsLog2 = 24,
+  ) {
+    this.done = new BloomFilter(bitsLog2);
+  }
 
   /** The workers completed by these rows. Once {@link ungrouped} is set, nothing more is handed over. */
   add(rows: readonly CheckupRow[]): WorkerRows[] {
@@ -116,7 +191,7 @@ export class StreamingGrouper {
         this.current.rows.push(row);
         continue;
       }
-      if (this.done.mightHave(row.worker)) {
+      if (this.done.mightHave(row.worker) && !this.confirmed.has(row.worker)) {
         this.ungrouped = { worker: row.worker, line: row.line };
         return out;
       }

@@ -13,7 +13,8 @@
  * | workbook → cells (lazy `read-excel-file`) | `await readXlsxSheet(arrayBufferOrBlob, sheet?)` → `{ sheet, sheets, rows }` or a refusal | ./xlsx.ts |
  * | workbook cells → rows + row problems | `readCheckupTable(rows, { today, overrides? \| mapping? })` | ./reader.ts |
  * | FHIR bulk NDJSON chunks → rows | `new FhirBulkReader({ today })`: `startFile(name)`, `push(chunk)`, `end()`, `counts()` | ./fhirBulk.ts |
- * | rows → workers (order of first appearance) | `new WorkerGrouper()` (any order) / `new StreamingGrouper()` (grouped files, flat memory) | ./group.ts |
+ * | rows → workers (order of first appearance) | `new WorkerGrouper()` (any order) / `new StreamingGrouper(confirmed?)` (grouped files, flat memory) | ./group.ts |
+ * | is a file grouped by worker? (a quick pass over one column) | `new ColumnScanner(delimiter, column, onCell)` feeding `new GroupingCheck()`; its `suspects` (Bloom filter "seen", maybe false) settled exactly by `new RunCounter(suspects)` in a second quick pass | ./delimited.ts, ./group.ts |
  * | settings, checked once | `prepareCheckups({ evidence, table, criteria, horizonYears?, columnNames? })` → `Result<CheckupsContext>` | ./evaluate.ts |
  * | one worker | `evaluateWorker({ worker, rows }, context)` → `WorkerResult` | ./evaluate.ts |
  * | one worker's scenario (for "open one worker") | `workerScenario(result, context)` → `Scenario \| null` | ./evaluate.ts |

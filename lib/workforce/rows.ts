@@ -146,8 +146,42 @@ export interface RowReader {
   readonly read: (cells: readonly CellValue[], line: number) => RowOutcome;
 }
 
+/** Why a cell is not usable, without the row and column (added where the row is known). */
+interface CellProblem {
+  readonly code: string;
+  readonly message: string;
+}
+
+/** Most distinct texts a {@link TextMemo} keeps before it starts again: memory stays flat. */
+export const MEMO_LIMIT = 4096;
+
+/**
+ * Remembers a pure function's answer per text. A file repeats the same few hundred dates, values
+ * and codes on every row, so each is checked once (with the same zod schema, giving the same
+ * answer) instead of once a row. Bounded: past {@link MEMO_LIMIT} texts it forgets and starts over.
+ */
+export class TextMemo<T> {
+  private readonly answers = new Map<string, T>();
+  constructor(private readonly compute: (text: string) => T) {}
+
+  get(text: string): T {
+    const known = this.answers.get(text);
+    if (known !== undefined || this.answers.has(text)) return known as T;
+    const answer = this.compute(text);
+    if (this.answers.size >= MEMO_LIMIT) this.answers.clear();
+    this.answers.set(text, answer);
+    return answer;
+  }
+}
+
+type Reading<U> = { readonly value: number; readonly unit: U };
+
 /**
  * A reader of rows for one mapping.
+ *
+ * Every check is a pure function of the cell's text (and of the reader's `today` and decimal
+ * comma), so its answer is remembered per text ({@link TextMemo}); the rows and problems are the
+ * same as checking every cell afresh (tests/unit/workforce/rows.test.ts compares the two).
  *
  * @example
  * createRowReader(mapping, { today: '2025-01-01' }).read(['W001', '2024-03-01', '6.1', '5.9', '52', 'F', 'North'], 2)
@@ -159,60 +193,100 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
   const decimalComma = options.decimalComma ?? false;
   const todayYear = Number(options.today.slice(0, 4));
 
+  /** A worker id → its problem, or null when it is usable. */
+  const workerCheck = (worker: string): CellProblem | null => {
+    if (worker === '') return { code: 'required', message: 'the worker id is empty' };
+    if (worker.length > MAX_WORKER_ID) return { code: 'too-long', message: `the worker id is longer than ${MAX_WORKER_ID} characters; use a short pseudonymous id` };
+    if (looksLikeName(worker)) return { code: 'looks-like-name', message: 'the worker id looks like a person’s name; use pseudonymous ids only (the value is not repeated here)' };
+    return null;
+  };
+  let lastWorker: string | null = null;
+  let lastWorkerProblem: CellProblem | null = null;
+
+  const checkDate = (dateCell: CellValue | undefined): string | CellProblem => {
+    if (cellText(dateCell) === '') return { code: 'required', message: 'the checkup date is empty' };
+    const read = readDateCell(dateCell);
+    if (typeof read !== 'string') return read;
+    const checked = dateSchema.safeParse(read);
+    if (checked.success) return read;
+    return { code: 'invalid-date', message: checked.error.issues[0]?.message ?? `${read} is not a usable date` };
+  };
+  const dates = new TextMemo<string | CellProblem>(checkDate);
+  const numbers = new TextMemo<number | CellProblem>((text) => readNumberCell(text, decimalComma));
+  const sexes = new TextMemo((text) => readSexCell(text));
+  const units = { hba1c: new TextMemo((text) => unitCell(text, 'hba1c')), fpg: new TextMemo((text) => unitCell(text, 'fpg')) };
+  /** A value cell in a known unit → the reading, or why not (not a number, or out of range for the unit). */
+  const checkReading = (test: 'hba1c' | 'fpg', cell: CellValue | undefined, unit: Hba1cUnitName | FpgUnitName): Reading<Hba1cUnitName | FpgUnitName> | CellProblem => {
+    const value = readNumberCell(cell, decimalComma);
+    if (typeof value !== 'number') return value;
+    const parsed = (test === 'hba1c' ? hba1cReadingSchema : fpgReadingSchema).safeParse({ value, unit });
+    if (!parsed.success) return { code: 'out-of-range', message: parsed.error.issues[0]?.message ?? 'the value is not usable' };
+    return parsed.data;
+  };
+  /** One memo per test and unit, keyed by the cell's text. */
+  const readingMemos = new Map<string, TextMemo<Reading<Hba1cUnitName | FpgUnitName> | CellProblem>>();
+  const readingOf = (test: 'hba1c' | 'fpg', cell: CellValue | undefined, unit: Hba1cUnitName | FpgUnitName) => {
+    if (typeof cell !== 'string') return checkReading(test, cell, unit);
+    const name = `${test} ${unit}`;
+    let memo = readingMemos.get(name);
+    if (!memo) {
+      memo = new TextMemo((text) => checkReading(test, text, unit));
+      readingMemos.set(name, memo);
+    }
+    return memo.get(cell);
+  };
+  const numberOf = (cell: CellValue | undefined): number | CellProblem => (typeof cell === 'string' ? numbers.get(cell) : readNumberCell(cell, decimalComma));
+
   function read(cells: readonly CellValue[], line: number): RowOutcome {
-    if (cells.every((c) => cellText(c) === '')) return { ok: 'blank' };
+    if (isBlankRow(cells)) return { ok: 'blank' };
     const problems: RowProblem[] = [];
     const problem = (column: ColumnAssignment | undefined, code: string, message: string) =>
       problems.push({ line, column: column?.header ?? null, code, message });
 
     const worker = cellText(cells[m.worker?.index ?? -1]);
-    if (worker === '') problem(m.worker, 'required', 'the worker id is empty');
-    else if (worker.length > MAX_WORKER_ID) problem(m.worker, 'too-long', `the worker id is longer than ${MAX_WORKER_ID} characters; use a short pseudonymous id`);
-    else if (looksLikeName(worker)) problem(m.worker, 'looks-like-name', 'the worker id looks like a person’s name; use pseudonymous ids only (the value is not repeated here)');
+    if (worker !== lastWorker) {
+      lastWorker = worker;
+      lastWorkerProblem = workerCheck(worker);
+    }
+    if (lastWorkerProblem) problem(m.worker, lastWorkerProblem.code, lastWorkerProblem.message);
 
     let date = '';
     const dateCell = cells[m.date?.index ?? -1];
-    if (cellText(dateCell) === '') problem(m.date, 'required', 'the checkup date is empty');
-    else {
-      const read = readDateCell(dateCell);
-      if (typeof read !== 'string') problem(m.date, read.code, read.message);
-      else {
-        const checked = dateSchema.safeParse(read);
-        if (checked.success) date = read;
-        else problem(m.date, 'invalid-date', checked.error.issues[0]?.message ?? `${read} is not a usable date`);
-      }
-    }
+    const checkedDate = typeof dateCell === 'string' ? dates.get(dateCell) : checkDate(dateCell);
+    if (typeof checkedDate === 'string') date = checkedDate;
+    else problem(m.date, checkedDate.code, checkedDate.message);
 
     const reading = <U extends string>(
       test: 'hba1c' | 'fpg',
       column: ColumnAssignment | undefined,
       unitColumn: ColumnAssignment | undefined,
-    ): { value: number; unit: U } | undefined => {
+    ): Reading<U> | undefined => {
       if (!column) return undefined;
       const cell = cells[column.index];
       if (cellText(cell) === '') return undefined;
-      const value = readNumberCell(cell, decimalComma);
-      if (typeof value !== 'number') {
-        problem(column, value.code, value.message);
-        return undefined;
-      }
       let unit = column.unit;
       if (unit === null) {
-        unit = unitCell(cells[unitColumn?.index ?? -1], test);
+        const unitCellValue = cells[unitColumn?.index ?? -1];
+        unit = typeof unitCellValue === 'string' ? units[test].get(unitCellValue) : unitCell(unitCellValue, test);
         if (unit === null) {
+          // A value that is not a number is reported as such before its missing unit.
+          const value = numberOf(cell);
+          if (typeof value !== 'number') {
+            problem(column, value.code, value.message);
+            return undefined;
+          }
           const allowed = test === 'hba1c' ? '% or mmol/mol' : 'mmol/L or mg/dL';
-          const text = cellText(cells[unitColumn?.index ?? -1]);
+          const text = cellText(unitCellValue);
           problem(unitColumn ?? column, 'unit-unknown', text === '' ? `the unit is empty; write ${allowed}` : `"${text.slice(0, 20)}" is not a unit of this test; write ${allowed}`);
           return undefined;
         }
       }
-      const schema = test === 'hba1c' ? hba1cReadingSchema : fpgReadingSchema;
-      const parsed = schema.safeParse({ value, unit });
-      if (!parsed.success) {
-        problem(column, 'out-of-range', parsed.error.issues[0]?.message ?? 'the value is not usable');
+      const checked = readingOf(test, cell, unit);
+      if ('code' in checked) {
+        problem(column, checked.code, checked.message);
         return undefined;
       }
-      return parsed.data as { value: number; unit: U };
+      return checked as Reading<U>;
     };
     const hba1c = reading<Hba1cReading['unit']>('hba1c', m.hba1c, m.hba1cUnit);
     const fpg = reading<FpgReading['unit']>('fpg', m.fpg, m.fpgUnit);
@@ -222,7 +296,7 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
 
     let age: number | undefined;
     if (m.age && cellText(cells[m.age.index]) !== '') {
-      const value = readNumberCell(cells[m.age.index], decimalComma);
+      const value = numberOf(cells[m.age.index]);
       if (typeof value !== 'number') problem(m.age, value.code, value.message);
       else if (!Number.isInteger(value) || value < 0 || value > 120) problem(m.age, 'out-of-range', `the age must be a whole number of years from 0 to 120 (got ${value})`);
       else age = value;
@@ -242,10 +316,13 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
       else birthDate = value;
     }
     let sex: 'female' | 'male' | undefined;
-    if (m.sex && cellText(cells[m.sex.index]) !== '') {
-      const value = readSexCell(cells[m.sex.index]);
-      if (typeof value !== 'string') problem(m.sex, value.code, value.message);
-      else sex = value;
+    if (m.sex) {
+      const sexCell = cells[m.sex.index];
+      if (cellText(sexCell) !== '') {
+        const value = typeof sexCell === 'string' ? sexes.get(sexCell) : readSexCell(sexCell);
+        if (typeof value !== 'string') problem(m.sex, value.code, value.message);
+        else sex = value;
+      }
     }
     if (problems.length > 0) return { ok: false, problems };
 
@@ -254,21 +331,22 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
       const value = cellText(cells[column.index]);
       if (value !== '' && column.stratum !== null) strata[column.stratum] = value.slice(0, 100);
     }
-    return {
-      ok: true,
-      row: {
-        line,
-        worker,
-        date,
-        ...(hba1c ? { hba1c } : {}),
-        ...(fpg ? { fpg } : {}),
-        ...(age !== undefined ? { age } : {}),
-        ...(birthYear !== undefined ? { birthYear } : {}),
-        ...(birthDate !== undefined ? { birthDate } : {}),
-        ...(sex !== undefined ? { sex } : {}),
-        strata,
-      },
-    };
+    // Built key by key (no spreads): one object a row, keys in the order the contract lists them.
+    const row = { line, worker, date } as { -readonly [K in keyof CheckupRow]: CheckupRow[K] };
+    if (hba1c) row.hba1c = hba1c;
+    if (fpg) row.fpg = fpg;
+    if (age !== undefined) row.age = age;
+    if (birthYear !== undefined) row.birthYear = birthYear;
+    if (birthDate !== undefined) row.birthDate = birthDate;
+    if (sex !== undefined) row.sex = sex;
+    row.strata = strata;
+    return { ok: true, row };
   }
   return { read };
+}
+
+/** True when every cell is empty or blank. */
+function isBlankRow(cells: readonly CellValue[]): boolean {
+  for (let i = 0; i < cells.length; i++) if (cellText(cells[i]) !== '') return false;
+  return true;
 }

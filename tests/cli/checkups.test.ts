@@ -1,3 +1,4 @@
+import { spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -6,7 +7,7 @@ import { exportEvidenceJson } from '@/lib/evidence/file';
 import { DEMO_NESTED_CASE_CONTROL_GLUCOSE_CORONARY, DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import { exportTableCsv } from '@/lib/tables/csv';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
-import { ensureBuilt, runCli } from './runCli';
+import { BIN, ensureBuilt, ROOT, runCli } from './runCli';
 
 // The demo workforce (demo/checkups/, illustrative) through the real command.
 const DEMO = 'demo/checkups';
@@ -104,6 +105,27 @@ describe('hundredfold checkups (spawned)', () => {
     expect(err[0]).toBe('row 3, column HbA1c (%): "x\\x1b[31m" is not a number');
     expect(err[50]).toBe('… and 10 more row problems not listed');
     expect(run.stderr).not.toContain('\u001b');
+  });
+
+  it('standard input ("-") is streamed: the same lines as the file; bytes that are not UTF-8 are refused with their line, exit 2', async () => {
+    const text = readFileSync(`${DEMO}/checkups.csv`, 'utf8');
+    const [fromFile, fromStdin] = await Promise.all([runCli(['checkups', `${DEMO}/checkups.csv`, ...SETTINGS]), runCli(['checkups', '-', ...SETTINGS], text)]);
+    expect(fromStdin.code).toBe(1);
+    expect(fromStdin.stdout).toBe(fromFile.stdout);
+    const bad = await new Promise<{ code: number | null; stdout: string; stderr: string }>((resolve, reject) => {
+      const child = spawn(process.execPath, [BIN, 'checkups', '-', ...SETTINGS], { cwd: ROOT, stdio: 'pipe' });
+      let stdout = '';
+      let stderr = '';
+      child.stdout.on('data', (c: Buffer) => (stdout += c.toString('utf8')));
+      child.stderr.on('data', (c: Buffer) => (stderr += c.toString('utf8')));
+      child.on('error', reject);
+      child.on('close', (code) => resolve({ code, stdout, stderr }));
+      // Line 3 holds a Latin-1 "é" (0xe9), which is not UTF-8.
+      child.stdin.end(Buffer.concat([Buffer.from('worker,date,HbA1c (%)\nW1,2024-01-01,6.1\nW2,2024-01-01,6.0,'), Buffer.from([0xe9]), Buffer.from('\n')]));
+    });
+    expect(bad.code).toBe(2);
+    expect(bad.stdout).toBe('');
+    expect(bad.stderr).toBe('hundredfold: checkups: standard input is not UTF-8 text: byte 0xe9 at line 3 is not part of a UTF-8 character, and nothing is guessed. Save it as UTF-8\n');
   });
 
   it('exit 2 with one line: unsettled mapping, no usable row, unknown option, missing settings, a PDF', async () => {

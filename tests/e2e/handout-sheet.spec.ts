@@ -11,32 +11,18 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import { HANDOUT_HISTORY_KEY, handOverRecord } from '@/lib/handout';
 import { scenarioQuery } from '@/lib/link';
 import type { Scenario } from '@/lib/scenario/schema';
-import { baselineOf, DEMO_HEART_FAILURE_10Y } from '@/lib/tables';
-import { CAUTION_HEADING } from '@/lib/wording';
+import { computeScenario } from '@/lib/engine/compute';
+import { CAUTION_HEADING, CAUTION_TEXT } from '@/lib/wording';
 import { TYPED_SCENARIO } from './support';
+import { demoScenario, openHandout, squash } from './handoutSupport';
 
 const OUT = path.join('test-results', 'handout-sheet');
 mkdirSync(OUT, { recursive: true });
 const AXE_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
 const SCHEMA_TEXT = /[{}]|expected|Invalid input|received|undefined/;
-
-function demoScenario(ageFrom: number): Scenario {
-  const stratum = DEMO_HEART_FAILURE_10Y.strata.find((s) => s.sex === 'female' && s.ageFrom === ageFrom);
-  if (!stratum) throw new Error(`no demo stratum for women ${ageFrom}`);
-  const entry = DEMO_WORKFORCE_HBA1C_HEART_FAILURE;
-  return {
-    baseline: baselineOf(DEMO_HEART_FAILURE_10Y, stratum),
-    effect: entry.effect,
-    horizonYears: 10,
-    wording: entry.wording,
-    person: { age: ageFrom + 3, sex: 'female' },
-    tableId: DEMO_HEART_FAILURE_10Y.id,
-  };
-}
 
 /** Women 60–69 (100 people in the pictures) and 40–49 (a small risk, so 1,000). */
 const DEMOS = [
@@ -44,31 +30,24 @@ const DEMOS = [
   { name: '1000', scenario: demoScenario(40) },
 ] as const;
 const PAPERS = [
-  { key: 'a4', label: 'A4', date: /Prepared on \d{1,2} (January|February|March|April|May|June|July|August|September|October|November|December) \d{4}\./ },
-  { key: 'letter', label: 'US Letter', date: /Prepared on (January|February|March|April|May|June|July|August|September|October|November|December) \d{1,2}, \d{4}\./ },
+  { key: 'a4', label: 'A4', widthPt: 595.28, heightPt: 841.89, date: /Prepared on \d{1,2} (January|February|March|April|May|June|July|August|September|October|November|December) \d{4}\./ },
+  { key: 'letter', label: 'US Letter', widthPt: 612, heightPt: 792, date: /Prepared on (January|February|March|April|May|June|July|August|September|October|November|December) \d{1,2}, \d{4}\./ },
 ] as const;
 const LAYOUTS = [
   { key: 'standard', label: 'Standard: pictures beside the words' },
   { key: 'large', label: 'Large pictures (at least 6 cm wide)' },
 ] as const;
 
-function squash(text: string): string {
-  return text.replace(/\s+/g, ' ').trim();
-}
-
-async function openHandout(page: Page, scenario: Scenario) {
-  await page.goto(`/handout${scenarioQuery(scenario)}`);
-  await expect(page.getByTestId('handout-sheet')).toBeVisible();
-}
-
-/** Prints the page, checks it is one page, saves a PNG to look at, returns the text (drawing order) and the raw lines. */
-async function printOnePage(page: Page, base: string): Promise<{ text: string; lines: string[] }> {
+/** Prints the page, checks it is one page, saves a PNG to look at, returns the text (drawing order), the raw lines and the page size in points. */
+async function printOnePage(page: Page, base: string): Promise<{ text: string; lines: string[]; size: { width: number; height: number } }> {
   const pdfPath = path.join(OUT, `${base}.pdf`);
   writeFileSync(pdfPath, await page.pdf({ preferCSSPageSize: true, printBackground: true }));
-  expect(execFileSync('pdfinfo', [pdfPath]).toString()).toMatch(/^Pages:\s+1$/m);
+  const info = execFileSync('pdfinfo', [pdfPath]).toString();
+  expect(info).toMatch(/^Pages:\s+1$/m);
+  const size = /Page size:\s+([\d.]+) x ([\d.]+) pts/.exec(info);
   execFileSync('pdftoppm', ['-png', '-r', '70', '-singlefile', pdfPath, path.join(OUT, base)]);
   const raw = execFileSync('pdftotext', ['-raw', pdfPath, '-']).toString();
-  return { text: squash(raw), lines: raw.split('\n') };
+  return { text: squash(raw), lines: raw.split('\n'), size: { width: Number(size?.[1]), height: Number(size?.[2]) } };
 }
 
 const PHONE = '+44 20 7946 0000';
@@ -97,7 +76,27 @@ for (const demo of DEMOS) {
           for (const w of widths) expect(w).toBeGreaterThanOrEqual((60 * 96) / 25.4 - 1 / 64);
         }
 
-        const { text, lines } = await printOnePage(page, `${layout.key}-${demo.name}-${paper.key}`);
+        const { text, lines, size } = await printOnePage(page, `${layout.key}-${demo.name}-${paper.key}`);
+        expect(size.width).toBeCloseTo(paper.widthPt, 0);
+        expect(size.height).toBeCloseTo(paper.heightPt, 0);
+        // The engine's counts, in the page's one denominator, and the time frame (issue 4; these
+        // checks were a separate print of the same sheets in handout.spec.ts).
+        const computed = computeScenario(demo.scenario);
+        if (!computed.ok) throw new Error(JSON.stringify(computed.issues));
+        const { iconArray: c, horizonYears } = computed.value;
+        const D = c.denominator.toLocaleString('en');
+        expect(text).toContain(`about ${c.referenceEvents} out of ${D} will have heart failure needing hospital care`);
+        expect(text).toContain(`The other ${(c.denominator - c.referenceEvents).toLocaleString('en')} out of ${D} will not.`);
+        expect(text).toContain(`about ${c.exposedEvents} out of ${D} will have heart failure needing hospital care`);
+        expect(text).toContain(`The other ${(c.denominator - c.exposedEvents).toLocaleString('en')} out of ${D} will not.`);
+        expect(text).toContain(`That is about ${c.exposedEvents - c.referenceEvents} more out of ${D}.`);
+        expect(text).toContain(`anywhere from ${c.exposedLower} to ${c.exposedUpper} out of ${D}`);
+        expect(text).toContain(`In the next ${horizonYears} years`);
+        expect(text).toContain(`over the next ${horizonYears} years`);
+        expect(text).toContain(squash(CAUTION_TEXT));
+        expect(text).toContain('Illustrative numbers, not from a real population');
+        expect(text).not.toContain('Prepare the handout');
+        expect(text).not.toMatch(/\b1 in \d+/);
         // The band, across the top, before anything else.
         expect(text.toLowerCase()).toContain('illustrative figures \u2014 not for patients');
         expect(text).toContain('Table and study invented for a demonstration.');

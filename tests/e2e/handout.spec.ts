@@ -1,114 +1,22 @@
 /**
- * Browser tests of /handout (issue 4): the printed page for a demo scenario, on A4 and on US
- * Letter, is exactly one page whose text holds the engine's numbers, the time frame and the
- * caution; a PNG of each is saved in test-results/ to look at; axe finds no WCAG 2.2 AA
- * violation; the reading grade updates live; templates survive a reload and a bad import
- * changes nothing.
+ * Browser tests of /handout (issue 4): axe finds no WCAG 2.2 AA violation; the reading grade
+ * updates live; templates survive a reload and a bad import changes nothing, and two tabs
+ * cannot overwrite each other's template (issue 14). The printed page on A4 and US Letter, one
+ * page with the engine's numbers, the time frame and the caution, is checked for every layout
+ * in handout-sheet.spec.ts.
  */
-import { execFileSync } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Page } from '@playwright/test';
-import { computeScenario } from '@/lib/engine/compute';
-import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
-import { scenarioFragment } from '@/lib/link';
-import type { Scenario } from '@/lib/scenario/schema';
-import { baselineOf, DEMO_HEART_FAILURE_10Y } from '@/lib/tables';
-import { CAUTION_TEXT } from '@/lib/wording';
+import { expect, test } from '@playwright/test';
+import { demoScenario, openHandout } from './handoutSupport';
 
-const OUT = path.join('test-results', 'handout');
-mkdirSync(OUT, { recursive: true });
-
-function demoScenario(ageFrom: number): Scenario {
-  const stratum = DEMO_HEART_FAILURE_10Y.strata.find((s) => s.sex === 'female' && s.ageFrom === ageFrom);
-  if (!stratum) throw new Error(`no demo stratum for women ${ageFrom}`);
-  const entry = DEMO_WORKFORCE_HBA1C_HEART_FAILURE;
-  return {
-    baseline: baselineOf(DEMO_HEART_FAILURE_10Y, stratum),
-    effect: entry.effect,
-    horizonYears: 10,
-    wording: entry.wording,
-    person: { age: ageFrom + 3, sex: 'female' },
-    tableId: DEMO_HEART_FAILURE_10Y.id,
-  };
-}
-
-/** Women 60–69 (D = 100) and women 40–49 (a small risk, so D = 1,000) from the demo table. */
-const DEMOS = [
-  { name: 'women 60-69', scenario: demoScenario(60) },
-  { name: 'women 40-49', scenario: demoScenario(40) },
-] as const;
-
-const PAPERS = [
-  { key: 'a4', label: 'A4', widthPt: 595.28, heightPt: 841.89 },
-  { key: 'letter', label: 'US Letter', widthPt: 612, heightPt: 792 },
-] as const;
-
-function squash(text: string): string {
-  return text.replace(/\s+/g, ' ').trim();
-}
-
-async function openHandout(page: Page, scenario: Scenario) {
-  await page.goto(`/handout${scenarioFragment(scenario)}`);
-  await expect(page.getByTestId('handout-sheet')).toBeVisible();
-}
-
-for (const demo of DEMOS) {
-  for (const paper of PAPERS) {
-    test(`prints ${demo.name} on one ${paper.label} page with the engine's numbers, the time frame and the caution`, async ({ page }) => {
-      const computed = computeScenario(demo.scenario);
-      if (!computed.ok) throw new Error(JSON.stringify(computed.issues));
-      const { iconArray: c, horizonYears } = computed.value;
-      const D = c.denominator.toLocaleString('en');
-
-      await openHandout(page, demo.scenario);
-      await page.getByLabel(paper.label, { exact: true }).check();
-      const base = `${demo.name.replace(/\W+/g, '-')}-${paper.key}`;
-      const pdfPath = path.join(OUT, `${base}.pdf`);
-      writeFileSync(pdfPath, await page.pdf({ preferCSSPageSize: true, printBackground: true }));
-
-      const info = execFileSync('pdfinfo', [pdfPath]).toString();
-      expect(info).toMatch(/^Pages:\s+1$/m);
-      const size = /Page size:\s+([\d.]+) x ([\d.]+) pts/.exec(info);
-      expect(Number(size?.[1])).toBeCloseTo(paper.widthPt, 0);
-      expect(Number(size?.[2])).toBeCloseTo(paper.heightPt, 0);
-
-      // -raw keeps the order text was drawn in, so side-by-side columns are not interleaved.
-      const text = squash(execFileSync('pdftotext', ['-raw', pdfPath, '-']).toString());
-      // The engine's counts, in the page's one denominator.
-      expect(text).toContain(`about ${c.referenceEvents} out of ${D} will have heart failure needing hospital care`);
-      expect(text).toContain(`The other ${(c.denominator - c.referenceEvents).toLocaleString('en')} out of ${D} will not.`);
-      expect(text).toContain(`about ${c.exposedEvents} out of ${D} will have heart failure needing hospital care`);
-      expect(text).toContain(`The other ${(c.denominator - c.exposedEvents).toLocaleString('en')} out of ${D} will not.`);
-      expect(text).toContain(`That is about ${c.exposedEvents - c.referenceEvents} more out of ${D}.`);
-      expect(text).toContain(`anywhere from ${c.exposedLower} to ${c.exposedUpper} out of ${D}`);
-      // The time frame and the caution.
-      expect(text).toContain(`In the next ${horizonYears} years`);
-      expect(text).toContain(`over the next ${horizonYears} years`);
-      expect(text).toContain(squash(CAUTION_TEXT));
-      // Where the numbers come from, and no controls on paper.
-      expect(text).toContain('Illustrative numbers, not from a real population');
-      expect(text).not.toContain('Print or save as PDF');
-      expect(text).not.toContain('Prepare the handout');
-      expect(text).not.toMatch(/\b1 in \d+/);
-
-      // A picture of the page, to look at.
-      execFileSync('pdftoppm', ['-png', '-r', '80', '-singlefile', pdfPath, path.join(OUT, base)]);
-    });
-  }
-}
-
-test('axe finds no WCAG 2.2 AA violation on /handout (result and error states)', async ({ page }) => {
+test('axe finds no WCAG 2.2 AA violation on /handout (result, and a block above grade 8)', async ({ page }) => {
   const tags = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
   await openHandout(page, demoScenario(60));
   expect((await new AxeBuilder({ page }).withTags(tags).analyze()).violations).toEqual([]);
   await page.getByLabel('Opening words', { exact: true }).fill('Comprehensive cardiometabolic characterisation necessitates individualised interpretation.');
   await expect(page.getByText('Above grade 8', { exact: false })).toBeVisible();
   expect((await new AxeBuilder({ page }).withTags(tags).analyze()).violations).toEqual([]);
-  await page.goto('/handout');
-  await expect(page.getByRole('alert').filter({ hasText: 'The handout cannot be made from this link' })).toBeVisible();
-  expect((await new AxeBuilder({ page }).withTags(tags).analyze()).violations).toEqual([]);
+  // The error state (/handout with no scenario) is checked with axe in handout-sheet.spec.ts.
 });
 
 test('the reading grade updates as the educator types, and the numbers are not editable', async ({ page }) => {
@@ -138,16 +46,63 @@ test('templates: save, survive a reload, refuse a bad file without changing what
   await expect(page.getByTestId('handout-sheet')).toContainText('Your heart numbers');
   await expect(page.getByTestId('handout-sheet')).toContainText('Harbour Lane Clinic');
 
-  const saved = await page.evaluate(() => window.localStorage.getItem('hundredfold.handout-templates'));
+  // Templates live in the browser library (IndexedDB) since issue 14's revisions; the saved list is what the picker offers.
+  const picker = page.getByLabel('Saved templates', { exact: true }).locator('option');
+  const saved = await picker.allTextContents();
+  expect(saved).toEqual(['Choose a template', 'Heart clinic']);
   await page.getByLabel('Import templates (JSON file)', { exact: true }).setInputFiles({
     name: 'bad.json',
     mimeType: 'application/json',
     buffer: Buffer.from(JSON.stringify({ format: 'hundredfold-handout-templates', version: 1, templates: [{ name: 'Broken', blocks: { title: 7 } }] })),
   });
   await expect(page.getByRole('alert').filter({ hasText: 'Template 1' })).toContainText('Template 1 ("Broken"): The title must be text');
-  expect(await page.evaluate(() => window.localStorage.getItem('hundredfold.handout-templates'))).toBe(saved);
+  await expect(page.getByRole('status').filter({ hasText: 'The file was not imported; nothing saved was changed.' })).toBeVisible();
+  expect(await picker.allTextContents()).toEqual(saved);
 
   const download = page.waitForEvent('download');
   await page.getByRole('button', { name: 'Export templates' }).click();
   expect((await download).suggestedFilename()).toBe('hundredfold-handout-templates.json');
+});
+
+test('templates in two tabs: the other tab lists a change at once; a stale save is refused; a deleted template stays deleted', async ({ page }) => {
+  // Two pages of one context share one IndexedDB, as two tabs do (issue 14 item 1, for templates).
+  await openHandout(page, demoScenario(60));
+  const other = await page.context().newPage();
+  await openHandout(other, demoScenario(60));
+  const pickerA = page.getByLabel('Saved templates', { exact: true });
+  const pickerB = other.getByLabel('Saved templates', { exact: true });
+
+  await page.getByLabel('Title', { exact: true }).fill('First version');
+  await page.getByLabel('Template name', { exact: true }).fill('Shared');
+  await page.getByRole('button', { name: 'Save as template' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Saved the template "Shared".' })).toBeVisible();
+  // Tab B's list refreshed by itself; both tabs take the template up at its first revision.
+  await expect(pickerB.locator('option', { hasText: 'Shared' })).toHaveCount(1);
+  await pickerB.selectOption({ label: 'Shared' });
+  await other.getByRole('button', { name: 'Use template' }).click();
+  await pickerA.selectOption({ label: 'Shared' });
+  await page.getByRole('button', { name: 'Use template' }).click();
+
+  await page.getByLabel('Title', { exact: true }).fill('Changed in tab A');
+  await page.getByRole('button', { name: 'Save as template' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Saved the template "Shared".' })).toBeVisible();
+
+  await other.getByLabel('Title', { exact: true }).fill('Changed in tab B');
+  await other.getByLabel('Template name', { exact: true }).fill('Shared');
+  await other.getByRole('button', { name: 'Save as template' }).click();
+  await expect(other.getByRole('alert').filter({ hasText: 'Not saved' })).toContainText('Not saved: the template “Shared” was changed in another tab or window after you took it up');
+  // Tab A's change was kept.
+  await pickerB.selectOption({ label: 'Shared' });
+  await other.getByRole('button', { name: 'Use template' }).click();
+  await expect(other.getByTestId('handout-sheet')).toContainText('Changed in tab A');
+
+  // Deleted in tab A while tab B holds it: tab B's save is refused and nothing comes back.
+  await pickerA.selectOption({ label: 'Shared' });
+  await page.getByRole('button', { name: 'Delete template' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Deleted the template "Shared".' })).toBeVisible();
+  await expect(pickerB.locator('option', { hasText: 'Shared' })).toHaveCount(0);
+  await other.getByRole('button', { name: 'Save as template' }).click();
+  await expect(other.getByRole('alert').filter({ hasText: 'Not saved' })).toContainText('Not saved: the template “Shared” was deleted in another tab or window after you took it up');
+  await expect(pickerA.locator('option', { hasText: 'Shared' })).toHaveCount(0);
+  await expect(pickerB.locator('option', { hasText: 'Shared' })).toHaveCount(0);
 });

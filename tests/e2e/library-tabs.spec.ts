@@ -10,15 +10,9 @@
  */
 import { expect, test, type Locator, type Page } from '@playwright/test';
 import { fillTypedScenario } from './support';
+import { openLibrary } from './librarySupport';
 
 const TITLE = 'Raised blood pressure and a first stroke (two tabs)';
-
-async function openLibrary(page: Page): Promise<Locator> {
-  await page.getByRole('button', { name: 'Open the library' }).click();
-  const library = page.getByTestId('library-section');
-  await expect(library.getByLabel('Table file (.csv)')).toBeEnabled();
-  return library;
-}
 
 function entries(library: Locator): Locator {
   return library.getByRole('region', { name: 'Evidence entries' }).locator('.library__items > li > article');

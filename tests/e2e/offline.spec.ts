@@ -2,7 +2,8 @@
  * Works without a network after one visit (issue 15): the service worker keeps every page and
  * chunk, so with the browser offline a scenario link made by the page's own "Copy link" opens and
  * shows the engine's figures, the handout opens and prints to one page, and a new version is
- * offered ("Reload to update"), never switched in under the clinician.
+ * offered ("Reload to update"), never switched in under the clinician. The clinic library's saved
+ * tables (IndexedDB) load offline too and give the baseline.
  *
  * The links are the ones the page itself makes (Copy link, Prepare handout), so these tests hold
  * whatever form the link codec gives them (query or fragment).
@@ -13,26 +14,14 @@ import path from 'node:path';
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
 import { computeScenario } from '@/lib/engine/compute';
 import { CAUTION_TEXT } from '@/lib/wording';
-import { expectScreenShows, fillTypedScenario, TYPED_SCENARIO } from './support';
+import { expectScreenShows, field, fillTypedScenario, serviceWorkerActive, TYPED_SCENARIO } from './support';
+import { chooseCsv, fillEvidence, GOOD_CSV, goodTable, openLibrary, savedTables, TABLE_TITLE, tableScenario } from './librarySupport';
 
 // Installing the service worker downloads every page and chunk once: allow for a busy machine.
 test.describe.configure({ timeout: 180_000 });
 
 const OUT = path.join('test-results', 'offline');
 mkdirSync(OUT, { recursive: true });
-
-/** Waits until the service worker has installed (its precache is complete) and is active. */
-async function serviceWorkerActive(page: Page): Promise<string> {
-  return page.evaluate(async () => {
-    const registration = await navigator.serviceWorker.ready;
-    const worker = registration.active;
-    if (!worker) throw new Error('no active service worker');
-    if (worker.state !== 'activated') {
-      await new Promise<void>((resolve) => worker.addEventListener('statechange', () => worker.state === 'activated' && resolve()));
-    }
-    return worker.scriptURL;
-  });
-}
 
 /** Visits `/` once, types the shared scenario, and returns the links the page itself makes. */
 async function visitOnce(page: Page, context: BrowserContext, baseURL: string | undefined): Promise<{ link: string; handout: string }> {
@@ -103,6 +92,34 @@ test('after one visit, the handout opens with the network off and prints to one 
   expect(text).toContain(`about ${c.referenceEvents} out of ${c.denominator}`);
   expect(text).toContain(`about ${c.exposedEvents} out of ${c.denominator}`);
   expect(text).toContain(CAUTION_TEXT.replace(/\s+/g, ' ').trim());
+
+  expect(network.notFromWorker).toEqual([]);
+  expect(network.failed).toEqual([]);
+});
+
+test('after one visit, the library\'s saved tables load with the network off and give the baseline', async ({ page, context }) => {
+  const table = goodTable();
+  await page.goto('/');
+  await serviceWorkerActive(page);
+  const library = await openLibrary(page);
+  await chooseCsv(library, 'test-district.csv', GOOD_CSV);
+  await library.getByRole('button', { name: 'Save table' }).click();
+  await expect(savedTables(library)).toHaveCount(1);
+
+  await page.goto('about:blank');
+  await context.setOffline(true);
+  const network = watchNetwork(page);
+  const response = await page.goto('/');
+  expect(response?.fromServiceWorker()).toBe(true);
+  const offline = await openLibrary(page);
+  const kept = offline.getByRole('article', { name: TABLE_TITLE });
+  await expect(kept).toContainText('4 strata: female and male, ages 40 and over; risks over 10 years');
+  await kept.getByRole('button', { name: 'Use this table' }).click();
+  await expect(field(page, 'tableId')).toHaveValue(table.id);
+  await field(page, 'person.age').fill('64');
+  await field(page, 'person.sex').selectOption('female');
+  await fillEvidence(page);
+  await expectScreenShows(page, tableScenario(table, { age: 64, sex: 'female' }));
 
   expect(network.notFromWorker).toEqual([]);
   expect(network.failed).toEqual([]);

@@ -78,6 +78,19 @@ export async function expectScreenShows(page: Page, scenario: Scenario): Promise
   expect(await page.locator('[data-testid="array-exposed"] svg use[data-uncertain="true"]').count()).toBe(counts.exposedUpper - counts.exposedLower);
 }
 
+/** Waits until the service worker has installed (its precache is complete) and is active. */
+export async function serviceWorkerActive(page: Page): Promise<string> {
+  return page.evaluate(async () => {
+    const registration = await navigator.serviceWorker.ready;
+    const worker = registration.active;
+    if (!worker) throw new Error('no active service worker');
+    if (worker.state !== 'activated') {
+      await new Promise<void>((resolve) => worker.addEventListener('statechange', () => worker.state === 'activated' && resolve()));
+    }
+    return worker.scriptURL;
+  });
+}
+
 /** Opens /checkups, chooses a checkup file, confirms the proposed columns and waits for the summary. */
 export async function processCheckupsFile(page: Page, file: string | { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
   await page.goto('/checkups');

@@ -8,7 +8,7 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import Link from 'next/link';
 import { loadHistoryForHandout } from '@/app/handout/historyHandOver';
-import { createTemplateStore, type TemplateStore } from '@/app/handout/templateStore';
+import { useTemplates } from '@/app/handout/useTemplates';
 import {
   DEFAULT_BLOCKS,
   HANDOUT_AUDIENCE_KEYS,
@@ -20,15 +20,12 @@ import {
   PAPER_SIZE_KEYS,
   PAPER_SIZES,
   requestedTableId,
-  TEMPLATE_MESSAGES,
   type Clinic,
   type HandoutAudience,
   type HandoutBlocks,
   type HandoutLayout,
-  type HandoutTemplate,
   type PaperSize,
 } from '@/lib/handout';
-import type { Issue } from '@/lib/result';
 import { findDemoTable } from '@/lib/tables/demo';
 import type { PopulationTable } from '@/lib/tables/schema';
 import { BlockEditor } from './BlockEditor';
@@ -38,14 +35,6 @@ import { TemplatePanel } from './TemplatePanel';
 export interface HandoutScreenProps {
   /** The scenario link's fragment, "#br=0.08&…" (or empty); an old query "?br=…" is read too. */
   readonly query: string;
-}
-
-function browserStore(): TemplateStore | undefined {
-  try {
-    return typeof window === 'undefined' ? undefined : createTemplateStore(window.localStorage);
-  } catch {
-    return undefined;
-  }
 }
 
 function download(fileName: string, text: string) {
@@ -93,8 +82,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
   const [audience, setAudience] = useState<HandoutAudience>('person');
   const [includeHistory, setIncludeHistory] = useState(true);
   const [storedHistory, setStoredHistory] = useState<string | null>(null);
-  const [templates, setTemplates] = useState<readonly HandoutTemplate[]>([]);
-  const [loadIssues, setLoadIssues] = useState<readonly Issue[]>([]);
+  const templates = useTemplates();
   const [today] = useState(() => new Date());
 
   const libraryTable = useLibraryTable(useMemo(() => requestedTableId(query), [query]));
@@ -132,20 +120,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
     // Browser storage is only there after the first render (not on the server).
     // eslint-disable-next-line react-hooks/set-state-in-effect
     setStoredHistory(loadHistoryForHandout());
-    const store = browserStore();
-    if (!store) return;
-    const loaded = store.load();
-    if (loaded.ok) setTemplates(loaded.value);
-    else setLoadIssues(loaded.issues);
   }, []);
-
-  function withStore<T>(run: (store: TemplateStore) => { message?: string; issues?: readonly Issue[]; list?: readonly HandoutTemplate[] } & T) {
-    const store = browserStore();
-    if (!store) return { issues: [{ code: 'storage-unavailable', path: [], message: TEMPLATE_MESSAGES.storageUnavailable }] };
-    const outcome = run(store);
-    if (outcome.list) setTemplates(outcome.list);
-    return outcome;
-  }
 
   if (view.kind === 'problem') {
     const { problem } = view;
@@ -273,46 +248,23 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
         </fieldset>
 
         <TemplatePanel
-          templates={templates}
-          loadIssues={loadIssues}
-          onUse={(t) => {
-            setBlocks(t.blocks);
-            setClinic(t.clinic);
-            return TEMPLATE_MESSAGES.using(t.name);
+          templates={templates.templates}
+          loadIssues={templates.loadIssues}
+          ready={templates.ready}
+          onUse={(record) => {
+            setBlocks(record.template.blocks);
+            setClinic(record.template.clinic);
+            return templates.use(record);
           }}
-          onSave={(name) =>
-            withStore((store) => {
-              const r = store.save({ name, blocks, clinic });
-              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.saved(name) } : { issues: r.issues };
-            })
-          }
-          onRename={(from, to) =>
-            withStore((store) => {
-              const r = store.rename(from, to);
-              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.renamed(from, to) } : { issues: r.issues };
-            })
-          }
-          onDelete={(name) =>
-            withStore((store) => {
-              const r = store.remove(name);
-              return r.ok ? { list: r.value, message: TEMPLATE_MESSAGES.deleted(name) } : { issues: r.issues };
-            })
-          }
-          onExport={() =>
-            withStore((store) => {
-              const r = store.exportFile();
-              if (!r.ok) return { issues: r.issues };
-              download('hundredfold-handout-templates.json', r.value);
-              return { message: TEMPLATE_MESSAGES.exported };
-            })
-          }
-          onImport={(text) =>
-            withStore((store) => {
-              const r = store.importFile(text);
-              if (!r.ok) return { issues: r.issues, message: TEMPLATE_MESSAGES.importRefused };
-              return { list: r.value.templates, message: TEMPLATE_MESSAGES.imported(r.value) };
-            })
-          }
+          onSave={(name) => templates.save(name, blocks, clinic)}
+          onRename={(id, to) => templates.rename(id, to)}
+          onDelete={(record) => templates.remove(record)}
+          onExport={async () => {
+            const { text, ...outcome } = await templates.exportFile();
+            if (text !== undefined) download('hundredfold-handout-templates.json', text);
+            return outcome;
+          }}
+          onImport={(text) => templates.importFile(text)}
         />
 
         {s.clinicianNotes.items.length > 0 ? (

@@ -20,9 +20,9 @@ const LATER = new Date('2025-03-02T11:30:00.000Z');
 
 describe('database layout', () => {
   it('version 1 creates the three stores, each keyed by id', () => {
-    // Version 2 (revisions and tombstones) and version 3 (saved checkups sessions) were added after
-    // this test was written; version 1 is unchanged.
-    expect(DB_VERSION).toBe(3);
+    // Versions 2 (revisions and tombstones), 3 (templates) and 4 (saved checkups sessions) were
+    // added after this test was written; version 1 is unchanged.
+    expect(DB_VERSION).toBe(4);
     expect(upgradeStepsBetween(0, 1)).toEqual([
       {
         version: 1,
@@ -37,10 +37,19 @@ describe('database layout', () => {
     expect(upgradeStepsBetween(1, 1)).toEqual([]);
   });
 
-  it('version 3 adds the checkups session stores and touches nothing else', () => {
-    expect(upgradeStepsBetween(2, 3)).toEqual([
+  it('version 2 adds the tombstone store, keyed by store and id', () => {
+    expect(upgradeStepsBetween(1, 2)).toEqual([{ version: 2, createStores: [{ name: STORES.tombstones, keyPath: 'key' }], deleteStores: [] }]);
+  });
+
+  it('the real steps are versions 1, 2, 3, 4 in order', () => {
+    // Version 4 (saved checkups sessions) was added after this test was written.
+    expect(UPGRADE_STEPS.map((s) => s.version)).toEqual([1, 2, 3, 4]);
+  });
+
+  it('version 4 adds the checkups session stores and touches nothing else', () => {
+    expect(upgradeStepsBetween(3, 4)).toEqual([
       {
-        version: 3,
+        version: 4,
         createStores: [
           { name: 'checkup-sessions', keyPath: 'session.id' },
           { name: 'checkup-session-rows', keyPath: 'id' },
@@ -50,20 +59,20 @@ describe('database layout', () => {
     ]);
   });
 
-  it('version 2 adds the tombstone store, keyed by store and id', () => {
-    expect(upgradeStepsBetween(1, 2)).toEqual([{ version: 2, createStores: [{ name: STORES.tombstones, keyPath: 'key' }], deleteStores: [] }]);
+  it('version 3 adds the handout template store, keyed by id', () => {
+    expect(upgradeStepsBetween(2, 3)).toEqual([{ version: 3, createStores: [{ name: STORES.templates, keyPath: 'id' }], deleteStores: [] }]);
   });
 
   it('applies only the steps between two versions, oldest first', () => {
-    // Made-up later versions 4 and 5, listed out of order. (They were 3 and 4 while the real steps
-    // went up to 2; version 3 is now real — saved checkups sessions — so the made-up ones moved up.)
+    // Made-up steps 1 to 4 (not the real ones, which grow), listed out of order.
     const steps: UpgradeStep[] = [
-      { version: 5, createStores: [], deleteStores: [] },
-      ...UPGRADE_STEPS,
       { version: 4, createStores: [], deleteStores: [] },
+      { version: 2, createStores: [], deleteStores: [] },
+      { version: 1, createStores: [], deleteStores: [] },
+      { version: 3, createStores: [], deleteStores: [] },
     ];
-    expect(upgradeStepsBetween(3, 5, steps).map((s) => s.version)).toEqual([4, 5]);
-    expect(upgradeStepsBetween(0, 4, steps).map((s) => s.version)).toEqual([1, 2, 3, 4]);
+    expect(upgradeStepsBetween(2, 4, steps).map((s) => s.version)).toEqual([3, 4]);
+    expect(upgradeStepsBetween(0, 3, steps).map((s) => s.version)).toEqual([1, 2, 3]);
   });
 });
 

@@ -111,20 +111,20 @@ describe('saved checkups sessions in the browser library', () => {
   });
 });
 
-describe('database version 3', () => {
-  it('upgrades a version 2 library and keeps its tables and entries', async () => {
+describe('database version 4', () => {
+  it('upgrades a version 3 library and keeps its tables and entries', async () => {
     const name = `upgrade-${++counter}`;
-    const v2 = await openDB(name, 2, {
+    const v3old = await openDB(name, 3, {
       upgrade(database, oldVersion) {
-        for (const step of upgradeStepsBetween(oldVersion, 2)) for (const spec of step.createStores) database.createObjectStore(spec.name, { keyPath: spec.keyPath });
+        for (const step of upgradeStepsBetween(oldVersion, 3)) for (const spec of step.createStores) database.createObjectStore(spec.name, { keyPath: spec.keyPath });
       },
     });
     const storedTable = toStoredTable(TABLE, NOW, undefined, 3);
-    await v2.put(STORES.tables, storedTable);
-    await v2.put(STORES.tableSummaries, summariseStoredTable(storedTable));
-    await v2.put(STORES.evidence, toStoredEvidence(ENTRY, NOW, undefined, 2));
-    expect([...v2.objectStoreNames].sort()).toEqual(['evidence', 'table-summaries', 'tables', 'tombstones']);
-    v2.close();
+    await v3old.put(STORES.tables, storedTable);
+    await v3old.put(STORES.tableSummaries, summariseStoredTable(storedTable));
+    await v3old.put(STORES.evidence, toStoredEvidence(ENTRY, NOW, undefined, 2));
+    expect([...v3old.objectStoreNames].sort()).toEqual(['evidence', 'table-summaries', 'tables', 'templates', 'tombstones']);
+    v3old.close();
 
     const library = value(await openLibrary({ name }));
     expect(value(await library.listTables()).items.map((t) => [t.id, t.revision])).toEqual([['north-hf', 3]]);
@@ -133,9 +133,9 @@ describe('database version 3', () => {
     library.close();
     const store = await fresh(name);
     expect(value(await store.list()).items).toEqual([]);
-    const v3 = await openDB(name);
-    expect(v3.version).toBe(3);
-    expect([...v3.objectStoreNames].sort()).toEqual(['checkup-session-rows', 'checkup-sessions', 'evidence', 'table-summaries', 'tables', 'tombstones']);
-    v3.close();
+    const v4 = await openDB(name);
+    expect(v4.version).toBe(4);
+    expect([...v4.objectStoreNames].sort()).toEqual(['checkup-session-rows', 'checkup-sessions', 'evidence', 'table-summaries', 'tables', 'templates', 'tombstones']);
+    v4.close();
   });
 });

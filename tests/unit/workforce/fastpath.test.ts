@@ -1,0 +1,140 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { computeScenario } from '@/lib/engine/compute';
+import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
+import { parseScenario } from '@/lib/scenario/parse';
+import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
+import { daysInMonth, parseIsoDate } from '@/lib/glycaemia/dates';
+import { THRESHOLD_DECIMALS, withUnit, type ValueUnit } from '@/lib/glycaemia/format';
+import { createRowReader, evaluateWorker, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
+
+// The fast paths (answers remembered per text, per age and sex, per pair of readings) against the
+// plain ones (each check afresh; the scenario validated by parseScenario, then computeScenario).
+// Invented rows (illustrative).
+const TODAY = '2026-01-01';
+const HEADERS = ['Worker', 'Date', 'HbA1c', 'Unit', 'FPG (mg/dL)', 'Age', 'Sex', 'Site'];
+const mapping = proposeMapping(HEADERS).mapping;
+
+const cellArb = fc.record({
+  worker: fc.constantFrom('W1', 'W2', ' W3 ', '', 'Jo Bloggs', 'x'.repeat(70)),
+  date: fc.constantFrom('2024-03-01', '2023-02-29', '2030-01-01', '01.02.2024', '02/03/2024', 'soon', '', ' 2022-06-30 ', '1899-12-31'),
+  hba1c: fc.constantFrom('6.1', '6,1', '42', '5.7', '', 'abc', '<5', '6.1%', '13', '-0', '1e999'),
+  unit: fc.constantFrom('%', 'mmol/mol', 'pct', '', 'mg', ' % '),
+  fpg: fc.constantFrom('101', '99.5', '', '5.5', '2000', 'x'),
+  age: fc.constantFrom('52', '52.5', '', '130', 'old'),
+  sex: fc.constantFrom('F', 'male', 'Weiblich', 'X', '', ' m '),
+  site: fc.constantFrom('North', '', 'South'),
+});
+const rowArb = cellArb.map((c) => [c.worker, c.date, c.hba1c, c.unit, c.fpg, c.age, c.sex, c.site]);
+
+describe('the row reader remembers checks per text, with the same answers', () => {
+  it('property: rows read through one reader equal each row read by a fresh reader (nothing remembered), decimal point or comma', () => {
+    fc.assert(
+      fc.property(fc.array(rowArb, { maxLength: 40 }), fc.boolean(), (rows, decimalComma) => {
+        const warm = createRowReader(mapping, { today: TODAY, decimalComma });
+        rows.forEach((cells, i) => {
+          const cold = createRowReader(mapping, { today: TODAY, decimalComma });
+          expect(warm.read(cells, i + 2)).toEqual(cold.read(cells, i + 2));
+        });
+      }),
+      { numRuns: 200 },
+    );
+  });
+
+  it('TextMemo computes once per text and starts over past its limit', () => {
+    let calls = 0;
+    const memo = new TextMemo((t) => {
+      calls += 1;
+      return t.length;
+    });
+    expect([memo.get('ab'), memo.get('ab'), memo.get('abc')]).toEqual([2, 2, 3]);
+    expect(calls).toBe(2);
+    for (let i = 0; i < MEMO_LIMIT + 10; i += 1) memo.get(`k${i}`);
+    expect(memo.get('k0')).toBe(2);
+  });
+});
+
+function context(): CheckupsContext {
+  const prepared = prepareCheckups({ evidence: DEMO_WORKFORCE_HBA1C_HEART_FAILURE, table: DEMO_HEART_FAILURE_10Y, criteria: 'ADA' });
+  if (!prepared.ok) throw new Error(prepared.issues[0]?.message);
+  return prepared.value;
+}
+
+const workerArb = fc
+  .record({
+    values: fc.array(fc.integer({ min: 45, max: 75 }), { minLength: 1, maxLength: 5 }),
+    fpg: fc.option(fc.integer({ min: 80, max: 130 }), { nil: undefined }),
+    age: fc.integer({ min: 25, max: 85 }),
+    sex: fc.option(fc.constantFrom('female' as const, 'male' as const), { nil: undefined }),
+  })
+  .map(({ values, fpg, age, sex }) =>
+    values.map((v, i): CheckupRow => ({
+      line: i + 2,
+      worker: 'WX',
+      date: `${2019 + i}-05-0${1 + (i % 3)}`,
+      hba1c: { value: v / 10, unit: '%' },
+      ...(fpg !== undefined ? { fpg: { value: fpg, unit: 'mg/dL' as const } } : {}),
+      age,
+      ...(sex !== undefined ? { sex } : {}),
+      strata: { site: 'North' },
+    })),
+  );
+
+describe('evaluateWorker with remembered scenarios and categories gives the plain path\'s figures', () => {
+  it('property: many workers through one context equal each worker through a fresh context, and the figures equal computeScenario on the parseScenario\'d scenario', () => {
+    fc.assert(
+      fc.property(fc.array(workerArb, { minLength: 1, maxLength: 30 }), (workers) => {
+        const shared = context();
+        for (const rows of workers) {
+          const warm = evaluateWorker({ worker: 'WX', rows }, shared);
+          const fresh = context();
+          expect(warm).toEqual(evaluateWorker({ worker: 'WX', rows }, fresh));
+          if (warm.status !== 'exposed' && warm.status !== 'comparison') continue;
+          const built = scenarioFor(warm.age, warm.sex, warm.strata, fresh);
+          if (!built.ok) throw new Error('a worker with figures has a scenario');
+          const parsed = parseScenario(JSON.parse(JSON.stringify(built.value)));
+          if (!parsed.ok) throw new Error(parsed.issues[0]?.message);
+          const plain = computeScenario(parsed.value);
+          if (!plain.ok) throw new Error('valid scenario');
+          const { referenceRisk, exposedRisk, riskDifference, numberNeeded, warnings } = plain.value;
+          expect(warm).toMatchObject({ referenceRisk, exposedRisk, riskDifference, numberNeeded, warnings });
+        }
+      }),
+      { numRuns: 60 },
+    );
+  });
+});
+
+describe('lib/glycaemia dates and values read without patterns, with the same answers', () => {
+  // The forms before they were rewritten for speed, as references.
+  const isoByPattern = (text: string) => {
+    const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
+    if (!m) return null;
+    const [year, month, day] = [Number(m[1]), Number(m[2]), Number(m[3])];
+    return month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) ? null : { year, month, day };
+  };
+  const withUnitBySplit = (value: number, unit: ValueUnit) => {
+    const entered = (String(value).split('.')[1] ?? '').length;
+    const text = /e/i.test(String(value)) ? String(value) : value.toFixed(Math.max(THRESHOLD_DECIMALS[unit], entered));
+    return unit === '%' ? `${text}%` : `${text} ${unit}`;
+  };
+  const digit = fc.constantFrom(...'0123456789'.split(''));
+  const dateLike = fc.oneof(
+    fc.tuple(fc.array(digit, { minLength: 4, maxLength: 4 }), fc.array(digit, { minLength: 2, maxLength: 2 }), fc.array(digit, { minLength: 2, maxLength: 2 })).map(([y, m, d]) => `${y.join('')}-${m.join('')}-${d.join('')}`),
+    fc.string({ maxLength: 12 }),
+    fc.constantFrom('2024-02-29', '2023-02-29', '2024-13-01', '2024-1-01', '2024-01-01\n', ' 2024-01-01', '２０２４-01-01', '2024/01/01'),
+  );
+
+  it('property: parseIsoDate equals the pattern it replaced', () => {
+    fc.assert(fc.property(dateLike, (text) => {
+        expect(parseIsoDate(text)).toEqual(isoByPattern(text));
+      }), { numRuns: 2000 });
+  });
+
+  it('property: withUnit equals the form it replaced', () => {
+    const unit = fc.constantFrom<ValueUnit>('%', 'mmol/mol', 'mg/dL', 'mmol/L');
+    fc.assert(fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }), unit, (value, u) => {
+        expect(withUnit(value, u)).toBe(withUnitBySplit(value, u));
+      }), { numRuns: 2000 });
+  });
+});
