@@ -86,7 +86,7 @@ function build(): void {
   if (result.status !== 0) throw new Error(`next build failed: ${result.stderr.trim().split('\n').slice(-3).join(' ')}`);
 }
 
-function sparePort(): Promise<number> {
+export function sparePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const server = createServer();
     server.once('error', reject);
@@ -98,7 +98,7 @@ function sparePort(): Promise<number> {
   });
 }
 
-async function startServer(port: number): Promise<ChildProcess> {
+export async function startServer(port: number): Promise<ChildProcess> {
   const child = spawn('npx', ['next', 'start', '-p', String(port), '-H', '127.0.0.1'], {
     cwd: ROOT,
     env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1' },
@@ -119,7 +119,7 @@ async function startServer(port: number): Promise<ChildProcess> {
   throw new Error('next start did not answer within 30 s');
 }
 
-function stopServer(child: ChildProcess): void {
+export function stopServer(child: ChildProcess): void {
   // The server runs in its own process group (detached): end the group, not just npx.
   if (child.pid !== undefined) {
     try {

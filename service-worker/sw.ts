@@ -34,4 +34,14 @@ const serwist = new Serwist({
   disableDevLogs: true,
 });
 
+// A Web Worker's script (the checkups worker) is left to the network: the bundler's worker
+// bootstrap reads its settings from the script's own address (`…#params=…`), and a worker
+// answered from the cache takes the cached file's address, without them, and stops ("Missing
+// worker bootstrap config") — on every visit after the first. Registered before Serwist's
+// listener, so Serwist never answers these requests.
+addEventListener('fetch', (event: Event) => {
+  const request = (event as Event & { readonly request?: Request }).request;
+  if (request?.destination === 'worker') event.stopImmediatePropagation();
+});
+
 serwist.addEventListeners();

@@ -41,7 +41,7 @@ import { toIssues } from '@/lib/validation/issues';
 import { deleteRecord, getRecord, importRecords, listRecords, saveRecord, updateRecord, type Db, type Listing, type RecordSpec } from './recordStore';
 
 export { RESERVED_ID_PREFIX } from '@/lib/storage/policy';
-export type { Listing } from './recordStore';
+export type { Db, Listing } from './recordStore';
 
 export interface SaveOptions {
   /** Overwrite whatever is saved with the same id (an import with "replace"). Without it (and without `revision`), a taken id is refused. */
@@ -113,7 +113,7 @@ function storageFailure(error: unknown): Issue[] {
   return [{ code: 'storage-failed', path: [], message }];
 }
 
-async function guarded<T>(work: () => Promise<Result<T>>): Promise<Result<T>> {
+export async function guarded<T>(work: () => Promise<Result<T>>): Promise<Result<T>> {
   try {
     return await work();
   } catch (error) {
@@ -140,6 +140,15 @@ function checkEvidenceTitle(title: string): Result<string> {
  * browser offers no IndexedDB (some private modes) or refuses it.
  */
 export async function openLibrary(options: OpenOptions = {}): Promise<Result<Library>> {
+  const opened = await openLibraryDb(options);
+  return opened.ok ? ok(createLibrary(opened.value)) : opened;
+}
+
+/**
+ * Opens (creating or upgrading) the library's database itself, for the other record kinds kept
+ * in it (saved checkups sessions, ./sessions.ts). Works in a Web Worker too.
+ */
+export async function openLibraryDb(options: OpenOptions = {}): Promise<Result<Db>> {
   if (typeof indexedDB === 'undefined') {
     return fail([{ code: 'storage-unavailable', path: [], message: 'This browser does not let the library keep anything (some private or locked-down modes do this); tables and entries cannot be saved here' }]);
   }
@@ -160,7 +169,7 @@ export async function openLibrary(options: OpenOptions = {}): Promise<Result<Lib
   } catch (error) {
     return fail([{ code: 'storage-unavailable', path: [], message: `The library could not be opened${error instanceof Error && error.name === 'VersionError' ? ' (a newer version of the app is open in another tab; reload this page)' : ''}; nothing can be saved in this browser for now` }]);
   }
-  return ok(createLibrary(db));
+  return ok(db);
 }
 
 function saveMode(options: SaveOptions): SaveMode {

@@ -46,7 +46,8 @@ export interface RecordSpec<S extends { readonly revision: number; readonly save
   readonly read: (raw: unknown) => Result<S>;
   readonly valueOf: (stored: S) => V;
   readonly build: (value: V, now: Date, previous: S | undefined, revision: number) => S;
-  readonly writeCompanions?: (tx: Tx, stored: S) => Promise<void>;
+  /** Writes the companion stores; `value` is what was given to save (it may hold more than `stored`, e.g. a session's rows). */
+  readonly writeCompanions?: (tx: Tx, stored: S, value: V) => Promise<void>;
 }
 
 export interface Listing<T> {
@@ -114,7 +115,7 @@ export async function saveRecord<S extends { readonly revision: number; readonly
   const stored = spec.build(value, now, previous, decided.value.revision);
   await tx.objectStore(spec.store).put(stored);
   if (tombstone) await tx.objectStore(STORES.tombstones).delete(tombstoneKey(spec.store, id));
-  await spec.writeCompanions?.(tx, stored);
+  await spec.writeCompanions?.(tx, stored, value);
   await tx.done;
   announceLibraryChange(spec.kind, id, 'saved');
   return ok(stored);
@@ -134,9 +135,10 @@ export async function updateRecord<S extends { readonly revision: number; readon
     await tx.done;
     return raw === undefined ? fail([notFoundIssue(id, spec.words)]) : spec.read(raw);
   }
-  const stored = spec.build(change(spec.valueOf(previous)), now, previous, nextRevision(current, tombstone));
+  const changed = change(spec.valueOf(previous));
+  const stored = spec.build(changed, now, previous, nextRevision(current, tombstone));
   await tx.objectStore(spec.store).put(stored);
-  await spec.writeCompanions?.(tx, stored);
+  await spec.writeCompanions?.(tx, stored, changed);
   await tx.done;
   announceLibraryChange(spec.kind, id, 'saved');
   return ok(stored);
@@ -191,7 +193,7 @@ export async function importRecords<S extends { readonly revision: number; reado
     const stored = spec.build(value, options.now, f.stored, nextRevision(f.current, f.tombstone));
     writes.push(tx.objectStore(spec.store).put(stored));
     if (f.tombstone) writes.push(tx.objectStore(STORES.tombstones).delete(tombstoneKey(spec.store, id)));
-    if (spec.writeCompanions) writes.push(spec.writeCompanions(tx, stored));
+    if (spec.writeCompanions) writes.push(spec.writeCompanions(tx, stored, value));
   });
   await Promise.all(writes);
   await tx.done;

@@ -110,12 +110,21 @@ export interface WorklistSort {
   readonly direction: 'ascending' | 'descending';
 }
 
-function compareKeys(a: string | number | null, b: string | number | null): number {
+/** English collation with numbers in text compared as numbers ("W2" before "W10"); the same order as `localeCompare(b, 'en', { numeric: true })`, made once. */
+const COLLATOR = new Intl.Collator('en', { numeric: true });
+
+/** The worklist's order of two sort keys: numbers numerically, text by {@link COLLATOR}, empty (null) last. */
+export function compareKeys(a: string | number | null, b: string | number | null): number {
   if (a === b) return 0;
   if (a === null) return 1;
   if (b === null) return -1;
   if (typeof a === 'number' && typeof b === 'number') return a - b;
-  return String(a).localeCompare(String(b), 'en', { numeric: true });
+  return COLLATOR.compare(String(a), String(b));
+}
+
+/** Whether a row passes the filter (status, latest category, one group). */
+export function keepRow(row: WorklistRow, filter: WorklistFilter): boolean {
+  return (!filter.status || row.status === filter.status) && (!filter.category || row.category === filter.category) && (!filter.stratum || row.strata[filter.stratum.name] === filter.stratum.value);
 }
 
 /**
@@ -123,12 +132,7 @@ function compareKeys(a: string | number | null, b: string | number | null): numb
  * in either direction).
  */
 export function arrangeWorklist(rows: readonly WorklistRow[], filter: WorklistFilter, sort: WorklistSort | null): WorklistRow[] {
-  const kept = rows.filter(
-    (r) =>
-      (!filter.status || r.status === filter.status) &&
-      (!filter.category || r.category === filter.category) &&
-      (!filter.stratum || r.strata[filter.stratum.name] === filter.stratum.value),
-  );
+  const kept = rows.filter((r) => keepRow(r, filter));
   if (!sort) return kept;
   const sign = sort.direction === 'ascending' ? 1 : -1;
   return kept.sort((a, b) => {

@@ -29,6 +29,7 @@ export interface RecordWords {
 export const TABLE_WORDS: RecordWords = { one: 'table', many: 'tables' };
 export const EVIDENCE_WORDS: RecordWords = { one: 'entry', many: 'entries' };
 export const TEMPLATE_WORDS: RecordWords = { one: 'template', many: 'templates' };
+export const SESSION_WORDS: RecordWords = { one: 'session', many: 'sessions' };
 
 export function isReservedId(id: string): boolean {
   return id.startsWith(RESERVED_ID_PREFIX);
@@ -169,7 +170,7 @@ export function planImport(ids: readonly string[], taken: ReadonlySet<string>, d
 /** The BroadcastChannel name (and localStorage key for browsers without one) for library changes. */
 export const LIBRARY_CHANGE_CHANNEL = 'hundredfold.library-change';
 
-export type RecordKind = 'tables' | 'evidence' | 'templates';
+export type RecordKind = 'tables' | 'evidence' | 'templates' | 'sessions';
 
 /** One change, as announced to other tabs: which kind of record, and which id. No content is sent. */
 export interface LibraryChange {
@@ -184,7 +185,7 @@ export interface LibraryChange {
 export function readLibraryChange(data: unknown): LibraryChange | undefined {
   if (typeof data !== 'object' || data === null) return undefined;
   const d = data as Record<string, unknown>;
-  if ((d.kind !== 'tables' && d.kind !== 'evidence' && d.kind !== 'templates') || typeof d.id !== 'string' || (d.change !== 'saved' && d.change !== 'deleted') || typeof d.nonce !== 'string') {
+  if ((d.kind !== 'tables' && d.kind !== 'evidence' && d.kind !== 'templates' && d.kind !== 'sessions') || typeof d.id !== 'string' || (d.change !== 'saved' && d.change !== 'deleted') || typeof d.nonce !== 'string') {
     return undefined;
   }
   return { kind: d.kind, id: d.id, change: d.change, nonce: d.nonce };

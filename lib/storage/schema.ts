@@ -21,6 +21,10 @@ export const STORES = {
   tombstones: 'tombstones',
   /** Handout templates ({@link StoredTemplate}), by template id. */
   templates: 'templates',
+  /** Saved checkups sessions without their rows (lib/checkups/session.ts), by session id: what the list shows. */
+  checkupSessions: 'checkup-sessions',
+  /** Each saved session's checkup rows and row problems, by session id, written and deleted with its session. */
+  checkupSessionRows: 'checkup-session-rows',
 } as const;
 export type StoreName = (typeof STORES)[keyof typeof STORES];
 
@@ -57,6 +61,16 @@ export const UPGRADE_STEPS: readonly UpgradeStep[] = [
     // Handout templates join the library (they were kept in localStorage before).
     version: 3,
     createStores: [{ name: STORES.templates, keyPath: 'id' }],
+    deleteStores: [],
+  },
+  {
+    // Saved checkups sessions (issue "Workforce checkups, part 2"): two new stores; every
+    // existing store and record is left as it is.
+    version: 4,
+    createStores: [
+      { name: STORES.checkupSessions, keyPath: 'session.id' },
+      { name: STORES.checkupSessionRows, keyPath: 'id' },
+    ],
     deleteStores: [],
   },
 ];

@@ -90,3 +90,13 @@ export async function serviceWorkerActive(page: Page): Promise<string> {
     return worker.scriptURL;
   });
 }
+
+/** Opens /checkups, chooses a checkup file, confirms the proposed columns and waits for the summary. */
+export async function processCheckupsFile(page: Page, file: string | { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
+  await page.goto('/checkups');
+  await expect(page.getByLabel(/Checkup file/)).toBeEnabled(); // the page has hydrated
+  await page.getByLabel(/Checkup file/).setInputFiles(file);
+  await expect(page.getByTestId('columns')).toBeVisible();
+  await page.getByRole('button', { name: 'Confirm the columns and process' }).click();
+  await expect(page.getByTestId('summary')).toBeVisible({ timeout: 30_000 });
+}

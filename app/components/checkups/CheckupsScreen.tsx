@@ -5,8 +5,6 @@
  * file stays in this page's memory and is never sent anywhere.
  */
 import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
-import { DEMO_EVIDENCE } from '@/lib/evidence/demo';
-import { DEMO_TABLES } from '@/lib/tables/demo';
 import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
 import { checkupsProgressView } from '@/lib/checkups/progress';
 import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
@@ -14,7 +12,11 @@ import { decodeMappingMemory, encodeMappingMemory, mappingMemoryKey } from '@/li
 import { checkupsFileNames, summaryCsv, workersCsv } from '@/lib/checkups/exportCsv';
 import { downloadText } from '@/app/components/library/download';
 import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type WorkerResult, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
-import type { FileKindName, FromWorker, ToWorker } from './protocol';
+import { newSessionId } from '@/lib/checkups/session';
+import type { WorklistRanks } from '@/lib/checkups/worklistOrder';
+import type { FileKindName, FilterChoices, FromWorker, ToWorker } from './protocol';
+import { SetupPanel, useCheckupsSetup } from './SetupPanel';
+import { SessionPanel, type SaveState } from './SessionPanel';
 import { Worklist } from './Worklist';
 import { SummaryPanel } from './SummaryPanel';
 import { ProblemsPanel } from './ProblemsPanel';
@@ -22,8 +24,6 @@ import './checkups.css';
 
 /** Nothing to listen to: the value only differs between the server's HTML and the browser. */
 const subscribeNothing = () => () => {};
-
-const CRITERIA = ['ADA', 'WHO', 'NICE'] as const;
 
 function localToday(): string {
   const d = new Date();
@@ -35,10 +35,8 @@ type Phase = 'setup' | 'columns' | 'running' | 'done';
 export function CheckupsScreen() {
   // False in the server's HTML, true once the page runs: the file input waits for its handler.
   const ready = useSyncExternalStore(subscribeNothing, () => true, () => false);
-  const [evidenceId, setEvidenceId] = useState('demo-workforce-hba1c-heart-failure');
-  const [tableId, setTableId] = useState('demo-heart-failure-10y');
-  const [criteria, setCriteria] = useState<string>('ADA');
-  const [horizon, setHorizon] = useState('');
+  const setup = useCheckupsSetup();
+  const { criteria, horizon, evidence, table } = setup;
   const [files, setFiles] = useState<File[]>([]);
   const [kind, setKind] = useState<FileKindName | null>(null);
   const [fileMessage, setFileMessage] = useState<string | null>(null);
@@ -56,9 +54,13 @@ export function CheckupsScreen() {
   const pendingRows = useRef<WorklistRow[]>([]);
   const pendingResults = useRef<WorkerResult[]>([]);
   const [results, setResults] = useState<WorkerResult[]>([]);
-
-  const evidence = DEMO_EVIDENCE.find((e) => e.id === evidenceId) ?? DEMO_EVIDENCE[0];
-  const table = DEMO_TABLES.find((t) => t.id === tableId) ?? DEMO_TABLES[0];
+  const [choices, setChoices] = useState<FilterChoices | null>(null);
+  const [ranks, setRanks] = useState<WorklistRanks | null>(null);
+  const [saveState, setSaveState] = useState<SaveState>({ status: 'idle' });
+  /** True when the results on screen come from a saved session (nothing new to save). */
+  const [fromSession, setFromSession] = useState(false);
+  const [sessionMessages, setSessionMessages] = useState<string[]>([]);
+  const restore = setup.restore;
 
   const onMessage = useCallback((event: MessageEvent<FromWorker>) => {
     const m = event.data;
@@ -81,9 +83,22 @@ export function CheckupsScreen() {
     } else if (m.type === 'progress') {
       setProgress({ p: m.progress, elapsed: performance.now() - startRef.current });
     } else if (m.type === 'workers') {
-      const start = pendingRows.current.length;
-      pendingRows.current = pendingRows.current.concat(m.workers.map((w, i) => worklistRow(w, start + i)));
-      pendingResults.current = pendingResults.current.concat(m.workers);
+      for (const w of m.workers) {
+        pendingRows.current.push(worklistRow(w, pendingRows.current.length));
+        pendingResults.current.push(w);
+      }
+    } else if (m.type === 'choices') {
+      setChoices(m.choices);
+    } else if (m.type === 'ranks') {
+      setRanks(m.ranks);
+    } else if (m.type === 'session-saved') {
+      setSaveState(m.messages.length === 0 ? { status: 'saved' } : { status: 'failed', messages: m.messages });
+    } else if (m.type === 'session-opened') {
+      restore(m.setup);
+      setFromSession(true);
+    } else if (m.type === 'session-refused') {
+      setSessionMessages([...m.messages]);
+      setPhase('setup');
     } else if (m.type === 'problems') {
       setProblems((p) => p.concat(m.problems));
     } else if (m.type === 'refused') {
@@ -104,7 +119,7 @@ export function CheckupsScreen() {
         setPhase('columns');
       }
     }
-  }, []);
+  }, [restore]);
 
   const worker = useCallback((): Worker => {
     if (!workerRef.current) {
@@ -119,13 +134,26 @@ export function CheckupsScreen() {
 
   const send = (message: ToWorker) => worker().postMessage(message);
 
+  /** Clears the results on screen (a new file, a session opened). */
+  const clearResults = () => {
+    setSummary(null);
+    setRows([]);
+    setResults([]);
+    setProblems([]);
+    setRunMessages([]);
+    setChoices(null);
+    setRanks(null);
+    setSaveState({ status: 'idle' });
+    setFromSession(false);
+    setSessionMessages([]);
+    pendingRows.current = [];
+    pendingResults.current = [];
+  };
+
   const openFiles = async (list: File[]) => {
     setFileMessage(null);
     setHeader(null);
-    setSummary(null);
-    setRows([]);
-    setProblems([]);
-    setRunMessages([]);
+    clearResults();
     const first = list[0];
     if (!first) return;
     if (first.size > MAX_CHECKUP_FILE_BYTES) {
@@ -152,13 +180,8 @@ export function CheckupsScreen() {
   const corrected = header ? header.proposal.mapping.columns.some((c, i) => c.field !== (fields[i] ?? null)) : false;
 
   const process = () => {
-    if (!kind) return;
-    pendingRows.current = [];
-    pendingResults.current = [];
-    setProblems([]);
-    setRunMessages([]);
-    setSummary(null);
-    setRows([]);
+    if (!kind || !evidence || !table) return;
+    clearResults();
     setProgress(null);
     startRef.current = performance.now();
     setPhase('running');
@@ -170,7 +193,24 @@ export function CheckupsScreen() {
         // storage unavailable: the correction holds for this file only
       }
     }
-    send({ type: 'run', files, kind, today: localToday(), mapping: corrected ? mapping : null, evidence: evidence!, table: table!, criteria, horizon: h });
+    send({ type: 'run', files, kind, today: localToday(), mapping: corrected ? mapping : null, confirmedMapping: mapping, evidence, table, criteria, horizon: h });
+  };
+
+  const saveSession = (name: string) => {
+    setSaveState({ status: 'saving' });
+    send({ type: 'save-session', id: newSessionId(), name });
+  };
+
+  const openSession = (id: string) => {
+    setHeader(null);
+    setFiles([]);
+    setKind(null);
+    setFileMessage(null);
+    clearResults();
+    setProgress(null);
+    startRef.current = performance.now();
+    setPhase('running');
+    send({ type: 'open-session', id });
   };
 
   const cancel = () => send({ type: 'cancel' });
@@ -187,48 +227,7 @@ export function CheckupsScreen() {
       <h1>Workforce checkups</h1>
       <p>Open a year&rsquo;s checkup export to see which workers fit a study&rsquo;s exposure. The file stays in this browser tab; nothing is sent anywhere.</p>
 
-      <section aria-labelledby="setup-heading" className="checkups__section">
-        <h2 id="setup-heading">Set-up</h2>
-        <div className="checkups__grid">
-          <label>
-            Evidence
-            <select value={evidenceId} onChange={(e) => setEvidenceId(e.target.value)}>
-              {DEMO_EVIDENCE.map((e) => (
-                <option key={e.id} value={e.id}>
-                  {e.title}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label>
-            Population table
-            <select value={tableId} onChange={(e) => setTableId(e.target.value)}>
-              {DEMO_TABLES.map((t) => (
-                <option key={t.id} value={t.id}>
-                  {t.title}
-                </option>
-              ))}
-            </select>
-          </label>
-          <label>
-            Criteria set
-            <select value={criteria} onChange={(e) => setCriteria(e.target.value)}>
-              {CRITERIA.map((c) => (
-                <option key={c}>{c}</option>
-              ))}
-            </select>
-          </label>
-          <label>
-            Horizon in years (blank: the table&rsquo;s own period)
-            <input inputMode="decimal" value={horizon} onChange={(e) => setHorizon(e.target.value)} />
-          </label>
-        </div>
-        {evidence && !evidence.exposureDefinition ? (
-          <p role="alert" className="checkups__message">
-            This evidence entry has no exposure definition, so workers cannot be matched to the study. Add one (test, range, criteria set, run length) in the library, or choose another entry.
-          </p>
-        ) : null}
-      </section>
+      <SetupPanel setup={setup} />
 
       <section aria-labelledby="file-heading" className="checkups__section">
         <h2 id="file-heading">Open the file</h2>
@@ -310,7 +309,7 @@ export function CheckupsScreen() {
             <p>A FHIR bulk export: the Patient and Observation resources are read as they are.</p>
           )}
           <div className="checkups__actions">
-            <button type="button" onClick={process} disabled={phase === 'running'}>
+            <button type="button" onClick={process} disabled={phase === 'running' || !setup.view.ready || !evidence || !table}>
               Confirm the columns and process
             </button>
             {phase === 'running' ? (
@@ -352,9 +351,11 @@ export function CheckupsScreen() {
             </div>
           </section>
           <ProblemsPanel problems={problems} skippedRows={skipped} />
-          <Worklist rows={rows} />
+          <Worklist rows={rows} choices={choices} ranks={ranks} />
         </>
       ) : null}
+
+      <SessionPanel canSave={phase === 'done' && summary !== null && !fromSession} saveState={saveState} onSave={saveSession} onOpen={openSession} busy={phase === 'running'} openMessages={sessionMessages} />
     </div>
   );
 }

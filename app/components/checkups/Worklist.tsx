@@ -2,21 +2,27 @@
 /** The worklist: one row per worker, virtualized (@tanstack/react-virtual), sortable and filterable; rows from lib/checkups. */
 import { useMemo, useRef, useState } from 'react';
 import { useVirtualizer } from '@tanstack/react-virtual';
-import { arrangeWorklist, STATUS_LABELS, WORKLIST_COLUMNS, worklistFilterChoices, type WorklistColumn, type WorklistRow, type WorklistSort } from '@/lib/checkups/worklist';
+import { STATUS_LABELS, WORKLIST_COLUMNS, worklistFilterChoices, type WorklistColumn, type WorklistRow, type WorklistSort } from '@/lib/checkups/worklist';
+import { arrangeWithRanks, type WorklistRanks } from '@/lib/checkups/worklistOrder';
+import type { FilterChoices } from './protocol';
 import { WORKER_STATUSES, type WorkerStatus } from '@/lib/workforce';
 
 const ROW_HEIGHT = 44;
 
-export function Worklist({ rows }: { rows: readonly WorklistRow[] }) {
+/**
+ * `choices` and `ranks` come from the checkups worker (worked out off the page); without them the
+ * list works them out itself.
+ */
+export function Worklist({ rows, choices: given, ranks }: { rows: readonly WorklistRow[]; choices?: FilterChoices | null; ranks?: WorklistRanks | null }) {
   const [status, setStatus] = useState<WorkerStatus | ''>('');
   const [category, setCategory] = useState('');
   const [stratum, setStratum] = useState('');
   const [sort, setSort] = useState<WorklistSort | null>(null);
-  const choices = useMemo(() => worklistFilterChoices(rows), [rows]);
+  const choices = useMemo(() => given ?? worklistFilterChoices(rows), [given, rows]);
   const shown = useMemo(() => {
     const [name, value] = stratum === '' ? [] : stratum.split('\u0000');
-    return arrangeWorklist(rows, { status: status || null, category: category || null, stratum: name !== undefined && value !== undefined ? { name, value } : null }, sort);
-  }, [rows, status, category, stratum, sort]);
+    return arrangeWithRanks(rows, { status: status || null, category: category || null, stratum: name !== undefined && value !== undefined ? { name, value } : null }, sort, ranks ?? null);
+  }, [rows, status, category, stratum, sort, ranks]);
   const scrollRef = useRef<HTMLDivElement>(null);
   // eslint-disable-next-line react-hooks/incompatible-library -- the virtualizer is read fresh on every render; nothing memoizes it
   const virtualizer = useVirtualizer({ count: shown.length, getScrollElement: () => scrollRef.current, estimateSize: () => ROW_HEIGHT, overscan: 10 });
@@ -68,7 +74,7 @@ export function Worklist({ rows }: { rows: readonly WorklistRow[] }) {
         {shown.length} of {rows.length} workers shown
       </p>
       <div ref={scrollRef} className="checkups__worklist" tabIndex={0} role="region" aria-labelledby="worklist-heading">
-        <table className="checkups__table" aria-rowcount={shown.length + 1} data-testid="worklist">
+        <table className="checkups__table" aria-rowcount={shown.length + 1} data-testid="worklist" data-order={sort ? `${sort.column}-${sort.direction}` : 'file'} data-ranked={ranks ? 'true' : 'false'}>
           <thead>
             <tr aria-rowindex={1}>
               {WORKLIST_COLUMNS.map((c) => (

@@ -1,16 +1,49 @@
 /// <reference lib="webworker" />
 /**
  * The checkups run off the main thread: lib/workforce's runCheckups / runCheckupTable, exactly as
- * lib/workforce/index.ts documents, with progress, batches of results and cancellation.
+ * lib/workforce/index.ts documents, with progress, batches of results and cancellation. The
+ * worklist's filter choices and sort ranks are worked out here too, so the page only renders.
+ *
+ * Saved sessions (lib/checkups/session.ts, app/storage/sessions.ts) are saved and opened here:
+ * the rows are read again from the file still in memory and written to the browser's storage
+ * from this thread, and a reopened session's rows are processed here with the engine's public
+ * steps (WorkerGrouper → evaluateWorker → SummaryAccumulator), as runCheckups does.
  */
-import { createCheckupTextReader, isRefusal, prepareCheckups, readCheckupTable, readXlsxSheet, runCheckups, runCheckupTable, type WorkerResult } from '@/lib/workforce';
+import {
+  createCheckupTextReader,
+  EVALUATE_SLICE,
+  evaluateWorker,
+  FhirBulkReader,
+  isRefusal,
+  prepareCheckups,
+  readCheckupTable,
+  readXlsxSheet,
+  runCheckups,
+  runCheckupTable,
+  SummaryAccumulator,
+  WorkerGrouper,
+  type CheckupRow,
+  type CheckupsOutcome,
+  type CheckupsProgress,
+  type RowCounts,
+  type RowProblem,
+  type WorkerResult,
+} from '@/lib/workforce';
+import { worklistFilterChoices, worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
+import { worklistRanks } from '@/lib/checkups/worklistOrder';
+import { SESSION_VERSION, type CheckupSession } from '@/lib/checkups/session';
+import { openSessionStore } from '@/app/storage/sessions';
 import type { FromWorker, ToWorker } from './protocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
-const post = (message: FromWorker) => scope.postMessage(message);
+const post = (message: FromWorker, transfer: Transferable[] = []) => scope.postMessage(message, transfer);
 const SLICE = 1 << 20;
 const PREVIEW_BYTES = 64 * 1024;
+/** Results per message: small enough that the page takes each in a few milliseconds. */
+const BATCH = 250;
 let controller: AbortController | null = null;
+/** The last run that finished, for "Save the session". */
+let lastRun: Extract<ToWorker, { type: 'run' }> | null = null;
 
 async function* slices(files: readonly File[], markFiles: boolean): AsyncGenerator<string | { file: string }> {
   for (const file of files) {
@@ -40,31 +73,55 @@ async function preview(data: Extract<ToWorker, { type: 'preview' }>): Promise<vo
   return post({ type: 'header', header: null, refusal: isRefusal(last) ? last : isRefusal(step) ? step : null });
 }
 
-async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
-  controller = new AbortController();
-  const context = prepareCheckups({ evidence: data.evidence, table: data.table, criteria: data.criteria, ...(data.horizon !== null ? { horizonYears: data.horizon } : {}) });
-  if (!context.ok) return post({ type: 'refused', messages: context.issues.map((i) => i.message) });
+/** Posts results in batches as they come, and keeps their worklist rows for the choices and ranks. */
+function resultSink() {
   let batch: WorkerResult[] = [];
+  const rows: WorklistRow[] = [];
   const flush = () => {
     if (batch.length > 0) post({ type: 'workers', workers: batch });
     batch = [];
   };
+  return {
+    rows,
+    flush,
+    add: (w: WorkerResult) => {
+      rows.push(worklistRow(w, rows.length));
+      batch.push(w);
+      if (batch.length >= BATCH) flush();
+    },
+  };
+}
+
+const yieldToMessages = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
+
+/** `done`, with the filter choices just before it and the sort ranks just after. */
+function finish(outcome: CheckupsOutcome, rows: readonly WorklistRow[]): void {
+  if (outcome.ok) post({ type: 'choices', choices: worklistFilterChoices(rows) });
+  post({ type: 'done', outcome });
+  if (!outcome.ok) return;
+  const ranks = worklistRanks(rows);
+  post({ type: 'ranks', ranks }, Object.values(ranks).map((r) => r.buffer));
+}
+
+async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
+  controller = new AbortController();
+  lastRun = null;
+  const context = prepareCheckups({ evidence: data.evidence, table: data.table, criteria: data.criteria, ...(data.horizon !== null ? { horizonYears: data.horizon } : {}) });
+  if (!context.ok) return post({ type: 'refused', messages: context.issues.map((i) => i.message) });
+  const sink = resultSink();
   const options = {
     context: context.value,
     reader: { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) },
     signal: controller.signal,
     pause: () => {
-      flush();
-      return new Promise<void>((resolve) => setTimeout(resolve, 0));
+      sink.flush();
+      return yieldToMessages();
     },
-    onWorker: (w: WorkerResult) => {
-      batch.push(w);
-      if (batch.length >= 500) flush();
-    },
-    onProblems: (problems: readonly import('@/lib/workforce').RowProblem[]) => post({ type: 'problems', problems }),
-    onProgress: (progress: import('@/lib/workforce').CheckupsProgress) => post({ type: 'progress', progress }),
+    onWorker: sink.add,
+    onProblems: (problems: readonly RowProblem[]) => post({ type: 'problems', problems }),
+    onProgress: (progress: CheckupsProgress) => post({ type: 'progress', progress }),
   };
-  let outcome;
+  let outcome: CheckupsOutcome;
   if (data.kind === 'xlsx') {
     const file = data.files[0];
     const sheet = file ? await readXlsxSheet(file) : null;
@@ -73,8 +130,126 @@ async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
   } else {
     outcome = await runCheckups(slices(data.files, data.kind === 'fhir-ndjson'), { ...options, format: data.kind });
   }
-  flush();
-  post({ type: 'done', outcome });
+  sink.flush();
+  if (outcome.ok) lastRun = data;
+  finish(outcome, sink.rows);
+}
+
+/** The rows of the last run's file, read again with the same settings (never the file's other columns). */
+async function readRows(data: Extract<ToWorker, { type: 'run' }>): Promise<{ rows: CheckupRow[]; counts: RowCounts; problems: RowProblem[] } | string> {
+  const rows: CheckupRow[] = [];
+  const problems: RowProblem[] = [];
+  const take = (step: { rows: readonly CheckupRow[]; problems: readonly RowProblem[] }) => {
+    for (const r of step.rows) rows.push(r);
+    for (const p of step.problems) problems.push(p);
+  };
+  const options = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
+  if (data.kind === 'xlsx') {
+    const file = data.files[0];
+    if (!file) return 'No file was given';
+    const sheet = await readXlsxSheet(file);
+    if (isRefusal(sheet)) return sheet.message;
+    const read = readCheckupTable(sheet.rows, options);
+    if (isRefusal(read)) return read.message;
+    take(read.step);
+    return { rows, counts: read.counts, problems };
+  }
+  if (data.kind === 'fhir-ndjson') {
+    const reader = new FhirBulkReader(options);
+    for await (const chunk of slices(data.files, true)) {
+      if (typeof chunk === 'string') take(reader.push(chunk));
+      else reader.startFile(chunk.file);
+    }
+    take(reader.end());
+    return { rows, counts: reader.counts(), problems };
+  }
+  const reader = createCheckupTextReader(options);
+  for await (const chunk of slices(data.files, false)) {
+    if (typeof chunk !== 'string') continue;
+    const step = reader.push(chunk);
+    if (isRefusal(step)) return step.message;
+    take(step);
+  }
+  const last = reader.end();
+  if (isRefusal(last)) return last.message;
+  take(last);
+  return { rows, counts: reader.counts(), problems };
+}
+
+async function saveSession(data: Extract<ToWorker, { type: 'save-session' }>): Promise<void> {
+  const runData = lastRun;
+  if (!runData) return post({ type: 'session-saved', id: data.id, messages: ['There is no finished run to save: process the file first.'] });
+  const read = await readRows(runData);
+  if (typeof read === 'string') return post({ type: 'session-saved', id: data.id, messages: [read] });
+  const session: CheckupSession = {
+    sessionVersion: SESSION_VERSION,
+    id: data.id,
+    name: data.name,
+    setup: { evidence: runData.evidence, table: runData.table, criteria: runData.criteria, horizonYears: runData.horizon },
+    today: runData.today,
+    kind: runData.kind,
+    mapping: runData.confirmedMapping ? { columns: [...runData.confirmedMapping.columns] } : null,
+    rows: read.rows,
+    rowCounts: read.counts,
+    problems: read.problems,
+  };
+  const store = await openSessionStore();
+  if (!store.ok) return post({ type: 'session-saved', id: data.id, messages: store.issues.map((i) => i.message) });
+  try {
+    const saved = await store.value.save(session);
+    post({ type: 'session-saved', id: data.id, messages: saved.ok ? [] : saved.issues.map((i) => i.message) });
+  } finally {
+    store.value.close();
+  }
+}
+
+async function openSession(data: Extract<ToWorker, { type: 'open-session' }>): Promise<void> {
+  controller = new AbortController();
+  const signal = controller.signal;
+  lastRun = null;
+  const store = await openSessionStore();
+  if (!store.ok) return post({ type: 'session-refused', messages: store.issues.map((i) => i.message) });
+  const opened = await store.value.open(data.id);
+  store.value.close();
+  if (!opened.ok) return post({ type: 'session-refused', messages: opened.issues.map((i) => i.message) });
+  const session = opened.value;
+  const { setup } = session;
+  post({ type: 'session-opened', setup, kind: session.kind, mapping: session.mapping });
+  const context = prepareCheckups({ evidence: setup.evidence, table: setup.table, criteria: setup.criteria, ...(setup.horizonYears !== null ? { horizonYears: setup.horizonYears } : {}) });
+  if (!context.ok) return post({ type: 'session-refused', messages: context.issues.map((i) => i.message) });
+  if (session.problems.length > 0) post({ type: 'problems', problems: session.problems });
+  // The engine's public steps, in the order runCheckups takes them (lib/workforce/run.ts).
+  const grouper = new WorkerGrouper();
+  grouper.add(session.rows);
+  const summary = new SummaryAccumulator();
+  const sink = resultSink();
+  const counts = session.rowCounts;
+  const total = grouper.size;
+  let done = 0;
+  let extraSkipped = 0;
+  let problemCount = session.problems.length;
+  const progress = (): CheckupsProgress => ({ phase: 'evaluating', charsDone: 0, rowsRead: counts.read, workersDone: done, workersTotal: total });
+  for (const group of grouper.workers()) {
+    const result = evaluateWorker(group, context.value);
+    if (result.problems.length > 0) {
+      extraSkipped += result.skippedRows;
+      problemCount += result.problems.length;
+      post({ type: 'problems', problems: result.problems });
+    }
+    summary.add(result);
+    sink.add(result);
+    done++;
+    if (done % EVALUATE_SLICE === 0) {
+      post({ type: 'progress', progress: progress() });
+      sink.flush();
+      await yieldToMessages();
+      if (signal.aborted) return finish({ ok: false, cancelled: true }, []);
+    }
+  }
+  sink.flush();
+  post({ type: 'progress', progress: progress() });
+  const finished = summary.finish({ read: counts.read, used: counts.used - extraSkipped, skipped: counts.skipped + extraSkipped });
+  finish({ ok: true, summary: finished, header: null, problemCount }, sink.rows);
 }
 
 scope.onmessage = (event: MessageEvent<ToWorker>) => {
@@ -84,5 +259,7 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
     return;
   }
   if (data.type === 'preview') void preview(data);
+  else if (data.type === 'save-session') void saveSession(data);
+  else if (data.type === 'open-session') void openSession(data);
   else void run(data);
 };

@@ -1,6 +1,9 @@
 /** Messages between the checkups screen and its Web Worker (plain data only). */
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { PopulationTable } from '@/lib/tables/schema';
+import type { CriteriaSet } from '@/lib/glycaemia/exposure';
+import type { SessionSetup } from '@/lib/checkups/session';
+import type { WorklistColumn } from '@/lib/checkups/worklist';
 import type { CheckupsOutcome, CheckupsProgress, ColumnMapping, HeaderInfo, ReadRefusal, RowProblem, WorkerResult } from '@/lib/workforce';
 
 export type FileKindName = 'delimited' | 'xlsx' | 'fhir-ndjson';
@@ -12,13 +15,26 @@ export type ToWorker =
       readonly files: readonly File[];
       readonly kind: FileKindName;
       readonly today: string;
+      /** The mapping to read with: null lets the reader take its own proposal. */
       readonly mapping: ColumnMapping | null;
+      /** The mapping as the physician confirmed it (kept with a saved session); null for FHIR. */
+      readonly confirmedMapping: ColumnMapping | null;
       readonly evidence: EvidenceEntry;
       readonly table: PopulationTable;
-      readonly criteria: string;
+      readonly criteria: CriteriaSet;
       readonly horizon: number | null;
     }
-  | { readonly type: 'cancel' };
+  | { readonly type: 'cancel' }
+  /** Save the last finished run as a session: its rows are read again here, so they never cross to the page. */
+  | { readonly type: 'save-session'; readonly id: string; readonly name: string }
+  /** Open a saved session: its rows are read from storage and processed here, as a run is. */
+  | { readonly type: 'open-session'; readonly id: string };
+
+/** The worklist's filter choices, from the rows (lib/checkups/worklist `worklistFilterChoices`). */
+export interface FilterChoices {
+  readonly categories: readonly string[];
+  readonly strata: readonly { readonly name: string; readonly value: string }[];
+}
 
 export type FromWorker =
   | { readonly type: 'header'; readonly header: HeaderInfo | null; readonly refusal: ReadRefusal | null }
@@ -26,4 +42,11 @@ export type FromWorker =
   | { readonly type: 'progress'; readonly progress: CheckupsProgress }
   | { readonly type: 'workers'; readonly workers: readonly WorkerResult[] }
   | { readonly type: 'problems'; readonly problems: readonly RowProblem[] }
-  | { readonly type: 'done'; readonly outcome: CheckupsOutcome };
+  /** Sent just before `done`: the filters' choices, worked out here rather than on the page. */
+  | { readonly type: 'choices'; readonly choices: FilterChoices }
+  | { readonly type: 'done'; readonly outcome: CheckupsOutcome }
+  /** After `done`: each column's sort ranks (lib/checkups/worklistOrder.ts), for sorting on the page in one pass. */
+  | { readonly type: 'ranks'; readonly ranks: Readonly<Partial<Record<WorklistColumn, Int32Array>>> }
+  | { readonly type: 'session-saved'; readonly id: string; readonly messages: readonly string[] }
+  | { readonly type: 'session-opened'; readonly setup: SessionSetup; readonly kind: FileKindName; readonly mapping: ColumnMapping | null }
+  | { readonly type: 'session-refused'; readonly messages: readonly string[] };

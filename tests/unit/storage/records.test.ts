@@ -20,8 +20,9 @@ const LATER = new Date('2025-03-02T11:30:00.000Z');
 
 describe('database layout', () => {
   it('version 1 creates the three stores, each keyed by id', () => {
-    // Versions 2 (revisions and tombstones) and 3 (templates) were added after this test was written; version 1 is unchanged.
-    expect(DB_VERSION).toBe(3);
+    // Versions 2 (revisions and tombstones), 3 (templates) and 4 (saved checkups sessions) were
+    // added after this test was written; version 1 is unchanged.
+    expect(DB_VERSION).toBe(4);
     expect(upgradeStepsBetween(0, 1)).toEqual([
       {
         version: 1,
@@ -40,8 +41,22 @@ describe('database layout', () => {
     expect(upgradeStepsBetween(1, 2)).toEqual([{ version: 2, createStores: [{ name: STORES.tombstones, keyPath: 'key' }], deleteStores: [] }]);
   });
 
-  it('the real steps are versions 1, 2, 3 in order', () => {
-    expect(UPGRADE_STEPS.map((s) => s.version)).toEqual([1, 2, 3]);
+  it('the real steps are versions 1, 2, 3, 4 in order', () => {
+    // Version 4 (saved checkups sessions) was added after this test was written.
+    expect(UPGRADE_STEPS.map((s) => s.version)).toEqual([1, 2, 3, 4]);
+  });
+
+  it('version 4 adds the checkups session stores and touches nothing else', () => {
+    expect(upgradeStepsBetween(3, 4)).toEqual([
+      {
+        version: 4,
+        createStores: [
+          { name: 'checkup-sessions', keyPath: 'session.id' },
+          { name: 'checkup-session-rows', keyPath: 'id' },
+        ],
+        deleteStores: [],
+      },
+    ]);
   });
 
   it('version 3 adds the handout template store, keyed by id', () => {
