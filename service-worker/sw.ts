@@ -34,14 +34,27 @@ const serwist = new Serwist({
   disableDevLogs: true,
 });
 
-// A Web Worker's script (the checkups worker) is left to the network: the bundler's worker
-// bootstrap reads its settings from the script's own address (`…#params=…`), and a worker
-// answered from the cache takes the cached file's address, without them, and stops ("Missing
-// worker bootstrap config") — on every visit after the first. Registered before Serwist's
-// listener, so Serwist never answers these requests.
+// A Web Worker's script (the checkups worker): the bundler's worker bootstrap reads its settings
+// from the script's own address (`…#params=…`). A worker answered with the cached response takes
+// the cached file's address, without them, and stops ("Missing worker bootstrap config"). So the
+// cached file is answered as a new response, which has no address of its own: the worker keeps
+// the address it was asked for (Fetch Standard, "main fetch": a response with an empty URL list
+// takes the request's URL), and the checkups screen processes files offline too. A worker script
+// not in the cache is fetched. Registered before Serwist's listener, so it answers these first.
+type WorkerFetch = Event & { readonly request: Request; respondWith(response: Promise<Response>): void };
 addEventListener('fetch', (event: Event) => {
-  const request = (event as Event & { readonly request?: Request }).request;
-  if (request?.destination === 'worker') event.stopImmediatePropagation();
+  const fetchEvent = event as WorkerFetch;
+  if (fetchEvent.request?.destination !== 'worker') return;
+  event.stopImmediatePropagation();
+  fetchEvent.respondWith(
+    (async () => {
+      const url = new URL(fetchEvent.request.url);
+      url.hash = '';
+      const cached = await serwist.matchPrecache(url.href);
+      if (!cached) return fetch(fetchEvent.request);
+      return new Response(cached.body, { status: cached.status, statusText: cached.statusText, headers: cached.headers });
+    })(),
+  );
 });
 
 serwist.addEventListeners();

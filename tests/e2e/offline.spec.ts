@@ -14,7 +14,7 @@ import path from 'node:path';
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
 import { computeScenario } from '@/lib/engine/compute';
 import { CAUTION_TEXT } from '@/lib/wording';
-import { expectScreenShows, field, fillTypedScenario, serviceWorkerActive, TYPED_SCENARIO } from './support';
+import { expectScreenShows, field, fillTypedScenario, processCheckupsFile, serviceWorkerActive, TYPED_SCENARIO } from './support';
 import { chooseCsv, fillEvidence, GOOD_CSV, goodTable, openLibrary, savedTables, TABLE_TITLE, tableScenario } from './librarySupport';
 
 // Installing the service worker downloads every page and chunk once: allow for a busy machine.
@@ -121,6 +121,19 @@ test('after one visit, the library\'s saved tables load with the network off and
   await fillEvidence(page);
   await expectScreenShows(page, tableScenario(table, { age: 64, sex: 'female' }));
 
+  expect(network.notFromWorker).toEqual([]);
+  expect(network.failed).toEqual([]);
+});
+
+test('after one visit, the checkups screen reads and processes a file with the network off (its Web Worker included)', async ({ page, context }) => {
+  await page.goto('/checkups');
+  await serviceWorkerActive(page);
+  await page.goto('about:blank');
+  await context.setOffline(true);
+  const network = watchNetwork(page);
+  // The invented 40-worker demo file (illustrative).
+  await processCheckupsFile(page, 'demo/checkups/checkups.csv');
+  await expect(page.getByTestId('summary')).toContainText('40');
   expect(network.notFromWorker).toEqual([]);
   expect(network.failed).toEqual([]);
 });
