@@ -22,6 +22,7 @@ import type { LinkReading } from '@/lib/link';
 import { LinkNotice } from '@/app/link/LinkNotice';
 import { pushEmptyScenarioLink, useScenarioLink, writeScenarioLink } from '@/app/link/useScenarioLink';
 import { useGlucoseHistory } from '@/app/components/glucose/useGlucoseHistory';
+import { useWorkerHandOver } from '@/app/checkups/workerHandOver';
 import { DEMO_HEART_FAILURE_10Y, DEMO_TABLES } from '@/lib/tables/demo';
 import { SEE_RESULT, SEE_STILL_NEEDED } from '@/lib/wording/screen';
 import type { PopulationTable } from '@/lib/tables/schema';
@@ -123,6 +124,7 @@ export function ConsultationScreen({
   const keepWording = useCallback((field: WordingField, text: string) => setKept((k) => ({ ...k, [field]: text })), []);
   // The glucose rows live here, so closing their section keeps them; the match is derived from them.
   const glucose = useGlucoseHistory({ exposure: allEntries.find((e) => e.id === values.evidenceId)?.exposureDefinition });
+  useWorkerHandOver({ reset, tables, glucose }); // a worker opened from the checkups worklist
 
   // When the list of tables changes (one taken from the library, or read back for a link), the
   // form is checked again against the new list: the resolver gets it as its context.

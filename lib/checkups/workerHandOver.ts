@@ -18,8 +18,7 @@ import { fail, ok, type Result } from '../result';
 import { parseScenario } from '../scenario/parse';
 import type { Scenario } from '../scenario/schema';
 
-/** sessionStorage key of the record. */
-export const WORKER_HANDOVER_KEY = 'hundredfold.checkups-worker';
+export { WORKER_HANDOVER_KEY } from './workerHandOverKey';
 export const WORKER_HANDOVER_FORMAT = 'hundredfold-checkups-worker';
 export const WORKER_HANDOVER_VERSION = 1;
 

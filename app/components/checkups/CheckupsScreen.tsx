@@ -15,7 +15,7 @@ import { checkupsFileNames, summaryCsv, workersCsv } from '@/lib/checkups/export
 import { downloadText } from '@/app/components/library/download';
 import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type WorkerResult, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
 import type { FileKindName, FromWorker, ToWorker } from './protocol';
-import { Worklist } from './Worklist';
+import { BatchWorklist, type CheckupsRunInput } from './BatchWorklist';
 import { SummaryPanel } from './SummaryPanel';
 import { ProblemsPanel } from './ProblemsPanel';
 import './checkups.css';
@@ -56,6 +56,7 @@ export function CheckupsScreen() {
   const pendingRows = useRef<WorklistRow[]>([]);
   const pendingResults = useRef<WorkerResult[]>([]);
   const [results, setResults] = useState<WorkerResult[]>([]);
+  const [runInput, setRunInput] = useState<CheckupsRunInput | null>(null); // what the results were made from (open one worker, batch handouts)
 
   const evidence = DEMO_EVIDENCE.find((e) => e.id === evidenceId) ?? DEMO_EVIDENCE[0];
   const table = DEMO_TABLES.find((t) => t.id === tableId) ?? DEMO_TABLES[0];
@@ -170,7 +171,9 @@ export function CheckupsScreen() {
         // storage unavailable: the correction holds for this file only
       }
     }
-    send({ type: 'run', files, kind, today: localToday(), mapping: corrected ? mapping : null, evidence: evidence!, table: table!, criteria, horizon: h });
+    const input: CheckupsRunInput = { files, kind, today: localToday(), mapping: corrected ? mapping : null, evidence: evidence!, table: table!, criteria, horizon: h };
+    setRunInput(input);
+    send({ type: 'run', ...input });
   };
 
   const cancel = () => send({ type: 'cancel' });
@@ -352,7 +355,7 @@ export function CheckupsScreen() {
             </div>
           </section>
           <ProblemsPanel problems={problems} skippedRows={skipped} />
-          <Worklist rows={rows} />
+          <BatchWorklist rows={rows} results={results} run={runInput} />
         </>
       ) : null}
     </div>

@@ -4,6 +4,7 @@
  * lib/workforce/index.ts documents, with progress, batches of results and cancellation.
  */
 import { createCheckupTextReader, isRefusal, prepareCheckups, readCheckupTable, readXlsxSheet, runCheckups, runCheckupTable, type WorkerResult } from '@/lib/workforce';
+import { collectWorkerRows, collectWorkerRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
 import type { FromWorker, ToWorker } from './protocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -77,6 +78,21 @@ async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
   post({ type: 'done', outcome });
 }
 
+/** One worker's checkups, read again from the same files with the same mapping. */
+async function history(data: Extract<ToWorker, { type: 'history' }>): Promise<void> {
+  const reader = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
+  let rows;
+  if (data.kind === 'xlsx') {
+    const file = data.files[0];
+    const sheet = file ? await readXlsxSheet(file) : null;
+    rows = !sheet ? null : isRefusal(sheet) ? sheet : collectWorkerRowsFromTable(sheet.rows, reader, data.worker);
+  } else {
+    rows = await collectWorkerRows(slices(data.files, data.kind === 'fhir-ndjson'), { reader, format: data.kind }, data.worker);
+  }
+  if (!rows || isRefusal(rows)) return post({ type: 'history', worker: data.worker, checkups: null, message: rows ? rows.message : 'No file was given' });
+  post({ type: 'history', worker: data.worker, checkups: workerCheckups(rows), message: null });
+}
+
 scope.onmessage = (event: MessageEvent<ToWorker>) => {
   const data = event.data;
   if (data.type === 'cancel') {
@@ -84,5 +100,6 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
     return;
   }
   if (data.type === 'preview') void preview(data);
+  else if (data.type === 'history') void history(data);
   else void run(data);
 };

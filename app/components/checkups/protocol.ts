@@ -1,5 +1,6 @@
 /** Messages between the checkups screen and its Web Worker (plain data only). */
 import type { EvidenceEntry } from '@/lib/evidence/schema';
+import type { Checkup } from '@/lib/glycaemia/schema';
 import type { PopulationTable } from '@/lib/tables/schema';
 import type { CheckupsOutcome, CheckupsProgress, ColumnMapping, HeaderInfo, ReadRefusal, RowProblem, WorkerResult } from '@/lib/workforce';
 
@@ -18,7 +19,16 @@ export type ToWorker =
       readonly criteria: string;
       readonly horizon: number | null;
     }
-  | { readonly type: 'cancel' };
+  | { readonly type: 'cancel' }
+  /** One worker's rows read again from the same files ("open one worker", lib/checkups/workerHistory.ts). */
+  | {
+      readonly type: 'history';
+      readonly files: readonly File[];
+      readonly kind: FileKindName;
+      readonly today: string;
+      readonly mapping: ColumnMapping | null;
+      readonly worker: string;
+    };
 
 export type FromWorker =
   | { readonly type: 'header'; readonly header: HeaderInfo | null; readonly refusal: ReadRefusal | null }
@@ -26,4 +36,6 @@ export type FromWorker =
   | { readonly type: 'progress'; readonly progress: CheckupsProgress }
   | { readonly type: 'workers'; readonly workers: readonly WorkerResult[] }
   | { readonly type: 'problems'; readonly problems: readonly RowProblem[] }
-  | { readonly type: 'done'; readonly outcome: CheckupsOutcome };
+  | { readonly type: 'done'; readonly outcome: CheckupsOutcome }
+  /** The answer to 'history': the worker's checkups, or why the file could not be read again. */
+  | { readonly type: 'history'; readonly worker: string; readonly checkups: readonly Checkup[] | null; readonly message: string | null };
