@@ -156,7 +156,7 @@ export function Worklist({ rows, selected, onSelect, onOpen, canOpen }: Worklist
                         ) : null}
                       </Fragment>
                     ) : (
-                      <td key={c.key} className={c.key === 'notes' ? 'checkups__notes' : undefined}>
+                      <td key={c.key} className={c.key === 'notes' ? 'checkups__notes' : undefined} data-column={c.key}>
                         {row.cells[c.key]}
                       </td>
                     ),
