@@ -59,8 +59,29 @@ export interface BatchOptions {
 export type BatchSkipReason = 'not-applicable' | HandoutProblemKind;
 
 export type BatchHandout =
-  | { readonly kind: 'sheet'; readonly index: number; readonly worker: string; readonly workerId: string | undefined; readonly sheet: HandoutSheet }
+  | {
+      readonly kind: 'sheet';
+      readonly index: number;
+      readonly worker: string;
+      readonly workerId: string | undefined;
+      readonly sheet: HandoutSheet;
+      /** {@link batchSheetKey}: equal keys, equal sheets, so the screen draws a sheet once and copies it. */
+      readonly sheetKey: string;
+    }
   | { readonly kind: 'skipped'; readonly index: number; readonly worker: string; readonly reason: BatchSkipReason; readonly message: string };
+
+/**
+ * A sheet's whole content as a string: two sheets are equal exactly when their keys are. The
+ * pictures' cells are written one letter each (kind, and "+" for a "could be" icon) instead of
+ * as objects, so a key of a 1,000-icon sheet stays a few kilobytes. Workers of the same age band
+ * and sex usually share one sheet (the exact age is not printed), so a batch of 500 workers
+ * holds a handful of distinct sheets.
+ */
+export function batchSheetKey(sheet: HandoutSheet): string {
+  return JSON.stringify(sheet, (key, value: unknown) =>
+    key === 'cells' && Array.isArray(value) ? (value as { kind: string; uncertain: boolean }[]).map((c) => `${c.kind[0]}${c.uncertain ? '+' : ''}`).join('') : value,
+  );
+}
 
 const DEFAULT_TEMPLATE: HandoutSheetTemplate = { blocks: DEFAULT_BLOCKS, clinic: {} };
 
@@ -88,7 +109,7 @@ export function batchHandout(result: WorkerResult, index: number, context: Check
   if (view.kind === 'problem') {
     return { kind: 'skipped', index, worker: result.worker, reason: view.problem.kind, message: view.problem.heading };
   }
-  return { kind: 'sheet', index, worker: result.worker, workerId: options.showIds ? result.worker : undefined, sheet: view.sheet };
+  return { kind: 'sheet', index, worker: result.worker, workerId: options.showIds ? result.worker : undefined, sheet: view.sheet, sheetKey: batchSheetKey(view.sheet) };
 }
 
 export interface BatchCounts {

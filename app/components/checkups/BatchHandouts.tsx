@@ -5,13 +5,15 @@
  * pseudonymous id, then prepare and print them in one print job, one page per worker.
  *
  * Each sheet is lib/checkups `batchHandout` (the sheet /handout makes for the worker's
- * scenario), drawn by /handout's own HandoutSheet component. The sheets exist only once the
- * physician asks for them: they are built a few at a time (the page stays responsive, a progress
- * bar says how far), kept out of sight on screen, and printed alone. Changing the choice clears
- * them.
+ * scenario), drawn by /handout's own HandoutSheet component (once per distinct sheet, then copied
+ * page by page: see createSheetDrawer). The pages exist only once the physician asks for them:
+ * they are made a few at a time (the page stays responsive, a progress bar says how far), kept
+ * out of sight on screen, and printed alone, one page each. Changing the choice clears them.
  */
-import { memo, useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
-import { createPortal } from 'react-dom';
+import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+
+import { createPortal, flushSync } from 'react-dom';
+import { createRoot, type Root } from 'react-dom/client';
 import { HandoutSheet } from '@/app/components/handout/HandoutSheet';
 import {
   BATCH_CHOICE_LABELS,
@@ -27,27 +29,57 @@ import { PAPER_SIZE_KEYS, PAPER_SIZES, pageRule, type PaperSize } from '@/lib/ha
 import type { CheckupsContext, WorkerResult } from '@/lib/workforce';
 import '@/app/components/handout/handout.css';
 
-/** Sheets built between two pauses: each takes a few milliseconds, so a slice stays well under 50 ms. */
+/** Workers handled between two pauses: each sheet takes a few milliseconds to build and to copy. */
 const PER_SLICE = 4;
 
 interface Job {
+  readonly id: number;
   readonly handouts: readonly BatchHandout[];
   readonly total: number;
   readonly paper: PaperSize;
   readonly done: boolean;
 }
 
+type SheetHandout = Extract<BatchHandout, { kind: 'sheet' }>;
+
 const subscribeNothing = () => () => {};
 
-/** One printed page; memoized, so adding sheets a few at a time does not redraw the earlier ones. */
-const BatchPage = memo(function BatchPage({ handout }: { handout: Extract<BatchHandout, { kind: 'sheet' }> }) {
-  return (
-    <div className="batch-print__page">
-      <HandoutSheet sheet={handout.sheet} idPrefix={`batch-${handout.index}-`} />
-      {handout.workerId !== undefined ? <p className="batch-print__id">Worker {handout.workerId}</p> : null}
-    </div>
-  );
-});
+/**
+ * The drawn sheets of one batch, one per sheet key, drawn by React into elements that are never
+ * in the document; each printed page is a copy (`cloneNode`) of one of them. Drawing a sheet of
+ * 2,000 icons with React for each of 500 workers took minutes here; most workers of a workforce
+ * share a handful of sheets, and a copy is cheap.
+ */
+function createSheetDrawer() {
+  const drawn = new Map<string, { root: Root; element: Element }>();
+  return {
+    page(handout: SheetHandout): HTMLElement {
+      let found = drawn.get(handout.sheetKey);
+      if (!found) {
+        const holder = document.createElement('div');
+        const root = createRoot(holder);
+        flushSync(() => root.render(<HandoutSheet sheet={handout.sheet} idPrefix={`batch-${drawn.size}-`} />));
+        const element = holder.firstElementChild ?? holder;
+        found = { root, element };
+        drawn.set(handout.sheetKey, found);
+      }
+      const page = document.createElement('div');
+      page.className = 'batch-print__page';
+      page.append(found.element.cloneNode(true));
+      if (handout.workerId !== undefined) {
+        const id = document.createElement('p');
+        id.className = 'batch-print__id';
+        id.textContent = `Worker ${handout.workerId}`;
+        page.append(id);
+      }
+      return page;
+    },
+    dispose() {
+      for (const { root } of drawn.values()) root.unmount();
+      drawn.clear();
+    },
+  };
+}
 
 export interface BatchHandoutsProps {
   readonly results: readonly WorkerResult[];
@@ -63,7 +95,9 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
   const [paper, setPaper] = useState<PaperSize>('a4');
   const [showIds, setShowIds] = useState(false);
   const [job, setJob] = useState<Job | null>(null);
-  const timer = useRef<number | null>(null);
+  const [pagesReady, setPagesReady] = useState(0);
+  const pagesRef = useRef<HTMLDivElement | null>(null);
+  const jobCounter = useRef(0);
 
   const chosen = useMemo(() => batchSelection(results, choice, ticked), [results, choice, ticked]);
   const choiceCounts = useMemo(
@@ -71,45 +105,68 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
     [results, choice, chosen, ticked],
   );
 
-  const stop = useCallback(() => {
-    if (timer.current !== null) window.clearTimeout(timer.current);
-    timer.current = null;
-  }, []);
-  useEffect(() => stop, [stop]);
-
   // Prepared sheets belong to the choice they were made for: any change clears them.
   const [madeFor, setMadeFor] = useState({ chosen, paper, showIds });
   if (madeFor.chosen !== chosen || madeFor.paper !== paper || madeFor.showIds !== showIds) {
     setMadeFor({ chosen, paper, showIds });
     if (job) setJob(null);
   }
-  useEffect(() => {
-    if (job === null) stop();
-  }, [job, stop]);
 
-  const prepare = () => {
-    if (!context) return;
-    stop();
+  // A job runs a few workers at a time: build each one's sheet (lib), then put its page in place.
+  const jobId = job?.id;
+  useEffect(() => {
+    if (jobId === undefined || !context) return;
+    const container = pagesRef.current;
+    if (!container) return;
+    const drawer = createSheetDrawer();
     const options = { paper, date: new Date(), showIds };
     const list: BatchHandout[] = [];
     let at = 0;
+    let pages = 0;
+    let timer: number | null = null;
+    // The pages wait outside the document and go in together at the end: copies of one sheet
+    // share its ids, and each copy put into the document on its own makes the browser re-check
+    // every icon already there that refers to those ids (minutes for 500 pages here).
+    const added = document.createDocumentFragment();
     const step = () => {
       const end = Math.min(at + PER_SLICE, chosen.length);
       for (; at < end; at++) {
         const index = chosen[at];
         const result = index === undefined ? undefined : results[index];
-        if (index !== undefined && result) list.push(batchHandout(result, index, context, options));
+        if (index === undefined || !result) continue;
+        const handout = batchHandout(result, index, context, options);
+        list.push(handout);
+        if (handout.kind === 'sheet') {
+          added.append(drawer.page(handout));
+          pages++;
+        }
       }
       const done = at >= chosen.length;
-      setJob({ handouts: list.slice(), total: chosen.length, paper, done });
-      timer.current = done ? null : window.setTimeout(step, 0);
+      if (done) container.append(added);
+      setPagesReady(pages);
+      setJob((j) => (j && j.id === jobId ? { ...j, handouts: list.slice(), done } : j));
+      timer = done ? null : window.setTimeout(step, 0);
     };
-    step();
+    timer = window.setTimeout(step, 0);
+    return () => {
+      if (timer !== null) window.clearTimeout(timer);
+      drawer.dispose();
+      container.replaceChildren();
+    };
+    // The job's settings are fixed when it starts (a change clears the job): only a new job restarts this.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [jobId]);
+
+  const prepare = () => {
+    if (!context || chosen.length === 0) return;
+    jobCounter.current += 1;
+    setPagesReady(0);
+    setJob({ id: jobCounter.current, handouts: [], total: chosen.length, paper, done: false });
   };
 
   const counts = job?.done ? batchCounts(job.handouts) : null;
   const skipped = job?.done ? job.handouts.filter((h): h is Extract<BatchHandout, { kind: 'skipped' }> => h.kind === 'skipped') : [];
-  const sheets = job ? job.handouts.filter((h): h is Extract<BatchHandout, { kind: 'sheet' }> => h.kind === 'sheet') : [];
+  const sheets = job ? job.handouts.filter((h): h is SheetHandout => h.kind === 'sheet') : [];
 
   return (
     <section aria-labelledby="batch-heading" className="checkups__section" data-testid="batch">
@@ -175,23 +232,23 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
       </p>
       {skipped.length > 0 ? (
         <div data-testid="batch-skipped">
-          <h3>Workers without a handout</h3>
-          <ul className="checkups__problems">
-            {skipped.map((h) => (
-              <li key={h.index}>
-                {h.worker}: {h.message}
-              </li>
-            ))}
-          </ul>
+          <h3 id="batch-skipped-heading">Workers without a handout ({skipped.length})</h3>
+          <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby="batch-skipped-heading">
+            <ul>
+              {skipped.map((h) => (
+                <li key={h.index}>
+                  {h.worker}: {h.message}
+                </li>
+              ))}
+            </ul>
+          </div>
         </div>
       ) : null}
-      {inBrowser && job && sheets.length > 0
+      {inBrowser && job
         ? createPortal(
-            <div className="batch-print" data-testid="batch-print" data-paper={job.paper} data-ready={job.done ? 'true' : 'false'}>
+            <div className="batch-print" data-testid="batch-print" data-paper={job.paper} data-ready={job.done ? 'true' : 'false'} data-pages={pagesReady}>
               <style>{pageRule(job.paper)}</style>
-              {sheets.map((h) => (
-                <BatchPage key={h.index} handout={h} />
-              ))}
+              <div ref={pagesRef} />
             </div>,
             document.body,
           )

@@ -5,7 +5,7 @@
  *
  * Open one worker: the consultation screen opens in a new tab, so this tab keeps its worklist
  * (the file lives only in this tab's memory). The worker's checkups are read again from the same
- * file with the same columns in a Web Worker (lib/checkups/workerHistory.ts); their scenario is
+ * file with the same columns in the screen's Web Worker (lib/checkups/workerHistory.ts); their scenario is
  * the one their figures came from (lib/workforce `workerScenario`); both go to the new tab inside
  * the browser (app/checkups/workerHandOver.ts), never in its address.
  */
@@ -27,12 +27,18 @@ export interface BatchWorklistProps {
   readonly results: readonly WorkerResult[];
   /** What the results were made from; null when unknown (then no worker can be opened). */
   readonly run: CheckupsRunInput | null;
+  /**
+   * The screen's own Web Worker (./checkups.worker.ts), which answers 'history' requests too. One
+   * worker for the page: Chromium loses the bootstrap fragment of a second worker from the same
+   * script ("Missing worker bootstrap config"), so no second one is started.
+   */
+  readonly worker: () => Worker;
 }
 
-export function BatchWorklist({ rows, results, run }: BatchWorklistProps) {
+export function BatchWorklist({ rows, results, run, worker }: BatchWorklistProps) {
   const [ticked, setTicked] = useState<ReadonlySet<number>>(() => new Set());
   const [openMessage, setOpenMessage] = useState('');
-  const reader = useRef<Worker | null>(null);
+  const pending = useRef<((event: MessageEvent<FromWorker>) => void) | null>(null);
 
   // New results: the ticks belonged to the old ones.
   const [tickedFor, setTickedFor] = useState(results);
@@ -73,14 +79,13 @@ export function BatchWorklist({ rows, results, run }: BatchWorklistProps) {
       return;
     }
     setOpenMessage(`Reading ${row.worker}\u2019s checkups from the file…`);
-    reader.current?.terminate();
-    const worker = new Worker(new URL('./checkups.worker.ts', import.meta.url));
-    reader.current = worker;
-    worker.onmessage = (event: MessageEvent<FromWorker>) => {
+    const w = worker();
+    if (pending.current) w.removeEventListener('message', pending.current);
+    const listener = (event: MessageEvent<FromWorker>) => {
       const m = event.data;
-      if (m.type !== 'history') return;
-      worker.terminate();
-      if (reader.current === worker) reader.current = null;
+      if (m.type !== 'history' || m.worker !== row.worker) return;
+      w.removeEventListener('message', listener);
+      if (pending.current === listener) pending.current = null;
       if (m.checkups === null) {
         tab.close();
         setOpenMessage(`${row.worker} could not be opened: the file could not be read again (${m.message ?? 'unknown reason'}).`);
@@ -93,8 +98,10 @@ export function BatchWorklist({ rows, results, run }: BatchWorklistProps) {
           : `${row.worker} could not be opened: the new tab was closed or refused the hand-over. Choose Open again.`,
       );
     };
+    pending.current = listener;
+    w.addEventListener('message', listener);
     const message: ToWorker = { type: 'history', files: run.files, kind: run.kind, today: run.today, mapping: run.mapping, worker: row.worker };
-    worker.postMessage(message);
+    w.postMessage(message);
   };
 
   return (

@@ -355,7 +355,7 @@ export function CheckupsScreen() {
             </div>
           </section>
           <ProblemsPanel problems={problems} skippedRows={skipped} />
-          <BatchWorklist rows={rows} results={results} run={runInput} />
+          <BatchWorklist rows={rows} results={results} run={runInput} worker={worker} />
         </>
       ) : null}
     </div>

@@ -93,6 +93,21 @@ describe('batchHandout: the sheet is the one /handout makes for the worker’s s
     expect(got.sheet).toEqual(expected.value);
     expect(got.index).toBe(3);
   });
+
+  it('the sheet key: two workers with equal sheets share it (same stratum, another age: the age is not printed); another stratum has another', () => {
+    const options = { paper: 'a4', date: DATE, showIds: true } as const;
+    const a = batchHandout(W001, 0, CONTEXT, options);
+    const b = batchHandout({ ...W001, worker: 'W099', age: 55 }, 1, CONTEXT, options);
+    const c = batchHandout(M064, 2, CONTEXT, options);
+    if (a.kind !== 'sheet' || b.kind !== 'sheet' || c.kind !== 'sheet') throw new Error('all three must be sheets');
+    expect(a.sheetKey).toBe(b.sheetKey);
+    expect(b.sheet).toEqual(a.sheet);
+    expect(c.sheetKey).not.toBe(a.sheetKey);
+    expect(a.sheetKey).not.toContain('W001');
+    // one letter per icon: 1,000 people in each of the two pictures (hand-worked: 0.015 → 1,000, as above)
+    expect(a.sheetKey).toContain('"cells":"' + 'e'.repeat(15));
+    expect(a.sheetKey.length).toBeLessThan(20_000);
+  });
 });
 
 describe('batchHandout: workers who get no sheet', () => {
