@@ -22,6 +22,7 @@ import type { LinkReading } from '@/lib/link';
 import { LinkNotice } from '@/app/link/LinkNotice';
 import { pushEmptyScenarioLink, useScenarioLink, writeScenarioLink } from '@/app/link/useScenarioLink';
 import { useGlucoseHistory } from '@/app/components/glucose/useGlucoseHistory';
+import { useWorkerHandOver } from '@/app/checkups/workerHandOver';
 import { DEMO_HEART_FAILURE_10Y, DEMO_TABLES } from '@/lib/tables/demo';
 import { SEE_RESULT, SEE_STILL_NEEDED } from '@/lib/wording/screen';
 import type { PopulationTable } from '@/lib/tables/schema';
@@ -133,6 +134,7 @@ export function ConsultationScreen({
   // them, against the exposure definition in the form (typed, from an entry, or from a link).
   const exposure = useMemo(() => formExposure(values), [values]);
   const glucose = useGlucoseHistory({ exposure });
+  useWorkerHandOver({ reset, tables, glucose }); // a worker opened from the checkups worklist
 
   // When the list of tables changes (one taken from the library, or read back for a link), the
   // form is checked again against the new list: the resolver gets it as its context.

@@ -4,7 +4,7 @@
  * the address or the title, and no request leaves the origin meanwhile.
  */
 import { expect, test } from '@playwright/test';
-import { processCheckupsFile } from './support';
+import { openAndProcessCheckups } from './support';
 
 const DEMO = 'demo/checkups/checkups.csv';
 const NAME = 'Spring visits, North site';
@@ -13,7 +13,7 @@ test('a saved session reopens after a reload with the same summary; deleted, it 
   test.setTimeout(90_000);
   const requests: string[] = [];
   context.on('request', (r) => requests.push(r.url()));
-  await processCheckupsFile(page, DEMO);
+  await openAndProcessCheckups(page, DEMO);
   const paragraph = await page.getByTestId('employer-paragraph').textContent();
   const counts = await page.getByTestId('status-counts').textContent();
   const chart = await page.getByTestId('chart-text').textContent();

@@ -8,13 +8,10 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import type { WorkforceSummary } from '../../lib/workforce/types';
 import { checkupsSummaryView } from '../../lib/checkups/summaryView';
-
-const DEMO = 'demo/checkups/checkups.csv';
-const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+import { DEMO_CHECKUPS as DEMO, expectAxeClean, openAndProcessCheckups } from './support';
 
 /** The command's summary for a file (same default today as the browser: the machine's date). */
 function commandSummary(file: string): WorkforceSummary {
@@ -26,20 +23,6 @@ function commandSummary(file: string): WorkforceSummary {
     // exit 1: some rows were skipped; the summary is still written
   }
   return JSON.parse(readFileSync(out, 'utf8')) as WorkforceSummary;
-}
-
-async function openAndProcess(page: Page, file: { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
-  await page.goto('/checkups');
-  await expect(page.getByLabel(/Checkup file/)).toBeEnabled(); // the page has hydrated
-  await page.getByLabel(/Checkup file/).setInputFiles(file);
-  await expect(page.getByTestId('columns')).toBeVisible();
-  await page.getByRole('button', { name: 'Confirm the columns and process' }).click();
-  await expect(page.getByTestId('summary')).toBeVisible({ timeout: 30_000 });
-}
-
-async function expectAxeClean(page: Page): Promise<void> {
-  const report = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();
-  expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
 }
 
 test('the demo file: columns shown, processed in the worker, the summary equals the command’s, nothing leaves the origin', async ({ page, context, baseURL }) => {
@@ -90,7 +73,7 @@ test('the demo file: columns shown, processed in the worker, the summary equals 
 test('a file with bad rows lists them with row and column and processes the rest', async ({ page }) => {
   test.setTimeout(90_000); // axe on a shared, loaded machine
   const csv = ['Worker,Checkup date,HbA1c (%),Age,Sex', 'A1,2021-03-01,5.9,50,female', 'A1,2022-03-01,6.0,51,female', 'A1,2023-03-01,banana,52,female', 'A1,2024-03-01,6.1,53,female', 'B2,2022-03-01,5.2,40,male', 'B2,not a date,5.3,41,male', 'B2,2024-03-01,5.1,42,male'].join('\n');
-  await openAndProcess(page, { name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+  await openAndProcessCheckups(page, { name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
   const problems = page.getByTestId('problems');
   await expect(problems.getByRole('heading')).toContainText('2 row problems');
   await expect(problems.getByRole('listitem').filter({ hasText: 'row 4, column HbA1c (%)' })).toHaveCount(1);

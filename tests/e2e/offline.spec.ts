@@ -14,7 +14,7 @@ import path from 'node:path';
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
 import { computeScenario } from '@/lib/engine/compute';
 import { CAUTION_TEXT } from '@/lib/wording';
-import { expectScreenShows, field, fillTypedScenario, processCheckupsFile, serviceWorkerActive, TYPED_SCENARIO } from './support';
+import { expectScreenShows, field, fillTypedScenario, openAndProcessCheckups, serviceWorkerActive, TYPED_SCENARIO } from './support';
 import { chooseCsv, fillEvidence, GOOD_CSV, goodTable, openLibrary, savedTables, TABLE_TITLE, tableScenario } from './librarySupport';
 
 // Installing the service worker downloads every page and chunk once: allow for a busy machine.
@@ -132,7 +132,7 @@ test('after one visit, the checkups screen reads and processes a file with the n
   await context.setOffline(true);
   const network = watchNetwork(page);
   // The invented 40-worker demo file (illustrative).
-  await processCheckupsFile(page, 'demo/checkups/checkups.csv');
+  await openAndProcessCheckups(page, 'demo/checkups/checkups.csv');
   await expect(page.getByTestId('summary')).toContainText('40');
   expect(network.notFromWorker).toEqual([]);
   expect(network.failed).toEqual([]);

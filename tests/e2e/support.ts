@@ -2,6 +2,7 @@
  * Shared steps for the browser tests: fill the consultation form like a clinician would, and
  * work out what the screen must show from the engine itself (lib/), never from the page.
  */
+import AxeBuilder from '@axe-core/playwright';
 import { expect, type Locator, type Page } from '@playwright/test';
 import { computeScenario } from '../../lib/engine/compute';
 import { exposedLayout, referenceLayout } from '../../lib/engine/iconArray';
@@ -91,8 +92,19 @@ export async function serviceWorkerActive(page: Page): Promise<string> {
   });
 }
 
-/** Opens /checkups, chooses a checkup file, confirms the proposed columns and waits for the summary. */
-export async function processCheckupsFile(page: Page, file: string | { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
+/** The demo checkup file: 40 invented workers (demo/checkups/checkups.csv). */
+export const DEMO_CHECKUPS = 'demo/checkups/checkups.csv';
+/** The WCAG 2.2 AA rule tags every axe pass uses. */
+export const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+
+/** Runs axe on the whole page (WCAG 2.2 AA tags) and expects no violation. */
+export async function expectAxeClean(page: Page): Promise<void> {
+  const report = await new AxeBuilder({ page }).withTags(WCAG_TAGS).analyze();
+  expect(report.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+}
+
+/** Opens /checkups, gives it a file (a path or a buffer), confirms the columns and waits for the summary. */
+export async function openAndProcessCheckups(page: Page, file: string | { name: string; mimeType: string; buffer: Buffer }): Promise<void> {
   await page.goto('/checkups');
   await expect(page.getByLabel(/Checkup file/)).toBeEnabled(); // the page has hydrated
   await page.getByLabel(/Checkup file/).setInputFiles(file);

@@ -17,7 +17,7 @@ import type { WorklistRanks } from '@/lib/checkups/worklistOrder';
 import type { FileKindName, FilterChoices, FromWorker, ToWorker } from './protocol';
 import { SetupPanel, useCheckupsSetup } from './SetupPanel';
 import { SessionPanel, type SaveState } from './SessionPanel';
-import { Worklist } from './Worklist';
+import { BatchWorklist, type CheckupsRunInput } from './BatchWorklist';
 import { SummaryPanel } from './SummaryPanel';
 import { ProblemsPanel } from './ProblemsPanel';
 import './checkups.css';
@@ -61,6 +61,7 @@ export function CheckupsScreen() {
   const [fromSession, setFromSession] = useState(false);
   const [sessionMessages, setSessionMessages] = useState<string[]>([]);
   const restore = setup.restore;
+  const [runInput, setRunInput] = useState<CheckupsRunInput | null>(null); // what the results were made from (open one worker, batch handouts)
 
   const onMessage = useCallback((event: MessageEvent<FromWorker>) => {
     const m = event.data;
@@ -96,6 +97,8 @@ export function CheckupsScreen() {
     } else if (m.type === 'session-opened') {
       restore(m.setup);
       setFromSession(true);
+      // A session keeps no file: batch handouts work from the results; opening one worker needs the file.
+      setRunInput({ files: [], kind: m.kind, today: localToday(), mapping: m.mapping, confirmedMapping: m.mapping, evidence: m.setup.evidence, table: m.setup.table, criteria: m.setup.criteria, horizon: m.setup.horizonYears });
     } else if (m.type === 'session-refused') {
       setSessionMessages([...m.messages]);
       setPhase('setup');
@@ -351,7 +354,7 @@ export function CheckupsScreen() {
             </div>
           </section>
           <ProblemsPanel problems={problems} skippedRows={skipped} />
-          <Worklist rows={rows} choices={choices} ranks={ranks} />
+          <BatchWorklist rows={rows} results={results} run={runInput} worker={worker} choices={choices} ranks={ranks} />
         </>
       ) : null}
 

@@ -1,6 +1,11 @@
 'use client';
-/** The worklist: one row per worker, virtualized (@tanstack/react-virtual), sortable and filterable; rows from lib/checkups. */
-import { useMemo, useRef, useState } from 'react';
+/**
+ * The worklist: one row per worker, virtualized (@tanstack/react-virtual), sortable and
+ * filterable; rows from lib/checkups. When the screen asks for them, each row also has a tick box
+ * (choose the worker for batch handouts; "Tick all shown" and "Clear the ticks" above the table,
+ * the count announced) and an "Open" button (the worker in the consultation screen).
+ */
+import { Fragment, useMemo, useRef, useState } from 'react';
 import { useVirtualizer } from '@tanstack/react-virtual';
 import { STATUS_LABELS, WORKLIST_COLUMNS, worklistFilterChoices, type WorklistColumn, type WorklistRow, type WorklistSort } from '@/lib/checkups/worklist';
 import { arrangeWithRanks, type WorklistRanks } from '@/lib/checkups/worklistOrder';
@@ -9,11 +14,21 @@ import { WORKER_STATUSES, type WorkerStatus } from '@/lib/workforce';
 
 const ROW_HEIGHT = 44;
 
-/**
- * `choices` and `ranks` come from the checkups worker (worked out off the page); without them the
- * list works them out itself.
- */
-export function Worklist({ rows, choices: given, ranks }: { rows: readonly WorklistRow[]; choices?: FilterChoices | null; ranks?: WorklistRanks | null }) {
+export interface WorklistProps {
+  readonly rows: readonly WorklistRow[];
+  /** Ticked rows, by `row.index`; with {@link onSelect}, each row gets a tick box. */
+  readonly selected?: ReadonlySet<number>;
+  readonly onSelect?: (indices: readonly number[], ticked: boolean) => void;
+  /** With {@link canOpen}, each row the worker can be opened for gets an "Open" button. */
+  readonly onOpen?: (row: WorklistRow) => void;
+  readonly canOpen?: (row: WorklistRow) => boolean;
+  /** The filters' choices, from the checkups worker (worked out off the page); without them the list works them out itself. */
+  readonly choices?: FilterChoices | null;
+  /** Each column's sort ranks, from the checkups worker; without them the list sorts by comparing rows. */
+  readonly ranks?: WorklistRanks | null;
+}
+
+export function Worklist({ rows, selected, onSelect, onOpen, canOpen, choices: given, ranks }: WorklistProps) {
   const [status, setStatus] = useState<WorkerStatus | ''>('');
   const [category, setCategory] = useState('');
   const [stratum, setStratum] = useState('');
@@ -29,6 +44,11 @@ export function Worklist({ rows, choices: given, ranks }: { rows: readonly Workl
 
   const sortBy = (column: WorklistColumn) =>
     setSort((s) => (s && s.column === column ? { column, direction: s.direction === 'ascending' ? 'descending' : 'ascending' } : { column, direction: 'ascending' }));
+
+  const selecting = selected !== undefined && onSelect !== undefined;
+  const opening = onOpen !== undefined;
+  const columnCount = WORKLIST_COLUMNS.length + (selecting ? 1 : 0) + (opening ? 1 : 0);
+  const tickedShown = selecting ? shown.reduce((n, r) => n + (selected.has(r.index) ? 1 : 0), 0) : 0;
 
   const items = virtualizer.getVirtualItems();
   const before = items[0]?.start ?? 0;
@@ -73,37 +93,76 @@ export function Worklist({ rows, choices: given, ranks }: { rows: readonly Workl
       <p aria-live="polite" data-testid="worklist-count">
         {shown.length} of {rows.length} workers shown
       </p>
+      {selecting ? (
+        <div className="checkups__actions">
+          <button type="button" onClick={() => onSelect(shown.map((r) => r.index), true)} disabled={shown.length === 0 || tickedShown === shown.length}>
+            Tick all shown
+          </button>
+          <button type="button" onClick={() => onSelect([...selected], false)} disabled={selected.size === 0}>
+            Clear the ticks
+          </button>
+          <p role="status" data-testid="worklist-ticked" className="checkups__inline-status">
+            {selected.size === 1 ? '1 worker ticked' : `${selected.size} workers ticked`}
+          </p>
+        </div>
+      ) : null}
       <div ref={scrollRef} className="checkups__worklist" tabIndex={0} role="region" aria-labelledby="worklist-heading">
         <table className="checkups__table" aria-rowcount={shown.length + 1} data-testid="worklist" data-order={sort ? `${sort.column}-${sort.direction}` : 'file'} data-ranked={ranks ? 'true' : 'false'}>
           <thead>
             <tr aria-rowindex={1}>
+              {selecting ? <th scope="col">Tick</th> : null}
               {WORKLIST_COLUMNS.map((c) => (
-                <th key={c.key} scope="col" aria-sort={sort?.column === c.key ? sort.direction : 'none'}>
-                  <button type="button" onClick={() => sortBy(c.key)}>
-                    {c.label}
-                  </button>
-                </th>
+                <Fragment key={c.key}>
+                  <th scope="col" aria-sort={sort?.column === c.key ? sort.direction : 'none'}>
+                    <button type="button" onClick={() => sortBy(c.key)}>
+                      {c.label}
+                    </button>
+                  </th>
+                  {c.key === 'worker' && opening ? <th scope="col">Consultation</th> : null}
+                </Fragment>
               ))}
             </tr>
           </thead>
           <tbody>
             {before > 0 ? (
               <tr aria-hidden="true">
-                <td colSpan={WORKLIST_COLUMNS.length} style={{ height: before, padding: 0 }} />
+                <td colSpan={columnCount} style={{ height: before, padding: 0 }} />
               </tr>
             ) : null}
             {items.map((item) => {
               const row = shown[item.index];
               if (!row) return null;
               return (
-                <tr key={row.index} aria-rowindex={item.index + 2} data-status={row.status} style={{ height: ROW_HEIGHT }}>
+                <tr key={row.index} aria-rowindex={item.index + 2} data-status={row.status} data-worker={row.worker} style={{ height: ROW_HEIGHT }}>
+                  {selecting ? (
+                    <td>
+                      <input
+                        type="checkbox"
+                        className="checkups__tick"
+                        aria-label={`Tick ${row.worker}`}
+                        checked={selected.has(row.index)}
+                        onChange={(e) => onSelect([row.index], e.target.checked)}
+                      />
+                    </td>
+                  ) : null}
                   {WORKLIST_COLUMNS.map((c) =>
                     c.key === 'worker' ? (
-                      <th key={c.key} scope="row">
-                        {row.cells.worker}
-                      </th>
+                      <Fragment key={c.key}>
+                        <th scope="row">{row.cells.worker}</th>
+                        {opening ? (
+                          <td>
+                            {canOpen === undefined || canOpen(row) ? (
+                              <button type="button" aria-label={`Open ${row.worker} in the consultation screen (new tab)`} onClick={() => onOpen(row)}>
+                                Open
+                              </button>
+                            ) : (
+                              <span>no figures</span>
+                            )}
+                          </td>
+                        ) : null}
+                      </Fragment>
                     ) : (
-                      <td key={c.key} className={c.key === 'notes' ? 'checkups__notes' : undefined}>
+                      <td key={c.key} className={c.key === 'notes' ? 'checkups__notes' : undefined} data-column={c.key}>
                         {row.cells[c.key]}
                       </td>
                     ),
@@ -113,7 +172,7 @@ export function Worklist({ rows, choices: given, ranks }: { rows: readonly Workl
             })}
             {after > 0 ? (
               <tr aria-hidden="true">
-                <td colSpan={WORKLIST_COLUMNS.length} style={{ height: after, padding: 0 }} />
+                <td colSpan={columnCount} style={{ height: after, padding: 0 }} />
               </tr>
             ) : null}
           </tbody>

@@ -33,6 +33,7 @@ import { worklistFilterChoices, worklistRow, type WorklistRow } from '@/lib/chec
 import { worklistRanks } from '@/lib/checkups/worklistOrder';
 import { SESSION_VERSION, type CheckupSession } from '@/lib/checkups/session';
 import { openSessionStore } from '@/app/storage/sessions';
+import { collectWorkerRows, collectWorkerRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
 import type { FromWorker, ToWorker } from './protocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -252,6 +253,21 @@ async function openSession(data: Extract<ToWorker, { type: 'open-session' }>): P
   finish({ ok: true, summary: finished, header: null, problemCount }, sink.rows);
 }
 
+/** One worker's checkups, read again from the same files with the same mapping. */
+async function history(data: Extract<ToWorker, { type: 'history' }>): Promise<void> {
+  const reader = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
+  let rows;
+  if (data.kind === 'xlsx') {
+    const file = data.files[0];
+    const sheet = file ? await readXlsxSheet(file) : null;
+    rows = !sheet ? null : isRefusal(sheet) ? sheet : collectWorkerRowsFromTable(sheet.rows, reader, data.worker);
+  } else {
+    rows = await collectWorkerRows(slices(data.files, data.kind === 'fhir-ndjson'), { reader, format: data.kind }, data.worker);
+  }
+  if (!rows || isRefusal(rows)) return post({ type: 'history', worker: data.worker, checkups: null, message: rows ? rows.message : 'No file was given' });
+  post({ type: 'history', worker: data.worker, checkups: workerCheckups(rows), message: null });
+}
+
 scope.onmessage = (event: MessageEvent<ToWorker>) => {
   const data = event.data;
   if (data.type === 'cancel') {
@@ -261,5 +277,6 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
   if (data.type === 'preview') void preview(data);
   else if (data.type === 'save-session') void saveSession(data);
   else if (data.type === 'open-session') void openSession(data);
+  else if (data.type === 'history') void history(data);
   else void run(data);
 };

@@ -1,5 +1,6 @@
 /** Messages between the checkups screen and its Web Worker (plain data only). */
 import type { EvidenceEntry } from '@/lib/evidence/schema';
+import type { Checkup } from '@/lib/glycaemia/schema';
 import type { PopulationTable } from '@/lib/tables/schema';
 import type { CriteriaSet } from '@/lib/glycaemia/exposure';
 import type { SessionSetup } from '@/lib/checkups/session';
@@ -28,7 +29,16 @@ export type ToWorker =
   /** Save the last finished run as a session: its rows are read again here, so they never cross to the page. */
   | { readonly type: 'save-session'; readonly id: string; readonly name: string }
   /** Open a saved session: its rows are read from storage and processed here, as a run is. */
-  | { readonly type: 'open-session'; readonly id: string };
+  | { readonly type: 'open-session'; readonly id: string }
+  /** One worker's rows read again from the same files ("open one worker", lib/checkups/workerHistory.ts). */
+  | {
+      readonly type: 'history';
+      readonly files: readonly File[];
+      readonly kind: FileKindName;
+      readonly today: string;
+      readonly mapping: ColumnMapping | null;
+      readonly worker: string;
+    };
 
 /** The worklist's filter choices, from the rows (lib/checkups/worklist `worklistFilterChoices`). */
 export interface FilterChoices {
@@ -49,4 +59,6 @@ export type FromWorker =
   | { readonly type: 'ranks'; readonly ranks: Readonly<Partial<Record<WorklistColumn, Int32Array>>> }
   | { readonly type: 'session-saved'; readonly id: string; readonly messages: readonly string[] }
   | { readonly type: 'session-opened'; readonly setup: SessionSetup; readonly kind: FileKindName; readonly mapping: ColumnMapping | null }
-  | { readonly type: 'session-refused'; readonly messages: readonly string[] };
+  | { readonly type: 'session-refused'; readonly messages: readonly string[] }
+  /** The answer to 'history': the worker's checkups, or why the file could not be read again. */
+  | { readonly type: 'history'; readonly worker: string; readonly checkups: readonly Checkup[] | null; readonly message: string | null };

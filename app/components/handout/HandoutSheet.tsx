@@ -12,6 +12,11 @@ import type { HandoutSheet as HandoutSheetView, SheetList } from '@/lib/handout'
 
 export interface HandoutSheetProps {
   readonly sheet: HandoutSheetView;
+  /**
+   * Prefixes every id on the sheet, so several sheets can share one page (the checkups screen's
+   * batch print); none on /handout.
+   */
+  readonly idPrefix?: string;
 }
 
 function ListSection({ id, list, ordered = false }: { id: string; list: SheetList; ordered?: boolean }) {
@@ -26,10 +31,11 @@ function ListSection({ id, list, ordered = false }: { id: string; list: SheetLis
   );
 }
 
-export function HandoutSheet({ sheet }: HandoutSheetProps) {
+export function HandoutSheet({ sheet, idPrefix = '' }: HandoutSheetProps) {
   const { clinic, illustrative } = sheet;
+  const id = (name: string) => `${idPrefix}${name}`;
   return (
-    <article className={`sheet sheet--${sheet.layout}`} aria-labelledby="sheet-title" data-testid="handout-sheet" data-layout={sheet.layout} data-audience={sheet.audience}>
+    <article className={`sheet sheet--${sheet.layout}`} aria-labelledby={id('sheet-title')} data-testid="handout-sheet" data-layout={sheet.layout} data-audience={sheet.audience}>
       {illustrative ? (
         <div className="sheet__demo-band" role="note" aria-label={illustrative.heading} data-testid="handout-demo-band">
           <p className="sheet__demo-heading">{illustrative.heading}</p>
@@ -37,7 +43,7 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
         </div>
       ) : null}
       <header className="sheet__header">
-        <h2 id="sheet-title" className="sheet__title">
+        <h2 id={id('sheet-title')} className="sheet__title">
           {sheet.title}
         </h2>
         {clinic ? (
@@ -60,8 +66,8 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
         ) : null}
       </header>
 
-      <aside className="sheet__caution" aria-labelledby="sheet-caution" data-testid="handout-caution">
-        <h3 id="sheet-caution" className="sheet__heading">
+      <aside className="sheet__caution" aria-labelledby={id('sheet-caution')} data-testid="handout-caution">
+        <h3 id={id('sheet-caution')} className="sheet__heading">
           {sheet.caution.heading}
         </h3>
         <p>{sheet.caution.text}</p>
@@ -73,28 +79,28 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
         </p>
       ))}
 
-      <section className={`sheet__numbers sheet__numbers--${sheet.denominator}`} aria-labelledby="sheet-numbers">
-        <h3 id="sheet-numbers" className="visually-hidden">
+      <section className={`sheet__numbers sheet__numbers--${sheet.denominator}`} aria-labelledby={id('sheet-numbers')}>
+        <h3 id={id('sheet-numbers')} className="visually-hidden">
           {sheet.numbersHeading}
         </h3>
         <div className={`sheet__arrays sheet__arrays--${sheet.denominator}`}>
           {sheet.arrays.map((a) => (
-            <IconArray key={a.key} layout={a.layout} title={a.title} description={a.caption} idPrefix={a.idPrefix} />
+            <IconArray key={a.key} layout={a.layout} title={a.title} description={a.caption} idPrefix={id(a.idPrefix)} />
           ))}
         </div>
         {sheet.listsBesidePictures ? (
           <div className="sheet__beside">
-            <ListSection id="sheet-means" list={sheet.means} />
-            <ListSection id="sheet-not-mean" list={sheet.doesNotMean} />
+            <ListSection id={id('sheet-means')} list={sheet.means} />
+            <ListSection id={id('sheet-not-mean')} list={sheet.doesNotMean} />
           </div>
         ) : null}
-        <IconLegend entries={sheet.legend.entries} idPrefix="handout-legend" heading={sheet.legend.heading} />
+        <IconLegend entries={sheet.legend.entries} idPrefix={id('handout-legend')} heading={sheet.legend.heading} />
         <GroupsTable text={sheet.text} className="sheet__table" />
       </section>
 
       {sheet.ownResults ? (
-        <section className="sheet__own" aria-labelledby="sheet-own" data-testid="handout-own-results">
-          <h3 id="sheet-own" className="sheet__heading">
+        <section className="sheet__own" aria-labelledby={id('sheet-own')} data-testid="handout-own-results">
+          <h3 id={id('sheet-own')} className="sheet__heading">
             {sheet.ownResults.heading}
           </h3>
           {sheet.ownResults.items.map((s) => (
@@ -105,14 +111,14 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
 
       {sheet.listsBesidePictures ? null : (
         <div className="sheet__columns">
-          <ListSection id="sheet-means" list={sheet.means} />
-          <ListSection id="sheet-not-mean" list={sheet.doesNotMean} />
+          <ListSection id={id('sheet-means')} list={sheet.means} />
+          <ListSection id={id('sheet-not-mean')} list={sheet.doesNotMean} />
         </div>
       )}
 
       <div className="sheet__columns sheet__columns--wide">
-        <section aria-labelledby="sheet-questions">
-          <h3 id="sheet-questions" className="sheet__heading">
+        <section aria-labelledby={id('sheet-questions')}>
+          <h3 id={id('sheet-questions')} className="sheet__heading">
             {sheet.questions.heading}
           </h3>
           <p>{sheet.questions.intro}</p>
@@ -123,8 +129,8 @@ export function HandoutSheet({ sheet }: HandoutSheetProps) {
           </ol>
         </section>
         {sheet.nextSteps.paragraphs.length > 0 ? (
-          <section aria-labelledby="sheet-next">
-            <h3 id="sheet-next" className="sheet__heading">
+          <section aria-labelledby={id('sheet-next')}>
+            <h3 id={id('sheet-next')} className="sheet__heading">
               {sheet.nextSteps.heading}
             </h3>
             {sheet.nextSteps.paragraphs.map((p, i) => (

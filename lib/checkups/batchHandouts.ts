@@ -1,0 +1,163 @@
+/**
+ * Batch handouts for the checkups screen (issue 10, item 9): the workers the physician chose →
+ * one handout sheet per worker, each exactly the sheet `/handout` makes for that worker's
+ * scenario. Nothing here builds a sentence or a number of its own:
+ * - the scenario is lib/workforce `workerScenario` (the one the worker's figures came from);
+ * - the sheet is lib/handout `handoutPageView` given that scenario's link fragment (lib/link
+ *   `scenarioFragment`), i.e. the very call /handout makes when it opens that link, with the same
+ *   default template, paper and date.
+ *
+ * A worker gets no sheet, and is counted and listed with the reason, when the evidence does not
+ * apply to them (status neither, insufficient or diabetes range: no figures), or when
+ * `/handout` would refuse the sheet (`capped`: the figures reach certainty; `words` or `broken`).
+ * The pseudonymous worker id rides beside the sheet, never inside it, and only when asked for.
+ */
+import { DEFAULT_BLOCKS } from '../handout/blocks';
+import { handoutPageView, type HandoutProblemKind } from '../handout/page';
+import type { HandoutSheet, HandoutSheetTemplate } from '../handout/sheet';
+import type { PaperSize } from '../handout/paper';
+import { scenarioFragment } from '../link/scenarioLink';
+import { workerScenario, type CheckupsContext } from '../workforce/evaluate';
+import type { WorkerResult } from '../workforce/types';
+import { STATUS_LABELS } from './worklist';
+
+/** Which workers: every exposed worker, every worker, or the ones ticked in the worklist. */
+export const BATCH_CHOICES = ['exposed', 'all', 'selected'] as const;
+export type BatchChoice = (typeof BATCH_CHOICES)[number];
+
+export const BATCH_CHOICE_LABELS: Readonly<Record<BatchChoice, string>> = {
+  exposed: 'All workers who fit the exposure',
+  all: 'All workers',
+  selected: 'The workers ticked in the worklist',
+};
+
+/**
+ * The chosen workers' positions (indices into the run's results, file order).
+ * @example
+ * batchSelection([exposed, insufficient, exposed], 'exposed', new Set()) //=> [0, 2]
+ * batchSelection([exposed, insufficient, exposed], 'selected', new Set([2, 1, 7])) //=> [1, 2]
+ */
+export function batchSelection(results: readonly Pick<WorkerResult, 'status'>[], choice: BatchChoice, selected: ReadonlySet<number>): number[] {
+  const indices: number[] = [];
+  results.forEach((r, i) => {
+    if (choice === 'all' || (choice === 'exposed' && r.status === 'exposed') || (choice === 'selected' && selected.has(i))) indices.push(i);
+  });
+  return indices;
+}
+
+export interface BatchOptions {
+  readonly paper: PaperSize;
+  /** The date printed on every sheet ("Prepared on …"). */
+  readonly date: Date;
+  /** Print the worker's pseudonymous id in small print (the physician's tick). */
+  readonly showIds: boolean;
+  /** Default: /handout's own default template (DEFAULT_BLOCKS, no clinic). */
+  readonly template?: HandoutSheetTemplate;
+}
+
+/** Why a worker gets no sheet: no figures (the evidence does not apply), or /handout's own refusal. */
+export type BatchSkipReason = 'not-applicable' | HandoutProblemKind;
+
+export type BatchHandout =
+  | {
+      readonly kind: 'sheet';
+      readonly index: number;
+      readonly worker: string;
+      readonly workerId: string | undefined;
+      readonly sheet: HandoutSheet;
+      /** {@link batchSheetKey}: equal keys, equal sheets, so the screen draws a sheet once and copies it. */
+      readonly sheetKey: string;
+    }
+  | { readonly kind: 'skipped'; readonly index: number; readonly worker: string; readonly reason: BatchSkipReason; readonly message: string };
+
+/**
+ * A sheet's whole content as a string: two sheets are equal exactly when their keys are. The
+ * pictures' cells are written one letter each (kind, and "+" for a "could be" icon) instead of
+ * as objects, so a key of a 1,000-icon sheet stays a few kilobytes. Workers of the same age band
+ * and sex usually share one sheet (the exact age is not printed), so a batch of 500 workers
+ * holds a handful of distinct sheets.
+ */
+export function batchSheetKey(sheet: HandoutSheet): string {
+  return JSON.stringify(sheet, (key, value: unknown) =>
+    key === 'cells' && Array.isArray(value) ? (value as { kind: string; uncertain: boolean }[]).map((c) => `${c.kind[0]}${c.uncertain ? '+' : ''}`).join('') : value,
+  );
+}
+
+const DEFAULT_TEMPLATE: HandoutSheetTemplate = { blocks: DEFAULT_BLOCKS, clinic: {} };
+
+/**
+ * One worker's handout, or why there is none.
+ * @example
+ * batchHandout(W001, context, { paper: 'a4', date, showIds: true })
+ * //=> { kind: 'sheet', worker: 'W001', workerId: 'W001', sheet: { caution: …, arrays: […], … } }
+ * batchHandout(W002, context, { paper: 'a4', date, showIds: false })
+ * //=> { kind: 'skipped', worker: 'W002', reason: 'not-applicable', message: 'Not enough results: the study's figures do not apply (Not enough yearly results yet.)' }
+ */
+export function batchHandout(result: WorkerResult, index: number, context: CheckupsContext, options: BatchOptions): BatchHandout {
+  const scenario = workerScenario(result, context);
+  if (scenario === null) {
+    const why = result.reasons[0];
+    return {
+      kind: 'skipped',
+      index,
+      worker: result.worker,
+      reason: 'not-applicable',
+      message: `${STATUS_LABELS[result.status]}: the study\u2019s figures do not apply${why ? ` (${why.replace(/\.$/, '')})` : ''}.`,
+    };
+  }
+  const view = handoutPageView(scenarioFragment(scenario), options.template ?? DEFAULT_TEMPLATE, { date: options.date, paper: options.paper, table: context.table });
+  if (view.kind === 'problem') {
+    return { kind: 'skipped', index, worker: result.worker, reason: view.problem.kind, message: view.problem.heading };
+  }
+  return { kind: 'sheet', index, worker: result.worker, workerId: options.showIds ? result.worker : undefined, sheet: view.sheet, sheetKey: batchSheetKey(view.sheet) };
+}
+
+export interface BatchCounts {
+  readonly chosen: number;
+  readonly sheets: number;
+  readonly skipped: number;
+  /** Skipped workers by reason (only reasons that occur). */
+  readonly byReason: Readonly<Partial<Record<BatchSkipReason, number>>>;
+}
+
+/** Counts of a finished batch. */
+export function batchCounts(handouts: readonly BatchHandout[]): BatchCounts {
+  const byReason: Partial<Record<BatchSkipReason, number>> = {};
+  let sheets = 0;
+  for (const h of handouts) {
+    if (h.kind === 'sheet') sheets++;
+    else byReason[h.reason] = (byReason[h.reason] ?? 0) + 1;
+  }
+  return { chosen: handouts.length, sheets, skipped: handouts.length - sheets, byReason };
+}
+
+function plural(n: number, one: string, many: string): string {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+/**
+ * What the batch will print, in one sentence for the screen.
+ * @example
+ * batchCountsText({ chosen: 5, sheets: 3, skipped: 2, byReason: { 'not-applicable': 2 } })
+ * //=> "5 workers chosen: 3 handouts (one page each); 2 workers get none (listed below)."
+ */
+export function batchCountsText(counts: BatchCounts): string {
+  if (counts.chosen === 0) return 'No worker chosen yet.';
+  const head = `${plural(counts.chosen, 'worker', 'workers')} chosen: ${plural(counts.sheets, 'handout', 'handouts')} (one page each)`;
+  return counts.skipped === 0 ? `${head}.` : `${head}; ${plural(counts.skipped, 'worker gets', 'workers get')} none (listed below).`;
+}
+
+/**
+ * Every chosen worker's handout, in file order.
+ * @example
+ * batchHandouts(results, batchSelection(results, 'exposed', new Set()), context, { paper: 'letter', date, showIds: false })
+ * //=> [{ kind: 'sheet', worker: 'W001', workerId: undefined, … }, …]
+ */
+export function batchHandouts(results: readonly WorkerResult[], indices: readonly number[], context: CheckupsContext, options: BatchOptions): BatchHandout[] {
+  const out: BatchHandout[] = [];
+  for (const i of indices) {
+    const r = results[i];
+    if (r) out.push(batchHandout(r, i, context, options));
+  }
+  return out;
+}
