@@ -46,26 +46,36 @@ export const CHROMIUM_ARGS = [
   '--disable-quic',
 ];
 
+/**
+ * What both browser suites share (this one and the static folder's, playwright.static.config.ts):
+ * Debian's Chromium, two workers, the limits and the reports, for the app served on `port`.
+ */
+export function sharedConfig(port: number) {
+  return {
+    fullyParallel: true,
+    workers: 2,
+    forbidOnly: true,
+    retries: 0,
+    // Generous limits: a page on a loaded 2-core machine can take several seconds to hydrate; a
+    // limit only stops a stuck test, it is never a timing assertion (timings are in npm run bench).
+    timeout: 90_000,
+    expect: { timeout: 15_000 },
+    reporter: [['list']] as [['list']],
+    use: {
+      baseURL: `http://127.0.0.1:${port}`,
+      browserName: 'chromium' as const,
+      launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS },
+      trace: 'retain-on-failure' as const,
+      screenshot: 'only-on-failure' as const,
+    },
+    projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'], launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS } } }],
+  };
+}
+
 export default defineConfig({
+  ...sharedConfig(E2E_PORT),
   testDir: 'tests/e2e',
   outputDir: 'test-results/e2e',
-  fullyParallel: true,
-  workers: 2,
-  forbidOnly: true,
-  retries: 0,
-  // Generous limits: a page on a loaded 2-core machine can take several seconds to hydrate; a
-  // limit only stops a stuck test, it is never a timing assertion (timings are in npm run bench).
-  timeout: 90_000,
-  expect: { timeout: 15_000 },
-  reporter: [['list']],
-  use: {
-    baseURL: `http://127.0.0.1:${E2E_PORT}`,
-    browserName: 'chromium',
-    launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS },
-    trace: 'retain-on-failure',
-    screenshot: 'only-on-failure',
-  },
-  projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'], launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS } } }],
   webServer: {
     // A production build, so the tests see the real bundle and the production CSP.
     command: `npm run build && npx next start -p ${E2E_PORT} -H 127.0.0.1`,

@@ -5,29 +5,15 @@
  * the policy. Separate from the main suite because it needs a different build; run it after
  * `npm run test:e2e` (both builds use .next/).
  */
-import { defineConfig, devices } from '@playwright/test';
-import { CHROMIUM_ARGS, CHROMIUM_PATH } from './playwright.config';
+import { defineConfig } from '@playwright/test';
+import { sharedConfig } from './playwright.config';
 
 const PORT = Number(process.env.STATIC_PORT ?? 3190);
 
 export default defineConfig({
+  ...sharedConfig(PORT),
   testDir: 'tests/static',
   outputDir: 'test-results/static',
-  fullyParallel: true,
-  workers: 2,
-  forbidOnly: true,
-  retries: 0,
-  timeout: 90_000,
-  expect: { timeout: 15_000 },
-  reporter: [['list']],
-  use: {
-    baseURL: `http://127.0.0.1:${PORT}`,
-    browserName: 'chromium',
-    launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS },
-    trace: 'retain-on-failure',
-    screenshot: 'only-on-failure',
-  },
-  projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'], launchOptions: { executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS } } }],
   webServer: {
     command: `npm run build:static && node scripts/serve-static.mjs out --port ${PORT}`,
     url: `http://127.0.0.1:${PORT}/`,

@@ -16,7 +16,7 @@ import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { PopulationTable } from '@/lib/tables/schema';
 import type { TableSummary } from '@/lib/storage/records';
 import { CRITERIA_SETS, type CriteriaSet } from '@/lib/glycaemia/exposure';
-import { setupView, type SetupView } from '@/lib/checkups/setup';
+import { setupView, type SetupGroup, type SetupOption, type SetupView } from '@/lib/checkups/setup';
 import type { SessionSetup } from '@/lib/checkups/session';
 import { openLibrary, type Library } from '@/app/storage/library';
 import { onLibraryChange } from '@/app/storage/changes';
@@ -134,6 +134,23 @@ export function useCheckupsSetup(): CheckupsSetup {
   return { view, evidenceId, tableId, criteria, horizon, evidence, table, libraryProblem, setEvidenceId, setTableId, setCriteria, setHorizon, restore };
 }
 
+/** A choice list in groups (demo, then saved in this browser), as the set-up view model lists them. */
+function GroupedSelect({ value, onChange, groups, testId }: { value: string; onChange: (id: string) => void; groups: readonly SetupGroup<SetupOption>[]; testId: string }) {
+  return (
+    <select value={value} onChange={(e) => onChange(e.target.value)} data-testid={testId}>
+      {groups.map((g) => (
+        <optgroup key={g.label} label={g.label}>
+          {g.options.map((o) => (
+            <option key={o.id} value={o.id}>
+              {o.label}
+            </option>
+          ))}
+        </optgroup>
+      ))}
+    </select>
+  );
+}
+
 export function SetupPanel({ setup }: { setup: CheckupsSetup }) {
   const { view } = setup;
   return (
@@ -142,31 +159,11 @@ export function SetupPanel({ setup }: { setup: CheckupsSetup }) {
       <div className="checkups__grid">
         <label>
           Evidence
-          <select value={setup.evidenceId} onChange={(e) => setup.setEvidenceId(e.target.value)} data-testid="setup-evidence">
-            {view.evidenceGroups.map((g) => (
-              <optgroup key={g.label} label={g.label}>
-                {g.options.map((o) => (
-                  <option key={o.id} value={o.id}>
-                    {o.label}
-                  </option>
-                ))}
-              </optgroup>
-            ))}
-          </select>
+          <GroupedSelect value={setup.evidenceId} onChange={setup.setEvidenceId} groups={view.evidenceGroups} testId="setup-evidence" />
         </label>
         <label>
           Population table
-          <select value={setup.tableId} onChange={(e) => setup.setTableId(e.target.value)} data-testid="setup-table">
-            {view.tableGroups.map((g) => (
-              <optgroup key={g.label} label={g.label}>
-                {g.options.map((o) => (
-                  <option key={o.id} value={o.id}>
-                    {o.label}
-                  </option>
-                ))}
-              </optgroup>
-            ))}
-          </select>
+          <GroupedSelect value={setup.tableId} onChange={setup.setTableId} groups={view.tableGroups} testId="setup-table" />
         </label>
         <label>
           Criteria set
