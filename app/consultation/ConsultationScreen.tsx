@@ -14,6 +14,7 @@
  */
 import { toNestErrors } from '@hookform/resolvers';
 import { memo, useCallback, useEffect, useMemo, useState } from 'react';
+import { useHydrated } from '@/app/components/useHydrated';
 import { FormProvider, useForm, useWatch, type FieldError, type Resolver } from 'react-hook-form';
 import { checkEntry, type EntryCheck, type WordingField } from '@/lib/consultation/entry';
 import { DEMO_EVIDENCE, DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
@@ -96,6 +97,7 @@ export function ConsultationScreen({
   tables?: readonly PopulationTable[];
   entries?: readonly EvidenceEntry[];
 }) {
+  const hydrated = useHydrated();
   // Tables and entries the clinician takes from the clinic library join the bundled ones.
   const [libraryTables, setLibraryTables] = useState<readonly PopulationTable[]>([]);
   const [libraryEntries, setLibraryEntries] = useState<readonly EvidenceEntry[]>([]);
@@ -256,7 +258,7 @@ export function ConsultationScreen({
                 updates as you type. Nothing you type is sent anywhere: the scenario stays in this page and its address.
               </p>
               <div className="intro__actions">
-                <button type="button" className="button button--secondary" onClick={() => void exampleValues().then((example) => reset(example))} data-testid="load-example">
+                <button type="button" className="button button--secondary" disabled={!hydrated} onClick={() => void exampleValues().then((example) => reset(example))} data-testid="load-example">
                   Fill in an example (illustrative numbers)
                 </button>
                 <button type="button" className="button button--quiet" onClick={clearForm} data-testid="clear-form">
@@ -276,7 +278,7 @@ export function ConsultationScreen({
               ) : null}
               <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
             </div>
-            <form className="form" noValidate aria-label="Scenario" onSubmit={(event) => event.preventDefault()}>
+            <form className="form" noValidate aria-label="Scenario" data-hydrated={hydrated ? 'true' : 'false'} onSubmit={(event) => event.preventDefault()}>
               <Baseline tables={allTables} />
               <Evidence entries={allEntries} entryCheck={entryCheck} onKeepWording={keepWording} />
               <Settings />

@@ -9,7 +9,7 @@ import { scenarioFragment } from '../../lib/link';
 import type { Scenario } from '../../lib/scenario/schema';
 import { DEMO_HEART_FAILURE_10Y } from '../../lib/tables/demo';
 import { lookupStratum } from '../../lib/tables/lookup';
-import { expectScreenShows, field, fillTypedScenario, TYPED_SCENARIO } from './support';
+import { consultationReady, expectScreenShows, field, fillTypedScenario, TYPED_SCENARIO } from './support';
 
 test('a scenario typed into the form shows the engine’s risks, difference, number needed and icon counts', async ({ page }) => {
   await page.goto('/');
@@ -23,6 +23,7 @@ test('a scenario typed into the form shows the engine’s risks, difference, num
 
 test('a baseline looked up in a demo table, with a demo evidence entry, matches the engine', async ({ page }) => {
   await page.goto('/');
+  await consultationReady(page);
   await field(page, 'tableId').selectOption(DEMO_HEART_FAILURE_10Y.id);
   await field(page, 'person.age').fill('45');
   await field(page, 'person.sex').selectOption('female');

@@ -19,7 +19,7 @@ import type { ExposureDefinition } from '../../lib/glycaemia/exposure';
 import { parsePastedRows } from '../../lib/glycaemia/paste';
 import { glucoseHistoryView, type GlucoseHistoryView } from '../../lib/glycaemia/view';
 import { DEMO_HEART_FAILURE_10Y } from '../../lib/tables/demo';
-import { field } from './support';
+import { consultationReady, field } from './support';
 
 const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
 const ENTRY = DEMO_WORKFORCE_HBA1C_HEART_FAILURE;
@@ -90,6 +90,7 @@ function expectedView(text: string): GlucoseHistoryView {
 /** A result on screen: a 52-year-old man, baseline from the demo table, the workforce cohort chosen. */
 async function openWithWorkforceCohort(page: Page): Promise<void> {
   await page.goto('/');
+  await consultationReady(page);
   await field(page, 'tableId').selectOption(DEMO_HEART_FAILURE_10Y.id);
   await field(page, 'person.age').fill('52');
   await field(page, 'person.sex').selectOption('male');

@@ -29,8 +29,17 @@ export function field(page: Page, name: string): Locator {
   return page.locator(`#field-${name.replace(/\./g, '-')}`);
 }
 
+/**
+ * Waits until the consultation screen runs in the browser (its form carries data-hydrated="true"):
+ * a choice made before that, such as a table picked, would be lost when the page hydrates.
+ */
+export async function consultationReady(page: Page): Promise<void> {
+  await expect(page.getByRole('form', { name: 'Scenario' })).toHaveAttribute('data-hydrated', 'true', { timeout: 60_000 });
+}
+
 /** Types a scenario with a typed-in risk baseline through the form, field by field. */
 export async function fillTypedScenario(page: Page, scenario: Scenario = TYPED_SCENARIO): Promise<void> {
+  await consultationReady(page);
   const { baseline, effect, wording = {}, person = {} } = scenario;
   if (!('risk' in baseline)) throw new Error('fillTypedScenario types a risk baseline');
   await page.getByLabel('Enter a risk over a period', { exact: true }).check();

@@ -10,7 +10,8 @@
  * they are made a few at a time (the page stays responsive, a progress bar says how far), kept
  * out of sight on screen, and printed alone, one page each. Changing the choice clears them.
  */
-import { useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { useHydrated } from '@/app/components/useHydrated';
 
 import { createPortal, flushSync } from 'react-dom';
 import { createRoot, type Root } from 'react-dom/client';
@@ -42,7 +43,6 @@ interface Job {
 
 type SheetHandout = Extract<BatchHandout, { kind: 'sheet' }>;
 
-const subscribeNothing = () => () => {};
 
 /**
  * The drawn sheets of one batch, one per sheet key, drawn by React into elements that are never
@@ -90,7 +90,7 @@ export interface BatchHandoutsProps {
 }
 
 export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) {
-  const inBrowser = useSyncExternalStore(subscribeNothing, () => true, () => false);
+  const inBrowser = useHydrated();
   const [choice, setChoice] = useState<BatchChoice>('exposed');
   const [paper, setPaper] = useState<PaperSize>('a4');
   const [showIds, setShowIds] = useState(false);

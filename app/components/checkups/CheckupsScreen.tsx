@@ -4,7 +4,8 @@
  * the worklist and the summary. Everything shown comes from lib/workforce and lib/checkups; the
  * file stays in this page's memory and is never sent anywhere.
  */
-import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useHydrated } from '@/app/components/useHydrated';
 import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
 import { checkupsProgressView } from '@/lib/checkups/progress';
 import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
@@ -23,7 +24,6 @@ import { ProblemsPanel } from './ProblemsPanel';
 import './checkups.css';
 
 /** Nothing to listen to: the value only differs between the server's HTML and the browser. */
-const subscribeNothing = () => () => {};
 
 function localToday(): string {
   const d = new Date();
@@ -34,7 +34,7 @@ type Phase = 'setup' | 'columns' | 'running' | 'done';
 
 export function CheckupsScreen() {
   // False in the server's HTML, true once the page runs: the file input waits for its handler.
-  const ready = useSyncExternalStore(subscribeNothing, () => true, () => false);
+  const ready = useHydrated();
   const setup = useCheckupsSetup();
   const { criteria, horizon, evidence, table } = setup;
   const [files, setFiles] = useState<File[]>([]);
@@ -196,7 +196,9 @@ export function CheckupsScreen() {
         // storage unavailable: the correction holds for this file only
       }
     }
-    send({ type: 'run', files, kind, today: localToday(), mapping: corrected ? mapping : null, confirmedMapping: mapping, evidence, table, criteria, horizon: h });
+    const input: CheckupsRunInput = { files, kind, today: localToday(), mapping: corrected ? mapping : null, confirmedMapping: mapping, evidence, table, criteria, horizon: h };
+    setRunInput(input);
+    send({ type: 'run', ...input });
   };
 
   const saveSession = (name: string) => {
@@ -205,6 +207,7 @@ export function CheckupsScreen() {
   };
 
   const openSession = (id: string) => {
+    setRunInput(null);
     setHeader(null);
     setFiles([]);
     setKind(null);
