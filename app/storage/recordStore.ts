@@ -33,8 +33,11 @@ export type Db = IDBPDatabase<any>;
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Tx = IDBPTransaction<any, StoreName[], 'readwrite'>;
 
+/** What every stored record carries (lib/storage/records.ts). */
+type Saved = { readonly revision: number; readonly savedAt: string };
+
 /** What the generic store needs to know about one kind of record. */
-export interface RecordSpec<S extends { readonly revision: number; readonly savedAt: string }, V> {
+export interface RecordSpec<S extends Saved, V> {
   readonly kind: RecordKind;
   readonly store: StoreName;
   readonly words: RecordWords;
@@ -56,7 +59,7 @@ export interface Listing<T> {
   readonly problems: readonly Issue[];
 }
 
-async function currentOf<S extends { readonly revision: number; readonly savedAt: string }, V>(
+async function currentOf<S extends Saved, V>(
   tx: Tx,
   spec: RecordSpec<S, V>,
   id: string,
@@ -73,7 +76,7 @@ async function currentOf<S extends { readonly revision: number; readonly savedAt
   return { raw, stored: undefined, current: { revision: typeof r === 'number' && Number.isInteger(r) && r > 0 ? r : 1, title: id }, tombstone };
 }
 
-function stores<S extends { readonly revision: number; readonly savedAt: string }, V>(spec: RecordSpec<S, V>): StoreName[] {
+function stores<S extends Saved, V>(spec: RecordSpec<S, V>): StoreName[] {
   return [spec.store, STORES.tombstones, ...spec.companions];
 }
 
@@ -90,14 +93,14 @@ export async function listRecords<S>(db: Db, store: StoreName, read: (raw: unkno
   return { items, problems };
 }
 
-export async function getRecord<S extends { readonly revision: number; readonly savedAt: string }, V>(db: Db, spec: RecordSpec<S, V>, id: string): Promise<Result<S>> {
+export async function getRecord<S extends Saved, V>(db: Db, spec: RecordSpec<S, V>, id: string): Promise<Result<S>> {
   const raw: unknown = await db.get(spec.store, id);
   if (raw === undefined) return fail([notFoundIssue(id, spec.words)]);
   return spec.read(raw);
 }
 
 /** Save `value` as `mode` allows (lib/storage/policy.ts `decideSave`), in one transaction. */
-export async function saveRecord<S extends { readonly revision: number; readonly savedAt: string }, V>(
+export async function saveRecord<S extends Saved, V>(
   db: Db,
   spec: RecordSpec<S, V>,
   value: V,
@@ -112,9 +115,13 @@ export async function saveRecord<S extends { readonly revision: number; readonly
     await tx.done;
     return decided;
   }
-  const stored = spec.build(value, now, previous, decided.value.revision);
+  return writeRecord(tx, spec, id, value, spec.build(value, now, previous, decided.value.revision), tombstone !== undefined);
+}
+
+/** Writes one built record (and its companions), clears its tombstone, ends the transaction and tells the other tabs. */
+async function writeRecord<S extends Saved, V>(tx: Tx, spec: RecordSpec<S, V>, id: string, value: V, stored: S, hadTombstone: boolean): Promise<Result<S>> {
   await tx.objectStore(spec.store).put(stored);
-  if (tombstone) await tx.objectStore(STORES.tombstones).delete(tombstoneKey(spec.store, id));
+  if (hadTombstone) await tx.objectStore(STORES.tombstones).delete(tombstoneKey(spec.store, id));
   await spec.writeCompanions?.(tx, stored, value);
   await tx.done;
   announceLibraryChange(spec.kind, id, 'saved');
@@ -122,7 +129,7 @@ export async function saveRecord<S extends { readonly revision: number; readonly
 }
 
 /** Change a saved record in place (e.g. its title), reading and writing in one transaction. */
-export async function updateRecord<S extends { readonly revision: number; readonly savedAt: string }, V>(
+export async function updateRecord<S extends Saved, V>(
   db: Db,
   spec: RecordSpec<S, V>,
   id: string,
@@ -136,16 +143,11 @@ export async function updateRecord<S extends { readonly revision: number; readon
     return raw === undefined ? fail([notFoundIssue(id, spec.words)]) : spec.read(raw);
   }
   const changed = change(spec.valueOf(previous));
-  const stored = spec.build(changed, now, previous, nextRevision(current, tombstone));
-  await tx.objectStore(spec.store).put(stored);
-  await spec.writeCompanions?.(tx, stored, changed);
-  await tx.done;
-  announceLibraryChange(spec.kind, id, 'saved');
-  return ok(stored);
+  return writeRecord(tx, spec, id, changed, spec.build(changed, now, previous, nextRevision(current, tombstone)), false);
 }
 
 /** Delete a record, leaving a tombstone with its last revision. */
-export async function deleteRecord<S extends { readonly revision: number; readonly savedAt: string }, V>(db: Db, spec: RecordSpec<S, V>, id: string, now: Date): Promise<Result<void>> {
+export async function deleteRecord<S extends Saved, V>(db: Db, spec: RecordSpec<S, V>, id: string, now: Date): Promise<Result<void>> {
   const tx = db.transaction(stores(spec), 'readwrite') as Tx;
   let { current } = await currentOf(tx, spec, id);
   if (!current) {
@@ -170,7 +172,7 @@ export async function deleteRecord<S extends { readonly revision: number; readon
  * Import `values` whole (lib/storage/policy.ts `planImport`): demo ids skipped, taken ids
  * refused unless `replace`; one transaction, so a refusal changes nothing.
  */
-export async function importRecords<S extends { readonly revision: number; readonly savedAt: string }, V>(
+export async function importRecords<S extends Saved, V>(
   db: Db,
   spec: RecordSpec<S, V>,
   values: readonly V[],
