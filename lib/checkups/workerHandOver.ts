@@ -87,3 +87,13 @@ export function readWorkerHandOver(stored: string | null | undefined, today: str
   if (!history.ok) return fail(history.issues.map((i) => ({ ...i, path: ['history', ...i.path] })));
   return ok({ scenario: scenario.value, evidenceId: record.data.evidenceId, history: history.value });
 }
+
+/** What the worklist says while and after it opens one worker in the consultation screen. */
+export const OPEN_WORKER_MESSAGES = {
+  notApplicable: (worker: string) => `${worker} cannot be opened: the study\u2019s figures do not apply to this worker.`,
+  tabBlocked: 'The browser did not open a new tab. Allow this site to open new tabs (pop-ups), then choose Open again.',
+  reading: (worker: string) => `Reading ${worker}\u2019s checkups from the file…`,
+  unreadable: (worker: string, reason: string | null) => `${worker} could not be opened: the file could not be read again (${reason ?? 'unknown reason'}).`,
+  opened: (worker: string) => `${worker} is open in the consultation screen, in a new tab.`,
+  refused: (worker: string) => `${worker} could not be opened: the new tab was closed or refused the hand-over. Choose Open again.`,
+} as const;

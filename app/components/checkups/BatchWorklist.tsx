@@ -11,7 +11,7 @@
  */
 import { useCallback, useMemo, useRef, useState } from 'react';
 import { handOverToTab, openWorkerTab } from '@/app/checkups/workerHandOver';
-import { workerHandOverRecord } from '@/lib/checkups/workerHandOver';
+import { OPEN_WORKER_MESSAGES, workerHandOverRecord } from '@/lib/checkups/workerHandOver';
 import type { WorklistRow } from '@/lib/checkups/worklist';
 import { prepareCheckups, workerScenario, type WorkerResult } from '@/lib/workforce';
 import { BatchHandouts } from './BatchHandouts';
@@ -75,15 +75,15 @@ export function BatchWorklist({ rows, results, run, worker, choices = null, rank
     const result = results[row.index];
     const scenario = result && context ? workerScenario(result, context) : null;
     if (!run || !context || !scenario) {
-      setOpenMessage(`${row.worker} cannot be opened: the study\u2019s figures do not apply to this worker.`);
+      setOpenMessage(OPEN_WORKER_MESSAGES.notApplicable(row.worker));
       return;
     }
     const tab = openWorkerTab(); // straight from the click, or the browser blocks it
     if (!tab) {
-      setOpenMessage('The browser did not open a new tab. Allow this site to open new tabs (pop-ups), then choose Open again.');
+      setOpenMessage(OPEN_WORKER_MESSAGES.tabBlocked);
       return;
     }
-    setOpenMessage(`Reading ${row.worker}\u2019s checkups from the file…`);
+    setOpenMessage(OPEN_WORKER_MESSAGES.reading(row.worker));
     const w = worker();
     if (pending.current) w.removeEventListener('message', pending.current);
     const listener = (event: MessageEvent<FromWorker>) => {
@@ -93,7 +93,7 @@ export function BatchWorklist({ rows, results, run, worker, choices = null, rank
       if (pending.current === listener) pending.current = null;
       if (m.checkups === null) {
         tab.close();
-        setOpenMessage(`${row.worker} could not be opened: the file could not be read again (${m.message ?? 'unknown reason'}).`);
+        setOpenMessage(OPEN_WORKER_MESSAGES.unreadable(row.worker, m.message));
         return;
       }
       const record = workerHandOverRecord({
@@ -104,9 +104,7 @@ export function BatchWorklist({ rows, results, run, worker, choices = null, rank
         checkups: m.checkups,
       });
       setOpenMessage(
-        handOverToTab(tab, record)
-          ? `${row.worker} is open in the consultation screen, in a new tab.`
-          : `${row.worker} could not be opened: the new tab was closed or refused the hand-over. Choose Open again.`,
+        handOverToTab(tab, record) ? OPEN_WORKER_MESSAGES.opened(row.worker) : OPEN_WORKER_MESSAGES.refused(row.worker),
       );
     };
     pending.current = listener;

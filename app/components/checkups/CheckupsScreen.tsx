@@ -6,6 +6,7 @@
  */
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useHydrated } from '@/app/components/useHydrated';
+import { localIsoDate } from '@/lib/glycaemia/dates';
 import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
 import { checkupsProgressView } from '@/lib/checkups/progress';
 import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
@@ -22,13 +23,6 @@ import { BatchWorklist, type CheckupsRunInput } from './BatchWorklist';
 import { SummaryPanel } from './SummaryPanel';
 import { ProblemsPanel } from './ProblemsPanel';
 import './checkups.css';
-
-/** Nothing to listen to: the value only differs between the server's HTML and the browser. */
-
-function localToday(): string {
-  const d = new Date();
-  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
-}
 
 type Phase = 'setup' | 'columns' | 'running' | 'done';
 
@@ -98,7 +92,7 @@ export function CheckupsScreen() {
       restore(m.setup);
       setFromSession(true);
       // A session keeps no file: batch handouts work from the results; opening one worker needs the file.
-      setRunInput({ files: [], kind: m.kind, today: localToday(), mapping: m.mapping, confirmedMapping: m.mapping, evidence: m.setup.evidence, table: m.setup.table, criteria: m.setup.criteria, horizon: m.setup.horizonYears });
+      setRunInput({ files: [], kind: m.kind, today: localIsoDate(), mapping: m.mapping, confirmedMapping: m.mapping, evidence: m.setup.evidence, table: m.setup.table, criteria: m.setup.criteria, horizon: m.setup.horizonYears });
     } else if (m.type === 'session-refused') {
       setSessionMessages([...m.messages]);
       setPhase('setup');
@@ -173,7 +167,7 @@ export function CheckupsScreen() {
     }
     setFiles(list);
     setKind(found.kind);
-    send({ type: 'preview', file: first, kind: found.kind, today: localToday() });
+    send({ type: 'preview', file: first, kind: found.kind, today: localIsoDate() });
   };
 
   const mapping: ColumnMapping | null = useMemo(() => {
@@ -196,7 +190,7 @@ export function CheckupsScreen() {
         // storage unavailable: the correction holds for this file only
       }
     }
-    const input: CheckupsRunInput = { files, kind, today: localToday(), mapping: corrected ? mapping : null, confirmedMapping: mapping, evidence, table, criteria, horizon: h };
+    const input: CheckupsRunInput = { files, kind, today: localIsoDate(), mapping: corrected ? mapping : null, confirmedMapping: mapping, evidence, table, criteria, horizon: h };
     setRunInput(input);
     send({ type: 'run', ...input });
   };
@@ -221,9 +215,9 @@ export function CheckupsScreen() {
 
   const cancel = () => send({ type: 'cancel' });
 
-  const exportContext = () => ({ evidenceTitle: evidence?.title ?? '', evidenceId: evidence?.id ?? '', tableTitle: table?.title ?? '', tableId: table?.id ?? '', criteria, date: localToday() });
-  const exportWorkers = () => downloadText(checkupsFileNames(localToday()).workers, workersCsv(results, exportContext()), 'text/csv');
-  const exportSummary = () => summary && downloadText(checkupsFileNames(localToday()).summary, summaryCsv(summary, exportContext()), 'text/csv');
+  const exportContext = () => ({ evidenceTitle: evidence?.title ?? '', evidenceId: evidence?.id ?? '', tableTitle: table?.title ?? '', tableId: table?.id ?? '', criteria, date: localIsoDate() });
+  const exportWorkers = () => downloadText(checkupsFileNames(localIsoDate()).workers, workersCsv(results, exportContext()), 'text/csv');
+  const exportSummary = () => summary && downloadText(checkupsFileNames(localIsoDate()).summary, summaryCsv(summary, exportContext()), 'text/csv');
 
   const progressView = progress ? checkupsProgressView(progress.p, files.reduce((s, f) => s + f.size, 0), progress.elapsed) : null;
   const skipped = summary ? summary.rows.skipped : 0;

@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { collectWorkerRows, collectWorkerRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
-import { readWorkerHandOver, WORKER_HANDOVER_FORMAT, workerHandOverRecord } from '@/lib/checkups/workerHandOver';
+import { OPEN_WORKER_MESSAGES, readWorkerHandOver, WORKER_HANDOVER_FORMAT, workerHandOverRecord } from '@/lib/checkups/workerHandOver';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { Checkup } from '@/lib/glycaemia/schema';
 import type { Scenario } from '@/lib/scenario/schema';
@@ -122,5 +122,14 @@ describe('workerHandOverRecord / readWorkerHandOver', () => {
     const early = readWorkerHandOver(record, '2024-01-01');
     expect(early?.ok).toBe(false);
     if (early && !early.ok) expect(early.issues[0]?.path[0]).toBe('history');
+  });
+});
+
+describe('OPEN_WORKER_MESSAGES', () => {
+  // The words the worklist shows; the browser test checks the "opened" one on screen.
+  it('name the worker and say what to do', () => {
+    expect(OPEN_WORKER_MESSAGES.opened('W001')).toBe('W001 is open in the consultation screen, in a new tab.');
+    expect(OPEN_WORKER_MESSAGES.unreadable('W001', null)).toBe('W001 could not be opened: the file could not be read again (unknown reason).');
+    expect(OPEN_WORKER_MESSAGES.refused('W001')).toBe('W001 could not be opened: the new tab was closed or refused the hand-over. Choose Open again.');
   });
 });
