@@ -9,6 +9,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import Link from 'next/link';
 import { loadHistoryForHandout } from '@/app/handout/historyHandOver';
 import { useTemplates } from '@/app/handout/useTemplates';
+import { downloadText } from '@/app/components/library/download';
 import {
   DEFAULT_BLOCKS,
   HANDOUT_AUDIENCE_KEYS,
@@ -35,17 +36,6 @@ import { TemplatePanel } from './TemplatePanel';
 export interface HandoutScreenProps {
   /** The scenario link's fragment, "#br=0.08&…" (or empty); an old query "?br=…" is read too. */
   readonly query: string;
-}
-
-function download(fileName: string, text: string) {
-  const url = URL.createObjectURL(new Blob([text], { type: 'application/json' }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = fileName;
-  document.body.append(a);
-  a.click();
-  a.remove();
-  URL.revokeObjectURL(url);
 }
 
 /**
@@ -261,7 +251,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
           onDelete={(record) => templates.remove(record)}
           onExport={async () => {
             const { text, ...outcome } = await templates.exportFile();
-            if (text !== undefined) download('hundredfold-handout-templates.json', text);
+            if (text !== undefined) downloadText('hundredfold-handout-templates.json', text, 'application/json');
             return outcome;
           }}
           onImport={(text) => templates.importFile(text)}
