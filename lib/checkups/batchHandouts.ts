@@ -206,6 +206,8 @@ export const BATCH_MESSAGES = {
   /** The file could not be read again: the handouts are made without own results. */
   unreadable: (why: string) => `The workers\u2019 own results could not be read again from the file, so these handouts print without them. ${why.replace(/\.?$/, '.')}`,
   preparing: (done: number, total: number) => `Preparing handout ${done.toLocaleString('en')} of ${total.toLocaleString('en')}\u2026`,
+  /** The small print under a sheet when the physician ticks "print each worker's id". */
+  idLine: (worker: string) => `Worker ${worker}`,
   /** A worker whose history /handout's checks refused: their handout prints without it. */
   leftOff: (worker: string, why: string) => `${worker}: the handout prints without their own results. ${why}`,
 } as const;
