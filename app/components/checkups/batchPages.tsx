@@ -104,10 +104,11 @@ export function createPageDrawer(): PageDrawer {
       page.className = 'batch-print__page';
       page.append(sheet);
       if (handout.workerId !== undefined) {
+        // In small print at the right of the sheet's title line, where it takes no height of its own.
         const id = document.createElement('p');
         id.className = 'batch-print__id';
         id.textContent = BATCH_MESSAGES.idLine(handout.workerId);
-        page.append(id);
+        (sheet.querySelector('.sheet__header') ?? page).append(id);
       }
       return page;
     },
