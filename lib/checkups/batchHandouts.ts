@@ -9,7 +9,8 @@
  *   checks (lib/handout `readHandOver`), so "Your own results" is worded as /handout words it;
  * - the sheet is lib/handout `handoutPageView` given that scenario's link fragment (lib/link
  *   `scenarioFragment`) and that record, i.e. the very call /handout makes when it opens that
- *   link, with the same default template, paper and date.
+ *   link, with the same default template, paper and date (less the editor's reading grades,
+ *   which are not printed: `grades: false`).
  * Without checkups (a saved session keeps no file to read them from) the sheet has no own
  * results, as /handout's has when nothing was handed over.
  *
@@ -126,7 +127,8 @@ export function batchHandout(result: WorkerResult, index: number, context: Check
     };
   }
   const storedHistory = checkups === undefined ? null : handOverRecord(scenario, { criteria: context.criteria, checkups });
-  const view = handoutPageView(scenarioFragment(scenario), options.template ?? DEFAULT_TEMPLATE, { date: options.date, paper: options.paper, table: context.table, storedHistory });
+  // No reading grades: no one edits these sheets, and nothing printed depends on them.
+  const view = handoutPageView(scenarioFragment(scenario), options.template ?? DEFAULT_TEMPLATE, { date: options.date, paper: options.paper, table: context.table, storedHistory, grades: false });
   if (view.kind === 'problem') {
     return { kind: 'skipped', index, worker: result.worker, reason: view.problem.kind, message: view.problem.heading };
   }

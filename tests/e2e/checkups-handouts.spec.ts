@@ -22,10 +22,11 @@ import { expect, test, type Page } from '@playwright/test';
 import { BATCH_MESSAGES } from '../../lib/checkups/batchHandouts';
 import { WORKER_HANDOVER_KEY } from '../../lib/checkups/workerHandOverKey';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '../../lib/evidence/demo';
-import { DEFAULT_BLOCKS, handoutSheet } from '../../lib/handout';
+import { DEFAULT_BLOCKS, HANDOUT_HISTORY_KEY, handOverRecord, handoutSheet } from '../../lib/handout';
 import type { Scenario } from '../../lib/scenario/schema';
 import { baselineOf, DEMO_HEART_FAILURE_10Y } from '../../lib/tables';
 import { CAUTION_HEADING, CAUTION_TEXT } from '../../lib/wording';
+import { openHandout } from './handoutSupport';
 import { DEMO_CHECKUPS, expectScreenShows, openAndProcessCheckups, WCAG_TAGS } from './support';
 
 const OUT = path.join('test-results', 'checkups-handouts');
@@ -75,6 +76,21 @@ const PRINTED = [
     ],
   },
 ] as const;
+/** W001's five checkups as in the file (lines 3–7): what the consultation screen hands /handout for W001. */
+const W001_CHECKUPS = [
+  ['2021-04-06', 5.9, 5.4],
+  ['2022-05-17', 6, 5.2],
+  ['2023-03-01', 6.1, 5.5],
+  ['2024-04-12', 6, 5.3],
+  ['2025-05-23', 6.2, 5.6],
+].map(([date, hba1c, fpg]) => ({ date: String(date), hba1c: { value: Number(hba1c), unit: '%' as const }, fpg: { value: Number(fpg), unit: 'mmol/L' as const } }));
+
+/** Each word of a PDF page and where it is (pdftotext -bbox), to compare two printed layouts. */
+function wordBoxes(pdfPath: string, pageNumber: number): { word: string; x: number; y: number }[] {
+  const xml = execFileSync('pdftotext', ['-bbox', '-f', String(pageNumber), '-l', String(pageNumber), pdfPath, '-']).toString();
+  return [...xml.matchAll(/<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="[\d.]+" yMax="[\d.]+">([^<]*)<\/word>/g)].map((m) => ({ word: m[3] ?? '', x: Number(m[1]), y: Number(m[2]) }));
+}
+
 /** The last sentences of every worker's own results (lib/wording/ownResults.ts: always said; ADA is the run's criteria set). */
 const OWN_ALWAYS = ['Your own results', 'A range is not a diagnosis.', 'Ranges as set by the American Diabetes Association (ADA).'];
 
@@ -162,6 +178,23 @@ test('batch handouts: ticked workers print one page each in one PDF, each with i
     expect(text, worker).not.toMatch(/W0\d\d/);
     for (const other of PRINTED) if (other.worker !== worker) expect(text, worker).not.toContain(other.own[0]);
   });
+  // Exactly /handout's sheet: W001's handout made on /handout from the same scenario and the same
+  // history (handed over as the consultation screen hands it) prints every word in the same place.
+  const handout = await page.context().newPage();
+  await handout.addInitScript(([key, value]) => window.sessionStorage.setItem(key, value), [HANDOUT_HISTORY_KEY, handOverRecord(PRINTED[0].scenario, { criteria: 'ADA', checkups: W001_CHECKUPS })] as const);
+  await openHandout(handout, PRINTED[0].scenario);
+  await expect(handout.getByTestId('handout-own-results')).toBeVisible();
+  const handoutPdf = path.join(OUT, 'handout-w001-a4.pdf');
+  writeFileSync(handoutPdf, await handout.pdf({ preferCSSPageSize: true, printBackground: true }));
+  await handout.close();
+  const alone = wordBoxes(handoutPdf, 1);
+  const inBatch = wordBoxes(path.join(OUT, 'ticked-a4.pdf'), 1);
+  expect(inBatch.map((w) => w.word)).toEqual(alone.map((w) => w.word));
+  inBatch.forEach((w, i) => {
+    expect(Math.abs(w.x - (alone[i]?.x ?? NaN)), `"${w.word}" across`).toBeLessThan(0.5); // points
+    expect(Math.abs(w.y - (alone[i]?.y ?? NaN)), `"${w.word}" down`).toBeLessThan(0.5);
+  });
+
   for (const width of [1280, 390]) {
     await page.setViewportSize({ width, height: 900 });
     const report = await new AxeBuilder({ page }).include('[data-testid="batch"]').withTags(WCAG_TAGS).analyze();

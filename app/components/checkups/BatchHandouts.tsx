@@ -32,7 +32,7 @@ import {
 import type { Checkup } from '@/lib/glycaemia/schema';
 import { PAPER_SIZE_KEYS, PAPER_SIZES, pageRule, type PaperSize } from '@/lib/handout/paper';
 import type { CheckupsContext, WorkerResult } from '@/lib/workforce';
-import { createPageDrawer, type SheetHandout } from './batchPages';
+import { createPageDrawer, nextTask, type SheetHandout } from './batchPages';
 import type { ReadHistories } from './workerHistories';
 import '@/app/components/handout/handout.css';
 
@@ -40,16 +40,7 @@ import '@/app/components/handout/handout.css';
  * Work done between two pauses, in milliseconds: well under the 50 ms a task may take (the
  * longest single step, one worker's sheet and page, takes a few milliseconds).
  */
-const SLICE_MS = 20;
-
-/** Lets the browser handle input and draw before the next slice (a task of its own, no 4 ms clamp). */
-function nextTask(): Promise<void> {
-  return new Promise((resolve) => {
-    const channel = new MessageChannel();
-    channel.port1.onmessage = () => resolve();
-    channel.port2.postMessage(null);
-  });
-}
+const SLICE_MS = 10;
 
 interface Job {
   readonly id: number;
@@ -111,6 +102,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
     let cancelRead: (() => void) | null = null;
     const update = (change: Partial<Job>) => setJob((j) => (j && j.id === jobId ? { ...j, ...change } : j));
     const options = { paper, date: new Date(), showIds };
+    const drawer = createPageDrawer();
 
     const prepare = async () => {
       let histories: ReadonlyMap<string, readonly Checkup[]> | undefined;
@@ -126,7 +118,6 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
       }
       update({ stage: 'preparing' });
       await nextTask();
-      const drawer = createPageDrawer();
       const list: BatchHandout[] = [];
       let pages = 0;
       let sliceStart = performance.now();
@@ -160,6 +151,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
       cancelled = true;
       cancelRead?.();
       container.replaceChildren();
+      drawer.dispose();
     };
     // The job's settings are fixed when it starts (a change clears the job): only a new job restarts this.
     // eslint-disable-next-line react-hooks/exhaustive-deps

@@ -2,20 +2,28 @@
  * Batch handouts: which workers are chosen (hand-worked counts), and that each sheet is exactly
  * the one lib/handout makes for the worker's scenario (handoutSheet is tested on its own in
  * tests/unit/handout/sheet.test.ts, so calling it here for the expected value is legitimate: the
- * code under test is the choice of scenario and the wiring, not the sheet).
+ * code under test is the choice of scenario and the wiring, not the sheet). Batch sheets leave
+ * out the editor's reading grades (`grades: false`, not printed): {@link printed} compares the
+ * rest with /handout's own sheet.
  */
 import { describe, expect, it } from 'vitest';
 import { BATCH_MESSAGES, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection } from '@/lib/checkups/batchHandouts';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { Checkup } from '@/lib/glycaemia/schema';
-import { DEFAULT_BLOCKS, handoutSheet, ILLUSTRATIVE_BAND_HEADING } from '@/lib/handout';
+import { DEFAULT_BLOCKS, handoutSheet, ILLUSTRATIVE_BAND_HEADING, type HandoutSheet } from '@/lib/handout';
 import type { Scenario } from '@/lib/scenario/schema';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
 import { prepareCheckups, type CheckupsContext, type WorkerResult } from '@/lib/workforce';
 import { C003, W001, W002 } from './fixtures';
 
 const DATE = new Date(2025, 4, 12, 12); // 12 May 2025, local noon
+
+/** A sheet less its reading grades (editor-only, never printed, left out of batch sheets). */
+function printed(sheet: HandoutSheet): Omit<HandoutSheet, 'readability'> {
+  const { readability: _grades, ...rest } = sheet;
+  return rest;
+}
 
 function contextFor(evidence: EvidenceEntry): CheckupsContext {
   const prepared = prepareCheckups({ evidence, table: DEMO_HEART_FAILURE_10Y, criteria: 'ADA' });
@@ -64,7 +72,8 @@ describe('batchHandout: the sheet is the one /handout makes for the worker’s s
     const got = batchHandout(W001, 0, CONTEXT, { paper: 'a4', date: DATE, showIds: false });
     expect(got.kind).toBe('sheet');
     if (got.kind !== 'sheet') return;
-    expect(got.sheet).toEqual(expected.value);
+    expect(printed(got.sheet)).toEqual(printed(expected.value));
+    expect(got.sheet.readability).toEqual({ blocks: [], whole: '', wholeGrade: undefined });
     expect(got.workerId).toBeUndefined();
     // Demo table and demo study: the band is on the sheet (lib/handout/illustrative.ts).
     expect(got.sheet.illustrative?.heading).toBe(ILLUSTRATIVE_BAND_HEADING);
@@ -91,7 +100,7 @@ describe('batchHandout: the sheet is the one /handout makes for the worker’s s
     if (!expected.ok) throw new Error('the hand-written scenario must give a sheet');
     const got = batchHandout(M064, 3, CONTEXT, { paper: 'a4', date: DATE, showIds: false });
     if (got.kind !== 'sheet') throw new Error('M064 must get a sheet');
-    expect(got.sheet).toEqual(expected.value);
+    expect(printed(got.sheet)).toEqual(printed(expected.value));
     expect(got.index).toBe(3);
   });
 
@@ -134,7 +143,7 @@ describe('batchHandout with the worker’s checkups: their own results, as /hand
     if (!expected.ok) throw new Error('the hand-written scenario must give a sheet');
     const got = batchHandout(W001, 0, CONTEXT, { paper: 'a4', date: LATER, showIds: false }, W001_CHECKUPS);
     if (got.kind !== 'sheet') throw new Error('W001 must get a sheet');
-    expect(got.sheet).toEqual(expected.value);
+    expect(printed(got.sheet)).toEqual(printed(expected.value));
     expect(got.historyLeftOff).toBeUndefined();
     // Hand-written from the file: HbA1c 5.9 … 6.2 %, every checkup 9 to 13 months after the one
     // before (yearly: 6 to 18 months, lib/glycaemia/persistence.ts), 2021 to 2025; ADA the run's criteria set.
