@@ -292,3 +292,34 @@ test('a saved session keeps no file: the screen says before printing that the ha
   await page.getByRole('button', { name: `Delete ${name}` }).click();
   await page.getByRole('group', { name: `Delete the session ${name}?` }).getByRole('button', { name: 'Delete', exact: true }).click();
 });
+
+/**
+ * An invented workforce for a long batch: 600 workers (X0001 …), three yearly HbA1c results each
+ * in the prediabetes range (ADA 5.7–6.4%), ages 40 to 69, women and men in turn, so all 600 fit the
+ * demo study's exposure.
+ */
+function inventedWorkforce(): string {
+  const lines = ['Worker,Checkup date,HbA1c (%),Age,Sex'];
+  for (let w = 1; w <= 600; w++) {
+    for (let y = 0; y < 3; y++) lines.push(`X${String(w).padStart(4, '0')},${2022 + y}-04-${String(1 + (w % 28)).padStart(2, '0')},${(5.8 + ((w + y) % 5) / 10).toFixed(1)},${40 + (w % 30) + y},${w % 2 ? 'female' : 'male'}`);
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+test('a long batch shows its progress and can be cancelled: nothing is kept, and Prepare is back', async ({ page }) => {
+  test.slow();
+  await openAndProcessCheckups(page, { name: 'invented.csv', mimeType: 'text/csv', buffer: Buffer.from(inventedWorkforce()) });
+  await page.getByLabel(/^All workers who fit the exposure/).check();
+  const prepare = page.getByRole('button', { name: 'Prepare 600 handouts' });
+  await prepare.click();
+  const progress = page.getByTestId('batch-progress');
+  await expect(progress.getByRole('progressbar')).toBeVisible();
+  await expect(progress).toContainText(/Reading the chosen workers’ results again from the file…|Preparing handout \d+ of 600…/);
+  await expect(prepare).toBeDisabled();
+  await page.getByRole('button', { name: 'Cancel', exact: true }).click();
+  await expect(progress).toHaveCount(0);
+  await expect(page.getByTestId('batch-print')).toHaveCount(0); // the prepared pages are gone with the job
+  await expect(page.getByTestId('batch-status')).toHaveText('');
+  await expect(prepare).toBeEnabled();
+  await expect(page.getByTestId('batch-print-button')).toHaveCount(0);
+});
