@@ -28,7 +28,7 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { fileURLToPath } from 'node:url';
 import { chromium } from '@playwright/test';
 import { batchHandout, batchSelection, type BatchHandout } from '../lib/checkups/batchHandouts';
 import { collectWorkersRows, workerCheckups } from '../lib/checkups/workerHistory';
@@ -37,7 +37,7 @@ import { localIsoDate } from '../lib/glycaemia/dates';
 import { DEMO_HEART_FAILURE_10Y } from '../lib/tables/demo';
 import { CAUTION_TEXT } from '../lib/wording';
 import { isRefusal, prepareCheckups, runCheckups, type WorkerResult } from '../lib/workforce';
-import type { Figure } from './figure';
+import { runWhenAlone, type Figure } from './figure';
 import { writeWorkforce } from './checkups.bench';
 import { sparePort, startServer, stopServer } from './page.bench';
 
@@ -183,14 +183,4 @@ export async function run(): Promise<Figure[]> {
   }
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  run().then(
-    (figures) => {
-      for (const f of figures) process.stdout.write(`${f.name}: ${f.value} ${f.unit}${f.target === undefined ? '' : ` (target ≤ ${f.target})`}\n`);
-    },
-    (error: unknown) => {
-      process.stderr.write(`batch handouts bench failed: ${error instanceof Error ? error.message : String(error)}\n`);
-      process.exitCode = 1;
-    },
-  );
-}
+runWhenAlone(import.meta.url, run, 'batch handouts bench');

@@ -26,6 +26,7 @@ import { DEFAULT_BLOCKS, HANDOUT_HISTORY_KEY, handOverRecord, handoutSheet } fro
 import type { Scenario } from '../../lib/scenario/schema';
 import { baselineOf, DEMO_HEART_FAILURE_10Y } from '../../lib/tables';
 import { CAUTION_HEADING, CAUTION_TEXT } from '../../lib/wording';
+import { W001_CHECKUPS } from '../unit/checkups/fixtures'; // W001's checkups as in the file: what the consultation screen hands /handout
 import { openHandout } from './handoutSupport';
 import { DEMO_CHECKUPS, expectScreenShows, openAndProcessCheckups, WCAG_TAGS } from './support';
 
@@ -76,15 +77,6 @@ const PRINTED = [
     ],
   },
 ] as const;
-/** W001's five checkups as in the file (lines 3–7): what the consultation screen hands /handout for W001. */
-const W001_CHECKUPS = [
-  ['2021-04-06', 5.9, 5.4],
-  ['2022-05-17', 6, 5.2],
-  ['2023-03-01', 6.1, 5.5],
-  ['2024-04-12', 6, 5.3],
-  ['2025-05-23', 6.2, 5.6],
-].map(([date, hba1c, fpg]) => ({ date: String(date), hba1c: { value: Number(hba1c), unit: '%' as const }, fpg: { value: Number(fpg), unit: 'mmol/L' as const } }));
-
 /** Each word of a PDF page and where it is (pdftotext -bbox), to compare two printed layouts. */
 function wordBoxes(pdfPath: string, pageNumber: number): { word: string; x: number; y: number }[] {
   const xml = execFileSync('pdftotext', ['-bbox', '-f', String(pageNumber), '-l', String(pageNumber), pdfPath, '-']).toString();

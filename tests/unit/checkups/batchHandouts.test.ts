@@ -15,7 +15,7 @@ import { DEFAULT_BLOCKS, handoutSheet, ILLUSTRATIVE_BAND_HEADING, type HandoutSh
 import type { Scenario } from '@/lib/scenario/schema';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
 import { prepareCheckups, type CheckupsContext, type WorkerResult } from '@/lib/workforce';
-import { C003, W001, W002 } from './fixtures';
+import { C003, W001, W001_CHECKUPS, W002 } from './fixtures';
 
 const DATE = new Date(2025, 4, 12, 12); // 12 May 2025, local noon
 
@@ -120,14 +120,6 @@ describe('batchHandout: the sheet is the one /handout makes for the worker’s s
   });
 });
 
-/** W001's five checkups, demo/checkups/checkups.csv lines 3–7 (HbA1c %, fasting glucose mmol/L). */
-const W001_CHECKUPS: Checkup[] = [
-  { date: '2021-04-06', hba1c: { value: 5.9, unit: '%' }, fpg: { value: 5.4, unit: 'mmol/L' } },
-  { date: '2022-05-17', hba1c: { value: 6, unit: '%' }, fpg: { value: 5.2, unit: 'mmol/L' } },
-  { date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 5.5, unit: 'mmol/L' } },
-  { date: '2024-04-12', hba1c: { value: 6, unit: '%' }, fpg: { value: 5.3, unit: 'mmol/L' } },
-  { date: '2025-05-23', hba1c: { value: 6.2, unit: '%' }, fpg: { value: 5.6, unit: 'mmol/L' } },
-];
 /** Invented: three yearly HbA1c results only, for a second worker of W001's stratum. */
 const OTHER_CHECKUPS: Checkup[] = [
   { date: '2022-03-01', hba1c: { value: 5.8, unit: '%' } },
