@@ -125,21 +125,33 @@ export function keepIndex(columns: WorklistColumns, filter: WorklistFilter): (in
   return (i) => (status === null || columns.status[i] === status) && (category === null || columns.category[i] === category) && (stratumCode === null || stratum?.codes[i] === stratumCode);
 }
 
+const FILE_ORDER = new WeakMap<WorklistColumns, Int32Array>();
+
+/**
+ * Every row's position in the file's order (0, 1, 2, …), made once for the columns and then
+ * remembered: what the worklist shows before any filter or sort.
+ */
+export function fileOrder(columns: WorklistColumns): Int32Array {
+  let order = FILE_ORDER.get(columns);
+  if (!order) {
+    order = new Int32Array(columns.count);
+    for (let i = 0; i < order.length; i++) order[i] = i;
+    FILE_ORDER.set(columns, order);
+  }
+  return order;
+}
+
 /**
  * The positions of the rows shown, in order: `order` (a sort's row positions, ./worklistOrder.ts
- * `orderByRanks`) or the file's order when null, keeping the rows that pass the filter.
+ * `orderByRanks`) or the file's order when null, keeping the rows that pass the filter. Without a
+ * filter this is `order` (or {@link fileOrder}) itself: never change what it gives.
  *
  * @example
  * arrangeColumns(columns, { status: 'exposed' }, null) //=> Int32Array [0, 2] (rows 0 and 2 exposed)
  */
 export function arrangeColumns(columns: WorklistColumns, filter: WorklistFilter, order: Int32Array | null): Int32Array {
   const n = order ? order.length : columns.count;
-  if (!filter.status && !filter.category && !filter.stratum) {
-    if (order) return order;
-    const all = new Int32Array(n);
-    for (let i = 0; i < n; i++) all[i] = i;
-    return all;
-  }
+  if (!filter.status && !filter.category && !filter.stratum) return order ?? fileOrder(columns);
   const keep = keepIndex(columns, filter);
   const out = new Int32Array(n);
   let kept = 0;

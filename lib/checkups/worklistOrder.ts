@@ -99,6 +99,48 @@ export function orderByRanks(ranks: Int32Array, direction: WorklistSort['directi
   return order;
 }
 
+/** Each column's rows in sorted order, both ways, as {@link orderByRanks} gives them. */
+export type WorklistOrders = Readonly<Partial<Record<WorklistColumn, { readonly ascending: Int32Array; readonly descending: Int32Array }>>>;
+
+/** Every column's orders both ways, from its ranks (made in the worker, so a sort on the page has nothing to compute). */
+export function worklistOrders(ranks: WorklistRanks): WorklistOrders {
+  const out: Partial<Record<WorklistColumn, { ascending: Int32Array; descending: Int32Array }>> = {};
+  for (const { key } of WORKLIST_COLUMNS) {
+    const r = ranks[key];
+    if (r) out[key] = { ascending: orderByRanks(r, 'ascending'), descending: orderByRanks(r, 'descending') };
+  }
+  return out;
+}
+
+const ORDERS = new WeakMap<Int32Array, { ascending?: Int32Array; descending?: Int32Array }>();
+
+/**
+ * {@link orderByRanks}, made once per ranks and direction and then remembered (or given ahead by
+ * {@link rememberOrders}).
+ */
+export function sortedOrder(ranks: Int32Array, direction: WorklistSort['direction']): Int32Array {
+  let known = ORDERS.get(ranks);
+  if (!known) {
+    known = {};
+    ORDERS.set(ranks, known);
+  }
+  return (known[direction] ??= orderByRanks(ranks, direction));
+}
+
+/**
+ * Remembers each column's orders made elsewhere (the worker's {@link worklistOrders}) for its ranks.
+ * @throws RangeError when an order is not as long as its column's ranks
+ */
+export function rememberOrders(ranks: WorklistRanks, orders: WorklistOrders): void {
+  for (const { key } of WORKLIST_COLUMNS) {
+    const r = ranks[key];
+    const o = orders[key];
+    if (!r || !o) continue;
+    if (o.ascending.length !== r.length || o.descending.length !== r.length) throw new RangeError(`the orders of the ${key} column are not for its ${r.length} rows`);
+    ORDERS.set(r, { ascending: o.ascending, descending: o.descending });
+  }
+}
+
 /**
  * The rows shown, as {@link arrangeWorklist} gives them, using the column's ranks when they are
  * known for these rows (rows[i].index === i) and the plain sort otherwise.

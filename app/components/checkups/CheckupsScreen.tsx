@@ -11,13 +11,13 @@ import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/
 import { checkupsProgressView } from '@/lib/checkups/progress';
 import type { WorklistRow } from '@/lib/checkups/worklist';
 import { packedChunkResults } from '@/lib/checkups/packedResults';
-import { attachColumns, lazyWorklistRows } from '@/lib/checkups/worklistColumns';
+import { attachColumns, fileOrder, lazyWorklistRows } from '@/lib/checkups/worklistColumns';
 import { decodeMappingMemory, encodeMappingMemory, mappingMemoryKey } from '@/lib/checkups/mappingMemory';
 import { checkupsFileNames, summaryCsv } from '@/lib/checkups/exportCsv';
 import { downloadText } from '@/app/components/library/download';
 import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type WorkerResult, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
 import { newSessionId } from '@/lib/checkups/session';
-import type { WorklistRanks } from '@/lib/checkups/worklistOrder';
+import { rememberOrders, type WorklistRanks } from '@/lib/checkups/worklistOrder';
 import type { FileKindName, FilterChoices, FromWorker, ToWorker } from './protocol';
 import { SetupPanel, useCheckupsSetup } from './SetupPanel';
 import { SessionPanel, type SaveState } from './SessionPanel';
@@ -32,10 +32,11 @@ type Phase = 'setup' | 'columns' | 'running' | 'done';
 /**
  * What of the results is on screen, added one step at a time after a run, each step in its own
  * task after the previous one was painted, so no step holds up the page for long: the summary's
- * text and tables first, then the exports, problems and worklist, then the summary's chart (drawn
- * in steps of its own, ./SummaryPanel.tsx).
+ * text and tables first, then its chart (drawn in steps of its own, ./SummaryPanel.tsx, while the
+ * page is still small: recharts measures text, which lays out the whole page), then the exports,
+ * problems and worklist once the chart is drawn.
  */
-const SHOWN_STEPS = ['summary', 'worklist', 'chart'] as const;
+const SHOWN_STEPS = ['summary', 'chart', 'worklist'] as const;
 
 export function CheckupsScreen() {
   // False in the server's HTML, true once the page runs: the file input waits for its handler.
@@ -97,12 +98,15 @@ export function CheckupsScreen() {
       for (const r of lazyWorklistRows(chunk, m.chunk.first)) pending.current.rows.push(r);
     } else if (m.type === 'columns') {
       attachColumns(pending.current.rows, m.columns);
+      fileOrder(m.columns); // made now, in this message's task, rather than when the worklist first shows
+
     } else if (m.type === 'export-workers') {
       if (m.text !== null && exportName.current) downloadText(exportName.current, m.text, 'text/csv');
       exportName.current = null;
     } else if (m.type === 'choices') {
       setChoices(m.choices);
     } else if (m.type === 'ranks') {
+      rememberOrders(m.ranks, m.orders);
       setRanks(m.ranks);
     } else if (m.type === 'session-saved') {
       setSaveState(m.messages.length === 0 ? { status: 'saved' } : { status: 'failed', messages: m.messages });
@@ -244,11 +248,14 @@ export function CheckupsScreen() {
   const exportSummary = () => summary && downloadText(checkupsFileNames(localIsoDate()).summary, summaryCsv(summary, exportContext()), 'text/csv');
 
   // After a run: the next step on screen once this one is painted.
-  useEffect(() => {
-    if (phase !== 'done' || shownSteps === 0 || shownSteps >= SHOWN_STEPS.length) return;
-    return afterNextPaint(() => setShownSteps((n) => Math.min(n + 1, SHOWN_STEPS.length)));
-  }, [phase, shownSteps]);
   const shows = (step: (typeof SHOWN_STEPS)[number]) => shownSteps > SHOWN_STEPS.indexOf(step);
+  const chartShown = shows('chart');
+  useEffect(() => {
+    // The step after the chart waits for the chart to say it is drawn.
+    if (phase !== 'done' || shownSteps === 0 || shownSteps >= SHOWN_STEPS.length || chartShown) return;
+    return afterNextPaint(() => setShownSteps((n) => Math.min(n + 1, SHOWN_STEPS.length)));
+  }, [phase, shownSteps, chartShown]);
+  const chartDrawn = useCallback(() => setShownSteps((n) => Math.max(n, SHOWN_STEPS.indexOf('worklist') + 1)), []);
 
   const progressView = progress ? checkupsProgressView(progress.p, files.reduce((s, f) => s + f.size, 0), progress.elapsed) : null;
   const skipped = summary ? summary.rows.skipped : 0;
@@ -369,7 +376,7 @@ export function CheckupsScreen() {
 
       {phase === 'done' && summary ? (
         <>
-          <SummaryPanel summary={summary} outcome={evidence?.wording.outcome ?? 'the outcome'} chart={shows('chart')} />
+          <SummaryPanel summary={summary} outcome={evidence?.wording.outcome ?? 'the outcome'} chart={chartShown} onChartDrawn={chartDrawn} />
         </>
       ) : null}
       {phase === 'done' && summary && shows('worklist') ? (

@@ -18,14 +18,16 @@ import type { WorkforceSummary } from '@/lib/workforce';
 /** The chart's parts, drawn one step at a time: the chart, its bars, the category axis, the number axis, the grid. */
 const CHART_STEPS = 5;
 
-export function SummaryPanel({ summary, outcome, chart = true }: { summary: WorkforceSummary; outcome: string; chart?: boolean }) {
+export function SummaryPanel({ summary, outcome, chart = true, onChartDrawn }: { summary: WorkforceSummary; outcome: string; chart?: boolean; onChartDrawn?: () => void }) {
   const view = useMemo(() => checkupsSummaryView(summary, outcome), [summary, outcome]);
   const [drawn, setDrawn] = useState(0);
-  useEffect(() => {
-    if (!chart || drawn >= CHART_STEPS) return;
-    return afterNextPaint(() => setDrawn((d) => d + 1));
-  }, [chart, drawn]);
   const complete = drawn >= CHART_STEPS;
+  useEffect(() => {
+    if (!chart) return;
+    // Drawn: said once it is painted, so what comes next starts in a task of its own.
+    if (complete) return onChartDrawn ? afterNextPaint(onChartDrawn) : undefined;
+    return afterNextPaint(() => setDrawn((d) => d + 1));
+  }, [chart, complete, drawn, onChartDrawn]);
   const data = useMemo(() => [...view.chart], [view]);
   return (
     <section aria-labelledby="summary-heading" className="checkups__section" data-testid="summary">

@@ -12,7 +12,7 @@
 import { Fragment, useEffect, useMemo, useRef, useState } from 'react';
 import { useVirtualizer } from '@tanstack/react-virtual';
 import { STATUS_LABELS, WORKLIST_COLUMNS, type WorklistColumn, type WorklistRow, type WorklistSort } from '@/lib/checkups/worklist';
-import { columnRanks, orderByRanks, worklistRanks, type WorklistRanks } from '@/lib/checkups/worklistOrder';
+import { columnRanks, sortedOrder, worklistRanks, type WorklistRanks } from '@/lib/checkups/worklistOrder';
 import { arrangeColumns, columnsFilterChoices, columnsOfRows, worklistColumnsOf } from '@/lib/checkups/worklistColumns';
 import type { FilterChoices } from './protocol';
 import { afterNextPaint } from './afterNextPaint';
@@ -41,7 +41,23 @@ export interface WorklistProps {
   readonly ranks?: WorklistRanks | null;
 }
 
-export function Worklist({ rows, selected, onSelect, onOpen, canOpen, choices: given, ranks }: WorklistProps) {
+/**
+ * The list goes on screen in three steps, each after the last was painted, so none holds up the
+ * page for long: its heading (with whatever is shown beside it, e.g. batch handouts), then its
+ * filters, count and table head (the rows' order worked out), then its rows.
+ */
+export function Worklist(props: WorklistProps) {
+  const [ready, setReady] = useState(false);
+  useEffect(() => (ready ? undefined : afterNextPaint(() => setReady(true))), [ready]);
+  return (
+    <section aria-labelledby="worklist-heading" className="checkups__section">
+      <h2 id="worklist-heading">Worklist</h2>
+      {ready ? <WorklistBody {...props} /> : null}
+    </section>
+  );
+}
+
+function WorklistBody({ rows, selected, onSelect, onOpen, canOpen, choices: given, ranks }: WorklistProps) {
   const [status, setStatus] = useState<WorkerStatus | ''>('');
   const [category, setCategory] = useState('');
   const [stratum, setStratum] = useState('');
@@ -54,7 +70,7 @@ export function Worklist({ rows, selected, onSelect, onOpen, canOpen, choices: g
   // The sort on screen: the one asked for once its column's ranks are known (file order until then).
   const sortRanks = sort ? columnRanks(knownRanks, sort.column, rows.length) : null;
   const applied = sort && sortRanks ? sort : null;
-  const order = useMemo(() => (applied && sortRanks ? orderByRanks(sortRanks, applied.direction) : null), [applied, sortRanks]);
+  const order = useMemo(() => (applied && sortRanks ? sortedOrder(sortRanks, applied.direction) : null), [applied, sortRanks]);
   const shown = useMemo(() => {
     const [name, value] = stratum === '' ? [] : stratum.split('\u0000');
     return arrangeColumns(columns, { status: status || null, category: category || null, stratum: name !== undefined && value !== undefined ? { name, value } : null }, order);
@@ -94,8 +110,7 @@ export function Worklist({ rows, selected, onSelect, onOpen, canOpen, choices: g
   const after = virtualizer.getTotalSize() - (items[items.length - 1]?.end ?? 0);
 
   return (
-    <section aria-labelledby="worklist-heading" className="checkups__section">
-      <h2 id="worklist-heading">Worklist</h2>
+    <>
       <div className="checkups__grid">
         <label>
           Status
@@ -218,6 +233,6 @@ export function Worklist({ rows, selected, onSelect, onOpen, canOpen, choices: g
           </tbody>
         </table>
       </div>
-    </section>
+    </>
   );
 }

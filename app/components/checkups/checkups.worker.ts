@@ -30,7 +30,7 @@ import {
   type WorkerResult,
 } from '@/lib/workforce';
 import { worklistCategory, worklistKeys, worklistStrata } from '@/lib/checkups/worklist';
-import { WorklistKeyColumns } from '@/lib/checkups/worklistOrder';
+import { WorklistKeyColumns, worklistOrders } from '@/lib/checkups/worklistOrder';
 import { columnsFilterChoices, worklistColumnsBuffers, WorklistColumnsBuilder } from '@/lib/checkups/worklistColumns';
 import { copyPackedChunk, packedChunkBuffers, packedResultList, ResultsPacker, type PackedResults } from '@/lib/checkups/packedResults';
 import { workersCsv } from '@/lib/checkups/exportCsv';
@@ -105,7 +105,7 @@ const yieldToMessages = () => new Promise<void>((resolve) => setTimeout(resolve,
 /** The last finished run's results, kept here for the per-worker export. */
 let lastResults: PackedResults | null = null;
 
-/** The last results and the worklist's filter columns and choices just before `done`; the sort ranks just after. */
+/** The last results and the worklist's filter columns and choices just before `done`; the sort ranks and orders just after. */
 function finish(outcome: CheckupsOutcome, sink: ReturnType<typeof resultSink> | null): void {
   lastResults = null;
   if (!outcome.ok || !sink) {
@@ -118,7 +118,8 @@ function finish(outcome: CheckupsOutcome, sink: ReturnType<typeof resultSink> | 
   post({ type: 'choices', choices: columnsFilterChoices(columns) });
   post({ type: 'done', outcome });
   const ranks = sink.keys.ranks();
-  post({ type: 'ranks', ranks }, Object.values(ranks).map((r) => r.buffer));
+  const orders = worklistOrders(ranks);
+  post({ type: 'ranks', ranks, orders }, [...Object.values(ranks), ...Object.values(orders).flatMap((o) => [o.ascending, o.descending])].map((a) => a.buffer));
 }
 
 async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {

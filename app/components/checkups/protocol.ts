@@ -8,6 +8,7 @@ import type { WorklistColumn } from '@/lib/checkups/worklist';
 import type { ExportContext } from '@/lib/checkups/exportCsv';
 import type { PackedChunk } from '@/lib/checkups/packedResults';
 import type { WorklistColumns } from '@/lib/checkups/worklistColumns';
+import type { WorklistOrders } from '@/lib/checkups/worklistOrder';
 import type { CheckupsOutcome, CheckupsProgress, ColumnMapping, HeaderInfo, ReadRefusal, RowProblem } from '@/lib/workforce';
 
 export type FileKindName = 'delimited' | 'xlsx' | 'fhir-ndjson';
@@ -63,8 +64,8 @@ export type FromWorker =
   /** Sent just before `done`: the filters' choices, worked out here rather than on the page. */
   | { readonly type: 'choices'; readonly choices: FilterChoices }
   | { readonly type: 'done'; readonly outcome: CheckupsOutcome }
-  /** After `done`: each column's sort ranks (lib/checkups/worklistOrder.ts), for sorting on the page in one pass. */
-  | { readonly type: 'ranks'; readonly ranks: Readonly<Partial<Record<WorklistColumn, Int32Array>>> }
+  /** After `done`: each column's sort ranks and its rows in order both ways (lib/checkups/worklistOrder.ts), so a sort on the page computes nothing. */
+  | { readonly type: 'ranks'; readonly ranks: Readonly<Partial<Record<WorklistColumn, Int32Array>>>; readonly orders: WorklistOrders }
   | { readonly type: 'session-saved'; readonly id: string; readonly messages: readonly string[] }
   | { readonly type: 'session-opened'; readonly setup: SessionSetup; readonly kind: FileKindName; readonly mapping: ColumnMapping | null }
   | { readonly type: 'session-refused'; readonly messages: readonly string[] }

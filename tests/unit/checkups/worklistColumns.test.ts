@@ -6,7 +6,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { arrangeWorklist, worklistFilterChoices, worklistRow, WORKLIST_COLUMNS, type WorklistColumn, type WorklistFilter, type WorklistRow } from '@/lib/checkups/worklist';
-import { arrangeColumns, attachColumns, columnsFilterChoices, columnsOfRows, keepIndex, lazyWorklistRows, NO_VALUE, WorklistColumnsBuilder, worklistColumnsOf } from '@/lib/checkups/worklistColumns';
+import { arrangeColumns, attachColumns, columnsFilterChoices, columnsOfRows, fileOrder, keepIndex, lazyWorklistRows, NO_VALUE, WorklistColumnsBuilder, worklistColumnsOf } from '@/lib/checkups/worklistColumns';
 import { orderByRanks, worklistRanks } from '@/lib/checkups/worklistOrder';
 import { WORKER_STATUSES } from '@/lib/workforce';
 import { C003, W001, W002 } from './fixtures';
@@ -127,5 +127,14 @@ describe('lazyWorklistRows and attachColumns', () => {
     const columns = worklistColumnsOf([worklistRow(W001, 0), worklistRow(W002, 1)]);
     expect(columnsOfRows(attachColumns(list, columns))).toBe(columns);
     expect(() => attachColumns(lazyWorklistRows([W001]), columns)).toThrow(RangeError);
+  });
+});
+
+describe('fileOrder', () => {
+  it('gives every position in order, once made the same array (what an unfiltered, unsorted list shows)', () => {
+    const columns = worklistColumnsOf([worklistRow(W001, 0), worklistRow(W002, 1), worklistRow(C003, 2)]);
+    expect([...fileOrder(columns)]).toEqual([0, 1, 2]);
+    expect(fileOrder(columns)).toBe(fileOrder(columns));
+    expect(arrangeColumns(columns, {}, null)).toBe(fileOrder(columns));
   });
 });
