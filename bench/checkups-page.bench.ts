@@ -12,9 +12,16 @@
  *   the worker's sort ranks have arrived (and how long after the summary that was).
  *
  * It builds the app first (`npm run build`) unless BENCH_REUSE_BUILD=1 and a build exists, then
- * serves it with `next start` on a spare port. A benchmark, not a test: a missed target is
- * reported, never failed. Run alone: `npx tsx bench/checkups-page.bench.ts`, or
- * `npm run bench:browser`.
+ * serves it with `next start` on a spare port (BENCH_PORT to choose one). A benchmark, not a
+ * test: a missed target is reported, never failed. Run alone: `npx tsx bench/checkups-page.bench.ts`,
+ * or `npm run bench:browser`.
+ *
+ * The longtask observer measures wall time, which on a shared machine also counts the time the
+ * page waited for a core. BENCH_TRACE=<file> records a Chromium trace of the same run and adds
+ * each window's longest main-thread task by thread time (what the page itself ran), how many went
+ * over 50 ms of it, the main thread's busy time and its garbage collection (bench/trace.ts), and
+ * prints what filled any long one. BENCH_CHECKUPS_WORKERS=30000 for a quicker look;
+ * BENCH_CPU_PROFILE=<file> writes a CPU profile of the page (Chrome DevTools' format).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
