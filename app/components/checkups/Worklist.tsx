@@ -3,11 +3,13 @@
  * The worklist: one row per worker, virtualized (@tanstack/react-virtual), sortable and
  * filterable; rows from lib/checkups. Filtering and sorting read the worklist's columns
  * (lib/checkups/worklistColumns.ts: the worker's, or made here for a short list of plain rows)
- * and each column's sort ranks, and give the positions of the rows shown; only the rows on
- * screen are read (a long list's rows are made from the packed results when first read). Every
- * row has the same height, so the virtualizer never measures one. When the screen asks for them, each row also has a tick box
- * (choose the worker for batch handouts; "Tick all shown" and "Clear the ticks" above the table,
- * the count announced) and an "Open" button (the worker in the consultation screen).
+ * and each column's order (the worker's, or made here from the ranks), and give the positions of
+ * the rows shown; only the rows on screen are read (a long list's rows are made from the packed
+ * results when first read). A sort asked for before the worker's ranks arrive is applied when
+ * they do. Every row has the same height, so the virtualizer never measures one. When the screen
+ * asks for them, each row also has a tick box (choose the worker for batch handouts; "Tick all
+ * shown" and "Clear the ticks" above the table, the count announced) and an "Open" button (the
+ * worker in the consultation screen).
  */
 import { Fragment, useEffect, useMemo, useRef, useState } from 'react';
 import { useVirtualizer } from '@tanstack/react-virtual';
