@@ -50,7 +50,7 @@ const DASH = '—';
 function categoryText(category: string | null | undefined): string {
   if (category === undefined) return 'no checkup';
   if (category === null) return 'not classified';
-  return category === 'diabetes' ? 'diabetes range' : category;
+  return category === 'diabetes-range' ? 'diabetes range' : category; // lib/glycaemia's category name, in words
 }
 
 /**

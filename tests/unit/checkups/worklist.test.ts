@@ -55,4 +55,10 @@ describe('worklistKeys, worklistCategory and worklistStrata', () => {
     expect(worklistCategory(W002)).toBe('prediabetes');
     expect(worklistStrata(C003)).toEqual({ site: 'North', 'age band': 'unknown', sex: 'unknown' });
   });
+
+  it('writes the diabetes range in words, never as the code "diabetes-range"', () => {
+    const inRange = { ...W002, status: 'diabetes-range' as const, latest: { date: '2024-05-17', category: 'diabetes-range' as const }, run: { ...W002.run, category: 'diabetes-range' as const } };
+    expect(worklistCategory(inRange)).toBe('diabetes range');
+    expect(worklistRow(inRange, 0).cells.run).toBe('2 yearly (diabetes range)');
+  });
 });
