@@ -11,12 +11,19 @@
  * straight from the click. An empty tab of this origin is opened on the click; once the record
  * is ready it goes into that tab's own sessionStorage and the tab is sent to "/".
  */
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
 import type { UseFormReset } from 'react-hook-form';
 import type { GlucoseHistoryHolder } from '@/app/components/glucose/useGlucoseHistory';
 import type { ConsultationFormValues } from '@/lib/consultation/formValues';
 import { WORKER_HANDOVER_KEY } from '@/lib/checkups/workerHandOverKey';
+import type { Issue } from '@/lib/result';
 import type { PopulationTable } from '@/lib/tables/schema';
+
+/** What the consultation screen says when a handed-over worker could not be used. */
+export interface HandOverRefusal {
+  readonly lead: string;
+  readonly issues: readonly Issue[];
+}
 
 /** Opens an empty tab of this origin; call it in the click handler. Null when the browser refuses. */
 export function openWorkerTab(): Window | null {
@@ -54,9 +61,13 @@ function takeRecord(): string | null {
 /**
  * On the consultation screen: a worker handed over from the checkups screen fills the form (the
  * scenario and the evidence entry) and the glucose history (opened, under the run's criteria).
+ * When a record was there but could not be used, nothing is filled in and this returns what the
+ * screen says: lib/checkups `HANDOVER_REFUSED_LEAD` and the issues (loaded with the checks, so the
+ * words cost the first load nothing); else null.
  */
-export function useWorkerHandOver({ reset, tables, glucose }: { reset: UseFormReset<ConsultationFormValues>; tables: readonly PopulationTable[]; glucose: GlucoseHistoryHolder }): void {
+export function useWorkerHandOver({ reset, tables, glucose }: { reset: UseFormReset<ConsultationFormValues>; tables: readonly PopulationTable[]; glucose: GlucoseHistoryHolder }): HandOverRefusal | null {
   const { setOpen, setCriteria, putDrafts } = glucose;
+  const [refused, setRefused] = useState<HandOverRefusal | null>(null);
   useEffect(() => {
     const stored = takeRecord();
     if (stored === null) return;
@@ -66,9 +77,13 @@ export function useWorkerHandOver({ reset, tables, glucose }: { reset: UseFormRe
       import('@/lib/glycaemia/dates'),
       import('@/lib/glycaemia/draft'),
       import('@/lib/consultation/fromScenario'),
-    ]).then(([{ readWorkerHandOver }, { localIsoDate }, { checkupToDraft }, { scenarioToFormValues }]) => {
+    ]).then(([{ readWorkerHandOver, HANDOVER_REFUSED_LEAD }, { localIsoDate }, { checkupToDraft }, { scenarioToFormValues }]) => {
       const got = readWorkerHandOver(stored, localIsoDate());
-      if (!got?.ok) return;
+      if (!got) return;
+      if (!got.ok) {
+        setRefused({ lead: HANDOVER_REFUSED_LEAD, issues: got.issues });
+        return;
+      }
       const { scenario, evidenceId, history } = got.value;
       reset({ ...scenarioToFormValues(scenario, tables), evidenceId });
       setCriteria(history.criteria);
@@ -79,4 +94,5 @@ export function useWorkerHandOver({ reset, tables, glucose }: { reset: UseFormRe
       );
     });
   }, [reset, tables, setOpen, setCriteria, putDrafts]);
+  return refused;
 }

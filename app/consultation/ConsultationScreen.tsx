@@ -21,6 +21,7 @@ import { DEMO_EVIDENCE, DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidenc
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { LinkReading } from '@/lib/link';
 import { LinkNotice } from '@/app/link/LinkNotice';
+import { IssueNotice } from '@/app/components/IssueNotice';
 import { pushEmptyScenarioLink, useScenarioLink, writeScenarioLink } from '@/app/link/useScenarioLink';
 import { useGlucoseHistory } from '@/app/components/glucose/useGlucoseHistory';
 import { useWorkerHandOver } from '@/app/checkups/workerHandOver';
@@ -136,7 +137,7 @@ export function ConsultationScreen({
   // them, against the exposure definition in the form (typed, from an entry, or from a link).
   const exposure = useMemo(() => formExposure(values), [values]);
   const glucose = useGlucoseHistory({ exposure });
-  useWorkerHandOver({ reset, tables, glucose }); // a worker opened from the checkups worklist
+  const handOverRefused = useWorkerHandOver({ reset, tables, glucose }); // a worker opened from the checkups worklist
 
   // When the list of tables changes (one taken from the library, or read back for a link), the
   // form is checked again against the new list: the resolver gets it as its context.
@@ -277,6 +278,7 @@ export function ConsultationScreen({
                 </p>
               ) : null}
               <LinkNotice reading={link ? linkReading : undefined} refused="This link could not be read, so the form starts empty:" />
+              {handOverRefused ? <IssueNotice lead={handOverRefused.lead} issues={handOverRefused.issues} testId="handover-notice" /> : null}
             </div>
             <form className="form" noValidate aria-label="Scenario" data-hydrated={hydrated ? 'true' : 'false'} onSubmit={(event) => event.preventDefault()}>
               <Baseline tables={allTables} />

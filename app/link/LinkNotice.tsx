@@ -4,6 +4,7 @@
  * for a plain visit or a whole link; the parameters left out when the rest made a scenario; why
  * there is no scenario when there is none — a link cut short first, as the real cause.
  */
+import { IssueNotice } from '@/app/components/IssueNotice';
 import type { LinkReading } from '@/lib/link';
 import type { Issue } from '@/lib/result';
 
@@ -27,13 +28,11 @@ export function LinkNotice({ reading, refused, className }: LinkNoticeProps) {
   if (issues.length === 0) return null;
   const opened = reading.result.ok;
   return (
-    <div className={`link-problem${className ? ` ${className}` : ''}`} role="alert" data-testid="link-notice">
-      <p>{opened ? 'Part of this link could not be read and was left out; what is shown is without it. Check these fields:' : refused}</p>
-      <ul>
-        {issues.map((issue, i) => (
-          <li key={`${issue.path.join('.')}-${issue.code}-${i}`}>{issue.message}</li>
-        ))}
-      </ul>
-    </div>
+    <IssueNotice
+      lead={opened ? 'Part of this link could not be read and was left out; what is shown is without it. Check these fields:' : refused}
+      issues={issues}
+      {...(className ? { className } : {})}
+      testId="link-notice"
+    />
   );
 }

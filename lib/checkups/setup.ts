@@ -47,6 +47,11 @@ export interface SetupView {
   readonly evidenceProblem: string | null;
   /** True when the chosen entry and table exist and the entry can be used. */
   readonly ready: boolean;
+  /**
+   * The chosen entry's and table's whole option text, shown under each list on a narrow screen:
+   * a closed choice list cuts a long title at its edge (null when nothing known is chosen).
+   */
+  readonly chosen: { readonly evidence: string | null; readonly table: string | null };
 }
 
 export interface SetupInput {
@@ -109,5 +114,6 @@ export function setupView(input: SetupInput): SetupView {
     tableGroups: groups(demoTables, savedTables, 'Demo tables (illustrative)', 'Saved in this browser'),
     evidenceProblem,
     ready: chosen !== undefined && table !== undefined && evidenceProblem === null,
+    chosen: { evidence: chosen?.label ?? null, table: table?.label ?? null },
   };
 }

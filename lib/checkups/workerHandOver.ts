@@ -75,11 +75,11 @@ export function readWorkerHandOver(stored: string | null | undefined, today: str
   try {
     raw = JSON.parse(stored);
   } catch {
-    return fail([{ code: 'invalid-json', path: [], message: 'The worker passed from the checkups screen could not be read, so nothing was filled in' }]);
+    return fail([{ code: 'invalid-json', path: [], message: 'The record passed from the checkups screen is damaged and could not be read.' }]);
   }
   const record = recordSchema.safeParse(raw);
   if (!record.success) {
-    return fail([{ code: 'wrong-format', path: [], message: 'The worker passed from the checkups screen is not in a form this version reads, so nothing was filled in' }]);
+    return fail([{ code: 'wrong-format', path: [], message: 'The record passed from the checkups screen is not in a form this version of Hundredfold reads.' }]);
   }
   const scenario = parseScenario(record.data.scenario);
   if (!scenario.ok) return fail(scenario.issues.map((i) => ({ ...i, path: ['scenario', ...i.path] })));
@@ -87,6 +87,14 @@ export function readWorkerHandOver(stored: string | null | undefined, today: str
   if (!history.ok) return fail(history.issues.map((i) => ({ ...i, path: ['history', ...i.path] })));
   return ok({ scenario: scenario.value, evidenceId: record.data.evidenceId, history: history.value });
 }
+
+/**
+ * What the consultation screen says above the list of issues when a worker handed over from the
+ * checkups screen cannot be used (a damaged record, another version, a scenario or history that
+ * is no longer valid): nothing is filled in, and the way to try again.
+ */
+export const HANDOVER_REFUSED_LEAD =
+  'The worker opened from the checkups screen could not be filled in, so the form starts empty. Choose Open on the worklist again; if this keeps happening, process the file again:';
 
 /** What the worklist says while and after it opens one worker in the consultation screen. */
 export const OPEN_WORKER_MESSAGES = {

@@ -50,7 +50,42 @@ const DASH = '—';
 function categoryText(category: string | null | undefined): string {
   if (category === undefined) return 'no checkup';
   if (category === null) return 'not classified';
-  return category === 'diabetes' ? 'diabetes range' : category;
+  return category === 'diabetes-range' ? 'diabetes range' : category; // lib/glycaemia's category name, in words
+}
+
+/**
+ * A worker's latest category as the worklist writes it (the filter's values too).
+ * @example
+ * worklistCategory(w001) //=> "prediabetes"
+ */
+export function worklistCategory(result: Pick<WorkerResult, 'latest'>): string {
+  return categoryText(result.latest === null ? undefined : result.latest.category);
+}
+
+/**
+ * The groups a worker can be filtered by: the file's strata, their age band and their sex.
+ * @example
+ * worklistStrata(w001) //=> { site: "North", department: "Assembly", "age band": "50–59", sex: "female" }
+ */
+export function worklistStrata(result: Pick<WorkerResult, 'strata' | 'age' | 'sex'>): Record<string, string> {
+  return { ...result.strata, 'age band': ageBand(result.age), sex: result.sex ?? 'unknown' };
+}
+
+/** Sort keys per column (numbers sort numerically; null last): the engine's own figures, unrounded. */
+export function worklistKeys(result: WorkerResult): Record<WorklistColumn, string | number | null> {
+  return {
+    worker: result.worker,
+    age: result.age,
+    sex: result.sex,
+    category: worklistCategory(result),
+    run: result.run.yearlyResults,
+    status: result.status,
+    baseline: result.referenceRisk,
+    exposed: result.exposedRisk?.estimate ?? null,
+    difference: result.riskDifference?.estimate ?? null,
+    numberNeeded: result.numberNeeded?.estimate ?? null,
+    notes: null,
+  };
 }
 
 /**
@@ -59,7 +94,7 @@ function categoryText(category: string | null | undefined): string {
  * worklistRow(w001, 0).cells.exposed //=> "2.4% (1.8% to 3.1%)" (W001 of demo/checkups/checkups.csv)
  */
 export function worklistRow(result: WorkerResult, index: number): WorklistRow {
-  const category = categoryText(result.latest === null ? undefined : result.latest.category);
+  const category = worklistCategory(result);
   const run = result.run.yearlyResults > 0 ? `${result.run.yearlyResults} yearly (${categoryText(result.run.category)})` : DASH;
   const interval = (e: { estimate: number; lower: number; upper: number }) => `${formatPercent(e.estimate)} (${formatPercent(e.lower)} to ${formatPercent(e.upper)})`;
   const notes = [...result.reasons.slice(1), ...result.warnings.map((w) => w.message)].join(' ');
@@ -68,7 +103,7 @@ export function worklistRow(result: WorkerResult, index: number): WorklistRow {
     worker: result.worker,
     status: result.status,
     category,
-    strata: { ...result.strata, 'age band': ageBand(result.age), sex: result.sex ?? 'unknown' },
+    strata: worklistStrata(result),
     cells: {
       worker: result.worker,
       age: result.age === null ? DASH : String(result.age),
@@ -82,19 +117,7 @@ export function worklistRow(result: WorkerResult, index: number): WorklistRow {
       numberNeeded: result.numberNeeded?.text ?? DASH,
       notes: notes === '' ? (result.reasons[0] ?? '') : notes,
     },
-    keys: {
-      worker: result.worker,
-      age: result.age,
-      sex: result.sex,
-      category,
-      run: result.run.yearlyResults,
-      status: result.status,
-      baseline: result.referenceRisk,
-      exposed: result.exposedRisk?.estimate ?? null,
-      difference: result.riskDifference?.estimate ?? null,
-      numberNeeded: result.numberNeeded?.estimate ?? null,
-      notes: null,
-    },
+    keys: worklistKeys(result),
   };
 }
 
@@ -143,16 +166,26 @@ export function arrangeWorklist(rows: readonly WorklistRow[], filter: WorklistFi
   });
 }
 
+/** The choices of each filter: every latest category, and every group (name and value), sorted. */
+export interface WorklistFilterChoices {
+  readonly categories: string[];
+  readonly strata: { name: string; value: string }[];
+}
+
 /** The choices of each filter, from the rows themselves (sorted). */
-export function worklistFilterChoices(rows: readonly WorklistRow[]): { categories: string[]; strata: { name: string; value: string }[] } {
-  const categories = new Set<string>();
-  const strata = new Map<string, { name: string; value: string }>();
-  for (const r of rows) {
-    categories.add(r.category);
-    for (const [name, value] of Object.entries(r.strata)) strata.set(`${name}\u0000${value}`, { name, value });
-  }
+export function worklistFilterChoices(rows: readonly Pick<WorklistRow, 'category' | 'strata'>[]): WorklistFilterChoices {
+  return sortFilterChoices(
+    rows.map((r) => r.category),
+    rows.flatMap((r) => Object.entries(r.strata).map(([name, value]) => ({ name, value }))),
+  );
+}
+
+/** The filters' choices in the order they are offered: categories alphabetically; groups by name, then value (numbers in text as numbers). Duplicates are dropped. */
+export function sortFilterChoices(categories: Iterable<string>, strata: Iterable<{ name: string; value: string }>): WorklistFilterChoices {
+  const groups = new Map<string, { name: string; value: string }>();
+  for (const s of strata) groups.set(`${s.name}\u0000${s.value}`, { name: s.name, value: s.value });
   return {
-    categories: [...categories].sort(),
-    strata: [...strata.values()].sort((a, b) => a.name.localeCompare(b.name) || a.value.localeCompare(b.value, 'en', { numeric: true })),
+    categories: [...new Set(categories)].sort(),
+    strata: [...groups.values()].sort((a, b) => a.name.localeCompare(b.name) || a.value.localeCompare(b.value, 'en', { numeric: true })),
   };
 }

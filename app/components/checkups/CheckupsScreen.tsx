@@ -9,22 +9,34 @@ import { useHydrated } from '@/app/components/useHydrated';
 import { localIsoDate } from '@/lib/glycaemia/dates';
 import { CHECKUP_SNIFF_BYTES, checkupFileKind, MAX_CHECKUP_FILE_BYTES } from '@/lib/checkups/fileKind';
 import { checkupsProgressView } from '@/lib/checkups/progress';
-import { worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
+import type { WorklistRow } from '@/lib/checkups/worklist';
+import { packedChunkResults } from '@/lib/checkups/packedResults';
+import { attachColumns, fileOrder, lazyWorklistRows } from '@/lib/checkups/worklistColumns';
 import { decodeMappingMemory, encodeMappingMemory, mappingMemoryKey } from '@/lib/checkups/mappingMemory';
-import { checkupsFileNames, summaryCsv, workersCsv } from '@/lib/checkups/exportCsv';
+import { checkupsFileNames, summaryCsv } from '@/lib/checkups/exportCsv';
 import { downloadText } from '@/app/components/library/download';
 import { CHECKUP_FIELDS, type CheckupField, type CheckupsProgress, type ColumnMapping, type WorkerResult, type HeaderInfo, type RowProblem, type WorkforceSummary } from '@/lib/workforce';
 import { newSessionId } from '@/lib/checkups/session';
-import type { WorklistRanks } from '@/lib/checkups/worklistOrder';
+import { rememberOrders, type WorklistRanks } from '@/lib/checkups/worklistOrder';
 import type { FileKindName, FilterChoices, FromWorker, ToWorker } from './protocol';
 import { SetupPanel, useCheckupsSetup } from './SetupPanel';
 import { SessionPanel, type SaveState } from './SessionPanel';
 import { BatchWorklist, type CheckupsRunInput } from './BatchWorklist';
 import { SummaryPanel } from './SummaryPanel';
 import { ProblemsPanel } from './ProblemsPanel';
+import { afterNextPaint } from './afterNextPaint';
 import './checkups.css';
 
 type Phase = 'setup' | 'columns' | 'running' | 'done';
+
+/**
+ * What of the results is on screen, added one step at a time after a run, each step in its own
+ * task after the previous one was painted, so no step holds up the page for long: the summary's
+ * text and tables first, then its chart (drawn in steps of its own, ./SummaryPanel.tsx, while the
+ * page is still small: recharts measures text, which lays out the whole page), then the exports,
+ * problems and worklist once the chart is drawn.
+ */
+const SHOWN_STEPS = ['summary', 'chart', 'worklist'] as const;
 
 export function CheckupsScreen() {
   // False in the server's HTML, true once the page runs: the file input waits for its handler.
@@ -38,16 +50,19 @@ export function CheckupsScreen() {
   const [fields, setFields] = useState<(CheckupField | null)[]>([]);
   const [phase, setPhase] = useState<Phase>('setup');
   const [progress, setProgress] = useState<{ p: CheckupsProgress; elapsed: number } | null>(null);
-  const [rows, setRows] = useState<WorklistRow[]>([]);
+  const [rows, setRows] = useState<readonly WorklistRow[]>([]);
   const [problems, setProblems] = useState<RowProblem[]>([]);
   const [summary, setSummary] = useState<WorkforceSummary | null>(null);
   const [runMessages, setRunMessages] = useState<string[]>([]);
   const [paste, setPaste] = useState('');
   const workerRef = useRef<Worker | null>(null);
   const startRef = useRef(0);
-  const pendingRows = useRef<WorklistRow[]>([]);
-  const pendingResults = useRef<WorkerResult[]>([]);
-  const [results, setResults] = useState<WorkerResult[]>([]);
+  /** The run's results and worklist rows so far (each read from the packed form only when shown), until `done` puts them on screen. */
+  const pending = useRef<{ results: WorkerResult[]; rows: WorklistRow[] }>({ results: [], rows: [] });
+  const [results, setResults] = useState<readonly WorkerResult[]>([]);
+  /** How many of SHOWN_STEPS are on screen. */
+  const [shownSteps, setShownSteps] = useState(0);
+  const exportName = useRef<string | null>(null);
   const [choices, setChoices] = useState<FilterChoices | null>(null);
   const [ranks, setRanks] = useState<WorklistRanks | null>(null);
   const [saveState, setSaveState] = useState<SaveState>({ status: 'idle' });
@@ -77,14 +92,21 @@ export function CheckupsScreen() {
       setPhase('columns');
     } else if (m.type === 'progress') {
       setProgress({ p: m.progress, elapsed: performance.now() - startRef.current });
-    } else if (m.type === 'workers') {
-      for (const w of m.workers) {
-        pendingRows.current.push(worklistRow(w, pendingRows.current.length));
-        pendingResults.current.push(w);
-      }
+    } else if (m.type === 'results') {
+      const chunk = packedChunkResults(m.chunk);
+      for (const r of chunk) pending.current.results.push(r);
+      for (const r of lazyWorklistRows(chunk, m.chunk.first)) pending.current.rows.push(r);
+    } else if (m.type === 'columns') {
+      attachColumns(pending.current.rows, m.columns);
+      fileOrder(m.columns); // made now, in this message's task, rather than when the worklist first shows
+
+    } else if (m.type === 'export-workers') {
+      if (m.text !== null && exportName.current) downloadText(exportName.current, m.text, 'text/csv');
+      exportName.current = null;
     } else if (m.type === 'choices') {
       setChoices(m.choices);
     } else if (m.type === 'ranks') {
+      rememberOrders(m.ranks, m.orders);
       setRanks(m.ranks);
     } else if (m.type === 'session-saved') {
       setSaveState(m.messages.length === 0 ? { status: 'saved' } : { status: 'failed', messages: m.messages });
@@ -105,8 +127,10 @@ export function CheckupsScreen() {
       const outcome = m.outcome;
       if (outcome.ok) {
         setSummary(outcome.summary);
-        setRows(pendingRows.current);
-        setResults(pendingResults.current);
+        setRows(pending.current.rows);
+        setResults(pending.current.results);
+        pending.current = { results: [], rows: [] };
+        setShownSteps(1);
         setPhase('done');
       } else if ('refusal' in outcome) {
         setRunMessages([outcome.refusal.message]);
@@ -143,8 +167,8 @@ export function CheckupsScreen() {
     setSaveState({ status: 'idle' });
     setFromSession(false);
     setSessionMessages([]);
-    pendingRows.current = [];
-    pendingResults.current = [];
+    pending.current = { results: [], rows: [] };
+    setShownSteps(0);
   };
 
   const openFiles = async (list: File[]) => {
@@ -216,8 +240,22 @@ export function CheckupsScreen() {
   const cancel = () => send({ type: 'cancel' });
 
   const exportContext = () => ({ evidenceTitle: evidence?.title ?? '', evidenceId: evidence?.id ?? '', tableTitle: table?.title ?? '', tableId: table?.id ?? '', criteria, date: localIsoDate() });
-  const exportWorkers = () => downloadText(checkupsFileNames(localIsoDate()).workers, workersCsv(results, exportContext()), 'text/csv');
+  // Made in the worker (it reads every result); the answer is downloaded when it comes (onMessage).
+  const exportWorkers = () => {
+    exportName.current = checkupsFileNames(localIsoDate()).workers;
+    send({ type: 'export-workers', context: exportContext() });
+  };
   const exportSummary = () => summary && downloadText(checkupsFileNames(localIsoDate()).summary, summaryCsv(summary, exportContext()), 'text/csv');
+
+  // After a run: the next step on screen once this one is painted.
+  const shows = (step: (typeof SHOWN_STEPS)[number]) => shownSteps > SHOWN_STEPS.indexOf(step);
+  const chartShown = shows('chart');
+  useEffect(() => {
+    // The step after the chart waits for the chart to say it is drawn.
+    if (phase !== 'done' || shownSteps === 0 || shownSteps >= SHOWN_STEPS.length || chartShown) return;
+    return afterNextPaint(() => setShownSteps((n) => Math.min(n + 1, SHOWN_STEPS.length)));
+  }, [phase, shownSteps, chartShown]);
+  const chartDrawn = useCallback(() => setShownSteps((n) => Math.max(n, SHOWN_STEPS.indexOf('worklist') + 1)), []);
 
   const progressView = progress ? checkupsProgressView(progress.p, files.reduce((s, f) => s + f.size, 0), progress.elapsed) : null;
   const skipped = summary ? summary.rows.skipped : 0;
@@ -338,7 +376,11 @@ export function CheckupsScreen() {
 
       {phase === 'done' && summary ? (
         <>
-          <SummaryPanel summary={summary} outcome={evidence?.wording.outcome ?? 'the outcome'} />
+          <SummaryPanel summary={summary} outcome={evidence?.wording.outcome ?? 'the outcome'} chart={chartShown} onChartDrawn={chartDrawn} />
+        </>
+      ) : null}
+      {phase === 'done' && summary && shows('worklist') ? (
+        <>
           <section aria-labelledby="export-heading" className="checkups__section">
             <h2 id="export-heading">Export</h2>
             <div className="checkups__actions">

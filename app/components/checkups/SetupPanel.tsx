@@ -151,20 +151,38 @@ function GroupedSelect({ value, onChange, groups, testId }: { value: string; onC
   );
 }
 
+/**
+ * The chosen option's whole text under its list, for a narrow screen where the closed list cuts
+ * it (checkups.css shows it at 480 px and below; a screen reader hears the option's own text).
+ */
+function Chosen({ text, testId }: { text: string | null; testId: string }) {
+  return text === null ? null : (
+    <p className="checkups__chosen" data-testid={testId}>
+      {text}
+    </p>
+  );
+}
+
 export function SetupPanel({ setup }: { setup: CheckupsSetup }) {
   const { view } = setup;
   return (
     <section aria-labelledby="setup-heading" className="checkups__section">
       <h2 id="setup-heading">Set-up</h2>
       <div className="checkups__grid">
-        <label>
-          Evidence
-          <GroupedSelect value={setup.evidenceId} onChange={setup.setEvidenceId} groups={view.evidenceGroups} testId="setup-evidence" />
-        </label>
-        <label>
-          Population table
-          <GroupedSelect value={setup.tableId} onChange={setup.setTableId} groups={view.tableGroups} testId="setup-table" />
-        </label>
+        <div className="checkups__choice-field">
+          <label>
+            Evidence
+            <GroupedSelect value={setup.evidenceId} onChange={setup.setEvidenceId} groups={view.evidenceGroups} testId="setup-evidence" />
+          </label>
+          <Chosen text={view.chosen.evidence} testId="setup-evidence-chosen" />
+        </div>
+        <div className="checkups__choice-field">
+          <label>
+            Population table
+            <GroupedSelect value={setup.tableId} onChange={setup.setTableId} groups={view.tableGroups} testId="setup-table" />
+          </label>
+          <Chosen text={view.chosen.table} testId="setup-table-chosen" />
+        </div>
         <label>
           Criteria set
           <select value={setup.criteria} onChange={(e) => setup.setCriteria(e.target.value as CriteriaSet)}>

@@ -29,8 +29,11 @@ import {
   type RowProblem,
   type WorkerResult,
 } from '@/lib/workforce';
-import { worklistFilterChoices, worklistRow, type WorklistRow } from '@/lib/checkups/worklist';
-import { worklistRanks } from '@/lib/checkups/worklistOrder';
+import { worklistCategory, worklistKeys, worklistStrata } from '@/lib/checkups/worklist';
+import { WorklistKeyColumns, worklistOrders } from '@/lib/checkups/worklistOrder';
+import { columnsFilterChoices, worklistColumnsBuffers, WorklistColumnsBuilder } from '@/lib/checkups/worklistColumns';
+import { copyPackedChunk, packedChunkBuffers, packedResultList, ResultsPacker, type PackedResults } from '@/lib/checkups/packedResults';
+import { workersCsv } from '@/lib/checkups/exportCsv';
 import { SESSION_VERSION, type CheckupSession } from '@/lib/checkups/session';
 import { openSessionStore } from '@/app/storage/sessions';
 import { collectWorkerRows, collectWorkerRowsFromTable, collectWorkersRows, collectWorkersRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
@@ -40,8 +43,6 @@ const scope = self as unknown as DedicatedWorkerGlobalScope;
 const post = (message: FromWorker, transfer: Transferable[] = []) => scope.postMessage(message, transfer);
 const SLICE = 1 << 20;
 const PREVIEW_BYTES = 64 * 1024;
-/** Results per message: small enough that the page takes each in a few milliseconds. */
-const BATCH = 250;
 let controller: AbortController | null = null;
 /** The last run that finished, for "Save the session". */
 let lastRun: Extract<ToWorker, { type: 'run' }> | null = null;
@@ -74,39 +75,57 @@ async function preview(data: Extract<ToWorker, { type: 'preview' }>): Promise<vo
   return post({ type: 'header', header: null, refusal: isRefusal(last) ? last : isRefusal(step) ? step : null });
 }
 
-/** Posts results in batches as they come, and keeps their worklist rows for the choices and ranks. */
+/**
+ * Packs results as they come (lib/checkups/packedResults.ts) and sends each chunk to the page as
+ * it is made (a copy, its buffers transferred: no copy on the page's side, nothing for its garbage
+ * collector), keeping the original here for the per-worker export; builds the worklist's filter
+ * columns and sort keys meanwhile (no display row is made here).
+ */
 function resultSink() {
-  let batch: WorkerResult[] = [];
-  const rows: WorklistRow[] = [];
-  const flush = () => {
-    if (batch.length > 0) post({ type: 'workers', workers: batch });
-    batch = [];
-  };
+  const packer = new ResultsPacker((chunk) => {
+    const copy = copyPackedChunk(chunk);
+    post({ type: 'results', chunk: copy }, packedChunkBuffers(copy));
+  });
+  const columns = new WorklistColumnsBuilder();
+  const keys = new WorklistKeyColumns();
   return {
-    rows,
-    flush,
+    packer,
+    columns,
+    keys,
     add: (w: WorkerResult) => {
-      rows.push(worklistRow(w, rows.length));
-      batch.push(w);
-      if (batch.length >= BATCH) flush();
+      packer.add(w);
+      columns.add({ status: w.status, category: worklistCategory(w), strata: worklistStrata(w) });
+      keys.add(worklistKeys(w));
     },
   };
 }
 
 const yieldToMessages = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
-/** `done`, with the filter choices just before it and the sort ranks just after. */
-function finish(outcome: CheckupsOutcome, rows: readonly WorklistRow[]): void {
-  if (outcome.ok) post({ type: 'choices', choices: worklistFilterChoices(rows) });
+/** The last finished run's results, kept here for the per-worker export. */
+let lastResults: PackedResults | null = null;
+
+/** The last results and the worklist's filter columns and choices just before `done`; the sort ranks and orders just after. */
+function finish(outcome: CheckupsOutcome, sink: ReturnType<typeof resultSink> | null): void {
+  lastResults = null;
+  if (!outcome.ok || !sink) {
+    post({ type: 'done', outcome });
+    return;
+  }
+  lastResults = sink.packer.finish();
+  const columns = sink.columns.finish();
+  post({ type: 'columns', columns }, worklistColumnsBuffers(columns));
+  post({ type: 'choices', choices: columnsFilterChoices(columns) });
   post({ type: 'done', outcome });
-  if (!outcome.ok) return;
-  const ranks = worklistRanks(rows);
-  post({ type: 'ranks', ranks }, Object.values(ranks).map((r) => r.buffer));
+  const ranks = sink.keys.ranks();
+  const orders = worklistOrders(ranks);
+  post({ type: 'ranks', ranks, orders }, [...Object.values(ranks), ...Object.values(orders).flatMap((o) => [o.ascending, o.descending])].map((a) => a.buffer));
 }
 
 async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
   controller = new AbortController();
   lastRun = null;
+  lastResults = null;
   const context = prepareCheckups({ evidence: data.evidence, table: data.table, criteria: data.criteria, ...(data.horizon !== null ? { horizonYears: data.horizon } : {}) });
   if (!context.ok) return post({ type: 'refused', messages: context.issues.map((i) => i.message) });
   const sink = resultSink();
@@ -114,10 +133,7 @@ async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
     context: context.value,
     reader: { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) },
     signal: controller.signal,
-    pause: () => {
-      sink.flush();
-      return yieldToMessages();
-    },
+    pause: yieldToMessages,
     onWorker: sink.add,
     onProblems: (problems: readonly RowProblem[]) => post({ type: 'problems', problems }),
     onProgress: (progress: CheckupsProgress) => post({ type: 'progress', progress }),
@@ -131,9 +147,8 @@ async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
   } else {
     outcome = await runCheckups(slices(data.files, data.kind === 'fhir-ndjson'), { ...options, format: data.kind });
   }
-  sink.flush();
   if (outcome.ok) lastRun = data;
-  finish(outcome, sink.rows);
+  finish(outcome, sink);
 }
 
 /** The rows of the last run's file, read again with the same settings (never the file's other columns). */
@@ -208,6 +223,7 @@ async function openSession(data: Extract<ToWorker, { type: 'open-session' }>): P
   controller = new AbortController();
   const signal = controller.signal;
   lastRun = null;
+  lastResults = null;
   const store = await openSessionStore();
   if (!store.ok) return post({ type: 'session-refused', messages: store.issues.map((i) => i.message) });
   const opened = await store.value.open(data.id);
@@ -242,15 +258,13 @@ async function openSession(data: Extract<ToWorker, { type: 'open-session' }>): P
     done++;
     if (done % EVALUATE_SLICE === 0) {
       post({ type: 'progress', progress: progress() });
-      sink.flush();
       await yieldToMessages();
-      if (signal.aborted) return finish({ ok: false, cancelled: true }, []);
+      if (signal.aborted) return finish({ ok: false, cancelled: true }, null);
     }
   }
-  sink.flush();
   post({ type: 'progress', progress: progress() });
   const finished = summary.finish({ read: counts.read, used: counts.used - extraSkipped, skipped: counts.skipped + extraSkipped });
-  finish({ ok: true, summary: finished, header: null, problemCount }, sink.rows);
+  finish({ ok: true, summary: finished, header: null, problemCount }, sink);
 }
 
 /** One worker's checkups, read again from the same files with the same mapping. */
@@ -313,6 +327,11 @@ async function histories(data: Extract<ToWorker, { type: 'histories' }>): Promis
   answer({ done: true, message: null });
 }
 
+/** The per-worker CSV of the last finished run, made here so the page never reads every result. */
+function exportWorkers(data: Extract<ToWorker, { type: 'export-workers' }>): void {
+  post({ type: 'export-workers', text: lastResults ? workersCsv(packedResultList(lastResults), data.context) : null });
+}
+
 scope.onmessage = (event: MessageEvent<ToWorker>) => {
   const data = event.data;
   if (data.type === 'cancel') {
@@ -331,5 +350,6 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
   else if (data.type === 'save-session') void saveSession(data);
   else if (data.type === 'open-session') void openSession(data);
   else if (data.type === 'history') void history(data);
+  else if (data.type === 'export-workers') exportWorkers(data);
   else void run(data);
 };

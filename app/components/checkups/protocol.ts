@@ -5,7 +5,11 @@ import type { PopulationTable } from '@/lib/tables/schema';
 import type { CriteriaSet } from '@/lib/glycaemia/exposure';
 import type { SessionSetup } from '@/lib/checkups/session';
 import type { WorklistColumn } from '@/lib/checkups/worklist';
-import type { CheckupsOutcome, CheckupsProgress, ColumnMapping, HeaderInfo, ReadRefusal, RowProblem, WorkerResult } from '@/lib/workforce';
+import type { ExportContext } from '@/lib/checkups/exportCsv';
+import type { PackedChunk } from '@/lib/checkups/packedResults';
+import type { WorklistColumns } from '@/lib/checkups/worklistColumns';
+import type { WorklistOrders } from '@/lib/checkups/worklistOrder';
+import type { CheckupsOutcome, CheckupsProgress, ColumnMapping, HeaderInfo, ReadRefusal, RowProblem } from '@/lib/workforce';
 
 export type FileKindName = 'delimited' | 'xlsx' | 'fhir-ndjson';
 
@@ -30,6 +34,8 @@ export type ToWorker =
   | { readonly type: 'save-session'; readonly id: string; readonly name: string }
   /** Open a saved session: its rows are read from storage and processed here, as a run is. */
   | { readonly type: 'open-session'; readonly id: string }
+  /** The per-worker CSV of the last finished run (lib/checkups/exportCsv workersCsv), made in the worker. */
+  | { readonly type: 'export-workers'; readonly context: ExportContext }
   /** One worker's rows read again from the same files ("open one worker", lib/checkups/workerHistory.ts). */
   | {
       readonly type: 'history';
@@ -71,16 +77,21 @@ export type FromWorker =
   | { readonly type: 'header'; readonly header: HeaderInfo | null; readonly refusal: ReadRefusal | null }
   | { readonly type: 'refused'; readonly messages: readonly string[] }
   | { readonly type: 'progress'; readonly progress: CheckupsProgress }
-  | { readonly type: 'workers'; readonly workers: readonly WorkerResult[] }
+  /** The next results, packed (lib/checkups/packedResults.ts; buffers transferred), as the run goes. */
+  | { readonly type: 'results'; readonly chunk: PackedChunk }
+  /** Sent once a run is done, just before `choices`: the worklist's filter columns (buffers transferred). */
+  | { readonly type: 'columns'; readonly columns: WorklistColumns }
   | { readonly type: 'problems'; readonly problems: readonly RowProblem[] }
   /** Sent just before `done`: the filters' choices, worked out here rather than on the page. */
   | { readonly type: 'choices'; readonly choices: FilterChoices }
   | { readonly type: 'done'; readonly outcome: CheckupsOutcome }
-  /** After `done`: each column's sort ranks (lib/checkups/worklistOrder.ts), for sorting on the page in one pass. */
-  | { readonly type: 'ranks'; readonly ranks: Readonly<Partial<Record<WorklistColumn, Int32Array>>> }
+  /** After `done`: each column's sort ranks and its rows in order both ways (lib/checkups/worklistOrder.ts), so a sort on the page computes nothing. */
+  | { readonly type: 'ranks'; readonly ranks: Readonly<Partial<Record<WorklistColumn, Int32Array>>>; readonly orders: WorklistOrders }
   | { readonly type: 'session-saved'; readonly id: string; readonly messages: readonly string[] }
   | { readonly type: 'session-opened'; readonly setup: SessionSetup; readonly kind: FileKindName; readonly mapping: ColumnMapping | null }
   | { readonly type: 'session-refused'; readonly messages: readonly string[] }
+  /** The answer to 'export-workers': the CSV text, or null when there is no finished run. */
+  | { readonly type: 'export-workers'; readonly text: string | null }
   /** The answer to 'history': the worker's checkups, or why the file could not be read again. */
   | { readonly type: 'history'; readonly worker: string; readonly checkups: readonly Checkup[] | null; readonly message: string | null }
   /**

@@ -59,4 +59,10 @@ describe('checkups set-up view', () => {
     const view = setupView(input({ libraryEvidence: [{ ...saved, id: demoEntry.id }] }));
     expect(view.evidenceGroups).toHaveLength(1);
   });
+
+  it('gives the chosen entry’s and table’s whole option text (shown under the lists on a narrow screen), null when not listed', () => {
+    const view = setupView(input({ libraryEvidence: [noDefinition], evidenceId: 'clinic-no-definition', libraryTables: [{ id: 'practice', title: 'Practice table', illustrative: true }], tableId: 'practice' }));
+    expect(view.chosen).toEqual({ evidence: 'Entry without a definition (no exposure definition)', table: 'Practice table (illustrative)' });
+    expect(setupView(input({ evidenceId: 'clinic-gone', tableId: 'clinic-gone' })).chosen).toEqual({ evidence: null, table: null });
+  });
 });

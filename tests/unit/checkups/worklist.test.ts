@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { arrangeWorklist, worklistFilterChoices, worklistRow } from '../../../lib/checkups/worklist';
+import { arrangeWorklist, worklistCategory, worklistFilterChoices, worklistKeys, worklistRow, worklistStrata } from '../../../lib/checkups/worklist';
 import { C003, W001, W002 } from './fixtures';
 
 describe('worklistRow', () => {
@@ -46,5 +46,19 @@ describe('arrangeWorklist', () => {
     expect(choices.categories).toEqual(['normal', 'prediabetes']);
     expect(choices.strata).toContainEqual({ name: 'site', value: 'South' });
     expect(choices.strata).toContainEqual({ name: 'age band', value: 'unknown' });
+  });
+});
+
+describe('worklistKeys, worklistCategory and worklistStrata', () => {
+  it('give W001’s sort keys and groups (the engine’s own unrounded figures; fixtures)', () => {
+    expect(worklistKeys(W001)).toEqual({ worker: 'W001', age: 53, sex: 'female', category: 'prediabetes', run: 4, status: 'exposed', baseline: 0.015, exposed: 0.02389178285776514, difference: 0.008891782857765141, numberNeeded: 112.46338512716895, notes: null });
+    expect(worklistCategory(W002)).toBe('prediabetes');
+    expect(worklistStrata(C003)).toEqual({ site: 'North', 'age band': 'unknown', sex: 'unknown' });
+  });
+
+  it('writes the diabetes range in words, never as the code "diabetes-range"', () => {
+    const inRange = { ...W002, status: 'diabetes-range' as const, latest: { date: '2024-05-17', category: 'diabetes-range' as const }, run: { ...W002.run, category: 'diabetes-range' as const } };
+    expect(worklistCategory(inRange)).toBe('diabetes range');
+    expect(worklistRow(inRange, 0).cells.run).toBe('2 yearly (diabetes range)');
   });
 });

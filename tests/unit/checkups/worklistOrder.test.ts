@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { arrangeWorklist, WORKLIST_COLUMNS, type WorklistColumn, type WorklistRow } from '../../../lib/checkups/worklist';
-import { EMPTY_RANK, arrangeWithRanks, orderByRanks, rankKeys, worklistRanks } from '../../../lib/checkups/worklistOrder';
+import { EMPTY_RANK, arrangeWithRanks, orderByRanks, rankKeys, rememberOrders, sortedOrder, worklistOrders, worklistRanks } from '../../../lib/checkups/worklistOrder';
 import { WORKER_STATUSES } from '../../../lib/workforce/types';
 
 const numberKey = fc.option(fc.constantFrom(0, 0.01, 0.015, 0.2, 1, 53, 56), { nil: null });
@@ -61,5 +61,37 @@ describe('worklist order by ranks', () => {
     expect(arrangeWithRanks(list, {}, { column: 'age', direction: 'ascending' }, null).map((r) => r.index)).toEqual([1, 0]);
     expect(arrangeWithRanks(list, {}, { column: 'age', direction: 'ascending' }, { age: Int32Array.from([0]) }).map((r) => r.index)).toEqual([1, 0]);
     expect(arrangeWithRanks(list, { status: 'exposed' }, null, null).map((r) => r.index)).toEqual([0]);
+  });
+});
+
+describe('worklist orders made ahead', () => {
+  it('gives each column’s rows in arrangeWorklist’s order, both ways', () => {
+    fc.assert(
+      fc.property(fc.array(rowArb, { maxLength: 30 }), (specs) => {
+        const list = rows(specs);
+        const orders = worklistOrders(worklistRanks(list));
+        for (const { key } of WORKLIST_COLUMNS) {
+          for (const direction of ['ascending', 'descending'] as const) {
+            expect([...orders[key]![direction]]).toEqual(arrangeWorklist(list, {}, { column: key, direction }).map((r) => r.index));
+          }
+        }
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('remembers an order once made or given, per ranks and direction', () => {
+    const ranks = Int32Array.from([1, -1, 0, 1]);
+    const first = sortedOrder(ranks, 'descending');
+    expect([...first]).toEqual([0, 3, 2, 1]); // hand-worked, as orderByRanks' example
+    expect(sortedOrder(ranks, 'descending')).toBe(first);
+    const other = Int32Array.from([2, 0]);
+    const given = { ascending: Int32Array.from([1, 0]), descending: Int32Array.from([0, 1]) };
+    rememberOrders({ age: other }, { age: given });
+    expect(sortedOrder(other, 'ascending')).toBe(given.ascending);
+  });
+
+  it('refuses orders that are not as long as their column', () => {
+    expect(() => rememberOrders({ age: Int32Array.from([0, 1]) }, { age: { ascending: Int32Array.from([0]), descending: Int32Array.from([0, 1]) } })).toThrow(RangeError);
   });
 });
