@@ -107,7 +107,18 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
     const prepare = async () => {
       let histories: ReadonlyMap<string, readonly Checkup[]> | undefined;
       if (readHistories) {
-        const workers = chosen.flatMap((i) => results[i]?.worker ?? []);
+        // Each result is read from its packed form when first asked for (lib/checkups/packedResults.ts): the ids a slice at a time.
+        const workers: string[] = [];
+        let idsStart = performance.now();
+        for (const i of chosen) {
+          const worker = results[i]?.worker;
+          if (worker !== undefined) workers.push(worker);
+          if (performance.now() - idsStart > SLICE_MS) {
+            await nextTask();
+            if (cancelled) return;
+            idsStart = performance.now();
+          }
+        }
         const read = readHistories(workers, (bytesRead, bytesTotal) => update({ bytesRead, bytesTotal }));
         cancelRead = read.cancel;
         const outcome = await read.outcome;
