@@ -1,18 +1,27 @@
 /**
  * Batch handouts for the checkups screen (issue 10, item 9): the workers the physician chose →
  * one handout sheet per worker, each exactly the sheet `/handout` makes for that worker's
- * scenario. Nothing here builds a sentence or a number of its own:
+ * scenario and glucose history. Nothing here builds a sentence or a number of its own:
  * - the scenario is lib/workforce `workerScenario` (the one the worker's figures came from);
+ * - the history is the worker's checkups read again from the file (./workerHistory.ts), handed to
+ *   the sheet as the consultation screen hands it to /handout: one hand-over record
+ *   (lib/handout `handOverRecord`, with the run's criteria set), read back by /handout's own
+ *   checks (lib/handout `readHandOver`), so "Your own results" is worded as /handout words it;
  * - the sheet is lib/handout `handoutPageView` given that scenario's link fragment (lib/link
- *   `scenarioFragment`), i.e. the very call /handout makes when it opens that link, with the same
- *   default template, paper and date.
+ *   `scenarioFragment`) and that record, i.e. the very call /handout makes when it opens that
+ *   link, with the same default template, paper and date (less the editor's reading grades,
+ *   which are not printed: `grades: false`).
+ * Without checkups (a saved session keeps no file to read them from) the sheet has no own
+ * results, as /handout's has when nothing was handed over.
  *
  * A worker gets no sheet, and is counted and listed with the reason, when the evidence does not
  * apply to them (status neither, insufficient or diabetes range: no figures), or when
  * `/handout` would refuse the sheet (`capped`: the figures reach certainty; `words` or `broken`).
  * The pseudonymous worker id rides beside the sheet, never inside it, and only when asked for.
  */
+import type { Checkup } from '../glycaemia/schema';
 import { DEFAULT_BLOCKS } from '../handout/blocks';
+import { handOverRecord } from '../handout/ownResults';
 import { handoutPageView, type HandoutProblemKind } from '../handout/page';
 import type { HandoutSheet, HandoutSheetTemplate } from '../handout/sheet';
 import type { PaperSize } from '../handout/paper';
@@ -65,20 +74,31 @@ export type BatchHandout =
       readonly worker: string;
       readonly workerId: string | undefined;
       readonly sheet: HandoutSheet;
-      /** {@link batchSheetKey}: equal keys, equal sheets, so the screen draws a sheet once and copies it. */
+      /**
+       * {@link batchSheetKey}: equal keys, equal sheets but for the own results' sentences, so the
+       * screen draws a sheet once per key and copies it, writing in each worker's own results.
+       */
       readonly sheetKey: string;
+      /**
+       * Set when the worker's checkups were given but /handout's checks refused them (the sheet
+       * then has no own results, as on /handout): the reason, in /handout's words.
+       */
+      readonly historyLeftOff: string | undefined;
     }
   | { readonly kind: 'skipped'; readonly index: number; readonly worker: string; readonly reason: BatchSkipReason; readonly message: string };
 
 /**
- * A sheet's whole content as a string: two sheets are equal exactly when their keys are. The
- * pictures' cells are written one letter each (kind, and "+" for a "could be" icon) instead of
- * as objects, so a key of a 1,000-icon sheet stays a few kilobytes. Workers of the same age band
- * and sex usually share one sheet (the exact age is not printed), so a batch of 500 workers
- * holds a handful of distinct sheets.
+ * A sheet's content as a string, all but the own results' sentences: two sheets have equal keys
+ * exactly when they are equal in everything else. Left out besides: the reading grades, which
+ * the printed sheet does not show (they are the editor's) and which count the own results' words.
+ * The pictures' cells are written one letter each (kind, and "+" for a "could be" icon) instead
+ * of as objects, so a key of a 1,000-icon sheet stays a few kilobytes. Workers of the same age
+ * band and sex share a key (the exact age is not printed), so a batch of 500 workers holds a
+ * handful of distinct keys: the screen draws each once and writes in each worker's own results.
  */
 export function batchSheetKey(sheet: HandoutSheet): string {
-  return JSON.stringify(sheet, (key, value: unknown) =>
+  const { readability: _grades, ownResults, ...printed } = sheet;
+  return JSON.stringify({ ...printed, ownResults: ownResults ? ownResults.heading : null }, (key, value: unknown) =>
     key === 'cells' && Array.isArray(value) ? (value as { kind: string; uncertain: boolean }[]).map((c) => `${c.kind[0]}${c.uncertain ? '+' : ''}`).join('') : value,
   );
 }
@@ -86,14 +106,15 @@ export function batchSheetKey(sheet: HandoutSheet): string {
 const DEFAULT_TEMPLATE: HandoutSheetTemplate = { blocks: DEFAULT_BLOCKS, clinic: {} };
 
 /**
- * One worker's handout, or why there is none.
+ * One worker's handout, or why there is none. `checkups`: the worker's glucose history as read
+ * again from the file (./workerHistory.ts `workerCheckups`); undefined when it cannot be read.
  * @example
- * batchHandout(W001, context, { paper: 'a4', date, showIds: true })
- * //=> { kind: 'sheet', worker: 'W001', workerId: 'W001', sheet: { caution: …, arrays: […], … } }
- * batchHandout(W002, context, { paper: 'a4', date, showIds: false })
- * //=> { kind: 'skipped', worker: 'W002', reason: 'not-applicable', message: 'Not enough results: the study's figures do not apply (Not enough yearly results yet.)' }
+ * batchHandout(W001, 0, context, { paper: 'a4', date, showIds: true }, w001Checkups)
+ * //=> { kind: 'sheet', worker: 'W001', workerId: 'W001', sheet: { caution: …, arrays: […], ownResults: { heading: 'Your own results', items: ['Your HbA1c was between 5.9% and 6.2% at five yearly checkups, from 2021 to 2025.', …] }, … }, … }
+ * batchHandout(W002, 1, context, { paper: 'a4', date, showIds: false })
+ * //=> { kind: 'skipped', worker: 'W002', reason: 'not-applicable', message: 'Not enough results: the study's figures do not apply (Not enough yearly results yet).' }
  */
-export function batchHandout(result: WorkerResult, index: number, context: CheckupsContext, options: BatchOptions): BatchHandout {
+export function batchHandout(result: WorkerResult, index: number, context: CheckupsContext, options: BatchOptions, checkups?: readonly Checkup[]): BatchHandout {
   const scenario = workerScenario(result, context);
   if (scenario === null) {
     const why = result.reasons[0];
@@ -105,11 +126,21 @@ export function batchHandout(result: WorkerResult, index: number, context: Check
       message: `${STATUS_LABELS[result.status]}: the study\u2019s figures do not apply${why ? ` (${why.replace(/\.$/, '')})` : ''}.`,
     };
   }
-  const view = handoutPageView(scenarioFragment(scenario), options.template ?? DEFAULT_TEMPLATE, { date: options.date, paper: options.paper, table: context.table });
+  const storedHistory = checkups === undefined ? null : handOverRecord(scenario, { criteria: context.criteria, checkups });
+  // No reading grades: no one edits these sheets, and nothing printed depends on them.
+  const view = handoutPageView(scenarioFragment(scenario), options.template ?? DEFAULT_TEMPLATE, { date: options.date, paper: options.paper, table: context.table, storedHistory, grades: false });
   if (view.kind === 'problem') {
     return { kind: 'skipped', index, worker: result.worker, reason: view.problem.kind, message: view.problem.heading };
   }
-  return { kind: 'sheet', index, worker: result.worker, workerId: options.showIds ? result.worker : undefined, sheet: view.sheet, sheetKey: batchSheetKey(view.sheet) };
+  return {
+    kind: 'sheet',
+    index,
+    worker: result.worker,
+    workerId: options.showIds ? result.worker : undefined,
+    sheet: view.sheet,
+    sheetKey: batchSheetKey(view.sheet),
+    historyLeftOff: view.history.state === 'damaged' ? view.history.message : undefined,
+  };
 }
 
 export interface BatchCounts {
@@ -148,16 +179,37 @@ export function batchCountsText(counts: BatchCounts): string {
 }
 
 /**
- * Every chosen worker's handout, in file order.
+ * Every chosen worker's handout, in file order; `histories` holds each worker's checkups (by
+ * worker id) when they could be read again from the file.
  * @example
- * batchHandouts(results, batchSelection(results, 'exposed', new Set()), context, { paper: 'letter', date, showIds: false })
+ * batchHandouts(results, batchSelection(results, 'exposed', new Set()), context, { paper: 'letter', date, showIds: false }, histories)
  * //=> [{ kind: 'sheet', worker: 'W001', workerId: undefined, … }, …]
  */
-export function batchHandouts(results: readonly WorkerResult[], indices: readonly number[], context: CheckupsContext, options: BatchOptions): BatchHandout[] {
+export function batchHandouts(
+  results: readonly WorkerResult[],
+  indices: readonly number[],
+  context: CheckupsContext,
+  options: BatchOptions,
+  histories?: ReadonlyMap<string, readonly Checkup[]>,
+): BatchHandout[] {
   const out: BatchHandout[] = [];
   for (const i of indices) {
     const r = results[i];
-    if (r) out.push(batchHandout(r, i, context, options));
+    if (r) out.push(batchHandout(r, i, context, options, histories?.get(r.worker)));
   }
   return out;
 }
+
+/** What the screen says while it prepares the handouts, and about the workers' own results. */
+export const BATCH_MESSAGES = {
+  /** Said before printing when the results come from a saved session. */
+  noFile: 'A saved session keeps no checkup file, so these handouts print without each worker\u2019s own results (their glucose history).',
+  reading: 'Reading the chosen workers\u2019 results again from the file\u2026',
+  /** The file could not be read again: the handouts are made without own results. */
+  unreadable: (why: string) => `The workers\u2019 own results could not be read again from the file, so these handouts print without them. ${why.replace(/\.?$/, '.')}`,
+  preparing: (done: number, total: number) => `Preparing handout ${done.toLocaleString('en')} of ${total.toLocaleString('en')}\u2026`,
+  /** The small print under a sheet when the physician ticks "print each worker's id". */
+  idLine: (worker: string) => `Worker ${worker}`,
+  /** A worker whose history /handout's checks refused: their handout prints without it. */
+  leftOff: (worker: string, why: string) => `${worker}: the handout prints without their own results. ${why}`,
+} as const;

@@ -1,8 +1,9 @@
 /**
- * One worker's glucose history from the checkup file, for "open one worker" (issue 10, item 7).
- * The run keeps only each worker's result, so the file (still in the page's memory) is read again
- * with the same readers and the same confirmed mapping (lib/workforce), keeping that worker's
- * rows only; the rows become checkups exactly as lib/workforce `evaluateWorker` makes them
+ * Workers' glucose histories from the checkup file, for "open one worker" (issue 10, item 7) and
+ * for the own results on batch handouts (item 9). The run keeps only each worker's result, so the
+ * file (still in the page's memory) is read again with the same readers and the same confirmed
+ * mapping (lib/workforce), keeping the rows of the wanted workers only, in one pass however many
+ * they are; the rows become checkups exactly as lib/workforce `evaluateWorker` makes them
  * (lib/glycaemia `mergeSameDate`: same-day rows merged, a conflicting row left out).
  */
 import { mergeSameDate } from '../glycaemia/parse';
@@ -26,19 +27,39 @@ export function workerCheckups(rows: readonly CheckupRow[]): Checkup[] {
   return [...checkups].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
 }
 
+/** Each wanted worker's rows, in file order; a wanted worker with no row is absent. */
+export type RowsByWorker = Map<string, CheckupRow[]>;
+
+/** Collects the rows of the wanted workers as a file's rows go by. */
+function rowKeeper(workers: ReadonlySet<string>) {
+  const kept: RowsByWorker = new Map();
+  return {
+    kept,
+    keep(rows: readonly CheckupRow[]) {
+      for (const r of rows) {
+        if (!workers.has(r.worker)) continue;
+        const list = kept.get(r.worker);
+        if (list) list.push(r);
+        else kept.set(r.worker, [r]);
+      }
+    },
+  };
+}
+
 /**
- * The rows of one worker in a file given as text chunks (CSV/TSV, or FHIR bulk NDJSON with
- * `{ file }` markers), read with the run's reader options; a refusal when the file cannot be read.
+ * The rows of the wanted workers in a file given as text chunks (CSV/TSV, or FHIR bulk NDJSON
+ * with `{ file }` markers), read once with the run's reader options; a refusal when the file
+ * cannot be read.
+ * @example
+ * await collectWorkersRows(['Worker,Checkup date,HbA1c (%)\nW001,2021-04-06,5.9\nW002,2021-04-07,5.2\n'], { reader: { today: '2025-06-01' }, format: 'delimited' }, new Set(['W002']))
+ * //=> Map { 'W002' => [{ line: 3, worker: 'W002', date: '2021-04-07', hba1c: { value: 5.2, unit: '%' }, strata: {} }] }
  */
-export async function collectWorkerRows(
+export async function collectWorkersRows(
   chunks: AsyncIterable<string | { readonly file: string }> | Iterable<string | { readonly file: string }>,
   options: { readonly reader: CheckupReaderOptions; readonly format: 'delimited' | 'fhir-ndjson' },
-  worker: string,
-): Promise<CheckupRow[] | ReadRefusal> {
-  const kept: CheckupRow[] = [];
-  const keep = (rows: readonly CheckupRow[]) => {
-    for (const r of rows) if (r.worker === worker) kept.push(r);
-  };
+  workers: ReadonlySet<string>,
+): Promise<RowsByWorker | ReadRefusal> {
+  const { kept, keep } = rowKeeper(workers);
   if (options.format === 'fhir-ndjson') {
     const reader = new FhirBulkReader(options.reader);
     for await (const chunk of chunks) {
@@ -62,8 +83,26 @@ export async function collectWorkerRows(
 }
 
 /** The same for a workbook's sheet already read into cells. */
-export function collectWorkerRowsFromTable(table: readonly (readonly CellValue[])[], reader: CheckupReaderOptions, worker: string): CheckupRow[] | ReadRefusal {
+export function collectWorkersRowsFromTable(table: readonly (readonly CellValue[])[], reader: CheckupReaderOptions, workers: ReadonlySet<string>): RowsByWorker | ReadRefusal {
   const read = readCheckupTable(table, reader);
   if (isRefusal(read)) return read;
-  return read.step.rows.filter((r) => r.worker === worker);
+  const { kept, keep } = rowKeeper(workers);
+  keep(read.step.rows);
+  return kept;
+}
+
+/** One worker's rows (see {@link collectWorkersRows}); none when the worker has no row. */
+export async function collectWorkerRows(
+  chunks: AsyncIterable<string | { readonly file: string }> | Iterable<string | { readonly file: string }>,
+  options: { readonly reader: CheckupReaderOptions; readonly format: 'delimited' | 'fhir-ndjson' },
+  worker: string,
+): Promise<CheckupRow[] | ReadRefusal> {
+  const rows = await collectWorkersRows(chunks, options, new Set([worker]));
+  return rows instanceof Map ? (rows.get(worker) ?? []) : rows;
+}
+
+/** One worker's rows from a workbook's sheet. */
+export function collectWorkerRowsFromTable(table: readonly (readonly CellValue[])[], reader: CheckupReaderOptions, worker: string): CheckupRow[] | ReadRefusal {
+  const rows = collectWorkersRowsFromTable(table, reader, new Set([worker]));
+  return rows instanceof Map ? (rows.get(worker) ?? []) : rows;
 }

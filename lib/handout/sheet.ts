@@ -65,6 +65,12 @@ export interface HandoutSheetOptions {
   readonly table?: PopulationTable | undefined;
   /** The person's glucose history (handed over from the consultation screen); one person only. */
   readonly history?: Pick<GlucoseHistory, 'criteria' | 'checkups'> | undefined;
+  /**
+   * Work out the reading grades the editor shows (default true). Nothing printed depends on them;
+   * a batch of sheets that no one edits (the checkups screen's batch handouts) leaves them out:
+   * they were more than half the time a sheet took. Without them `readability` is empty.
+   */
+  readonly grades?: boolean | undefined;
 }
 
 export interface SheetLegendEntry {
@@ -219,8 +225,9 @@ export function handoutSheet(scenario: Scenario, template: HandoutSheetTemplate,
 
   const opening = paragraphs(blocks.opening);
   const nextSteps = paragraphs(blocks.nextSteps);
-  const whole = readability([blocks.title, ...opening, patientProse(text), ...own, ...nextSteps].join('\n'));
-  const wholeGrade = whole.ok ? whole.value.grade : undefined;
+  const grades = options.grades !== false;
+  const whole = grades ? readability([blocks.title, ...opening, patientProse(text), ...own, ...nextSteps].join('\n')) : undefined;
+  const wholeGrade = whole?.ok ? whole.value.grade : undefined;
 
   return ok({
     paper: {
@@ -258,7 +265,7 @@ export function handoutSheet(scenario: Scenario, template: HandoutSheetTemplate,
     nextSteps: { heading: 'Next steps', paragraphs: nextSteps },
     footer: { label: 'Where the numbers come from: ', sources: content.value.sources, preparedOn: preparedOnLine(options.date, paper) },
     readability: {
-      blocks: blockGrades(blocks),
+      blocks: grades ? blockGrades(blocks) : [],
       whole:
         wholeGrade === undefined
           ? ''

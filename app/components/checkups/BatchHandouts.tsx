@@ -4,21 +4,24 @@
  * ones ticked in the worklist), the paper and whether each sheet carries the worker's
  * pseudonymous id, then prepare and print them in one print job, one page per worker.
  *
- * Each sheet is lib/checkups `batchHandout` (the sheet /handout makes for the worker's
- * scenario), drawn by /handout's own HandoutSheet component (once per distinct sheet, then copied
- * page by page: see createSheetDrawer). The pages exist only once the physician asks for them:
- * they are made a few at a time (the page stays responsive, a progress bar says how far), kept
- * out of sight on screen, and printed alone, one page each. Changing the choice clears them.
+ * Each sheet is lib/checkups `batchHandout`: the sheet /handout makes for the worker's scenario
+ * and glucose history, the history read again from the file in the screen's Web Worker, all the
+ * chosen workers in one pass (./workerHistories.ts). A saved session keeps no file: the screen
+ * says so before anything is prepared, and the sheets have no own results.
+ *
+ * The pages exist only once the physician asks for them. They are made in short slices (each at
+ * most {@link SLICE_MS} of work, then the page gets the thread back), one page put in at a time
+ * (./batchPages.tsx draws each distinct sheet once and copies it), with a progress bar and
+ * Cancel; they are kept out of sight on screen and printed alone, one page each. Changing the
+ * choice clears them.
  */
 import { useEffect, useMemo, useRef, useState } from 'react';
+import { createPortal } from 'react-dom';
 import { useHydrated } from '@/app/components/useHydrated';
-
-import { createPortal, flushSync } from 'react-dom';
-import { createRoot, type Root } from 'react-dom/client';
-import { HandoutSheet } from '@/app/components/handout/HandoutSheet';
 import {
   BATCH_CHOICE_LABELS,
   BATCH_CHOICES,
+  BATCH_MESSAGES,
   batchCounts,
   batchCountsText,
   batchHandout,
@@ -26,59 +29,34 @@ import {
   type BatchChoice,
   type BatchHandout,
 } from '@/lib/checkups/batchHandouts';
+import type { Checkup } from '@/lib/glycaemia/schema';
 import { PAPER_SIZE_KEYS, PAPER_SIZES, pageRule, type PaperSize } from '@/lib/handout/paper';
 import type { CheckupsContext, WorkerResult } from '@/lib/workforce';
+import { createPageDrawer, nextTask, type SheetHandout } from './batchPages';
+import type { ReadHistories } from './workerHistories';
 import '@/app/components/handout/handout.css';
 
-/** Workers handled between two pauses: each sheet takes a few milliseconds to build and to copy. */
-const PER_SLICE = 4;
+/**
+ * Work done between two pauses, in milliseconds: well under the 50 ms a task may take (the
+ * longest single step, one worker's sheet and page, takes a few milliseconds).
+ */
+const SLICE_MS = 10;
 
 interface Job {
   readonly id: number;
-  readonly handouts: readonly BatchHandout[];
-  readonly total: number;
   readonly paper: PaperSize;
-  readonly done: boolean;
-}
-
-type SheetHandout = Extract<BatchHandout, { kind: 'sheet' }>;
-
-
-/**
- * The drawn sheets of one batch, one per sheet key, drawn by React into elements that are never
- * in the document; each printed page is a copy (`cloneNode`) of one of them. Drawing a sheet of
- * 2,000 icons with React for each of 500 workers took minutes here; most workers of a workforce
- * share a handful of sheets, and a copy is cheap.
- */
-function createSheetDrawer() {
-  const drawn = new Map<string, { root: Root; element: Element }>();
-  return {
-    page(handout: SheetHandout): HTMLElement {
-      let found = drawn.get(handout.sheetKey);
-      if (!found) {
-        const holder = document.createElement('div');
-        const root = createRoot(holder);
-        flushSync(() => root.render(<HandoutSheet sheet={handout.sheet} idPrefix={`batch-${drawn.size}-`} />));
-        const element = holder.firstElementChild ?? holder;
-        found = { root, element };
-        drawn.set(handout.sheetKey, found);
-      }
-      const page = document.createElement('div');
-      page.className = 'batch-print__page';
-      page.append(found.element.cloneNode(true));
-      if (handout.workerId !== undefined) {
-        const id = document.createElement('p');
-        id.className = 'batch-print__id';
-        id.textContent = `Worker ${handout.workerId}`;
-        page.append(id);
-      }
-      return page;
-    },
-    dispose() {
-      for (const { root } of drawn.values()) root.unmount();
-      drawn.clear();
-    },
-  };
+  readonly total: number;
+  /** Reading the workers' results again from the file, then preparing the pages. */
+  readonly stage: 'reading' | 'preparing' | 'done';
+  readonly bytesRead: number;
+  readonly bytesTotal: number;
+  /** Workers handled so far, and pages made. */
+  readonly handled: number;
+  readonly pages: number;
+  /** Said when the file could not be read again (the sheets have no own results). */
+  readonly readProblem: string | null;
+  /** Every chosen worker's handout, once done. */
+  readonly handouts: readonly BatchHandout[];
 }
 
 export interface BatchHandoutsProps {
@@ -87,15 +65,16 @@ export interface BatchHandoutsProps {
   readonly context: CheckupsContext | null;
   /** Workers ticked in the worklist, by position in `results`. */
   readonly ticked: ReadonlySet<number>;
+  /** Reads the chosen workers' checkups again from the file; null when there is no file (a saved session). */
+  readonly readHistories: ReadHistories | null;
 }
 
-export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) {
+export function BatchHandouts({ results, context, ticked, readHistories }: BatchHandoutsProps) {
   const inBrowser = useHydrated();
   const [choice, setChoice] = useState<BatchChoice>('exposed');
   const [paper, setPaper] = useState<PaperSize>('a4');
   const [showIds, setShowIds] = useState(false);
   const [job, setJob] = useState<Job | null>(null);
-  const [pagesReady, setPagesReady] = useState(0);
   const pagesRef = useRef<HTMLDivElement | null>(null);
   const jobCounter = useRef(0);
 
@@ -106,52 +85,84 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
   );
 
   // Prepared sheets belong to the choice they were made for: any change clears them.
-  const [madeFor, setMadeFor] = useState({ chosen, paper, showIds });
-  if (madeFor.chosen !== chosen || madeFor.paper !== paper || madeFor.showIds !== showIds) {
-    setMadeFor({ chosen, paper, showIds });
+  const [madeFor, setMadeFor] = useState({ chosen, paper, showIds, readHistories });
+  if (madeFor.chosen !== chosen || madeFor.paper !== paper || madeFor.showIds !== showIds || madeFor.readHistories !== readHistories) {
+    setMadeFor({ chosen, paper, showIds, readHistories });
     if (job) setJob(null);
   }
 
-  // A job runs a few workers at a time: build each one's sheet (lib), then put its page in place.
+  // A job: read the chosen workers' checkups again (one pass over the file), then build each
+  // worker's sheet (lib) and put its page in place, a slice at a time.
   const jobId = job?.id;
   useEffect(() => {
     if (jobId === undefined || !context) return;
     const container = pagesRef.current;
     if (!container) return;
-    const drawer = createSheetDrawer();
+    let cancelled = false;
+    let cancelRead: (() => void) | null = null;
+    const update = (change: Partial<Job>) => setJob((j) => (j && j.id === jobId ? { ...j, ...change } : j));
     const options = { paper, date: new Date(), showIds };
-    const list: BatchHandout[] = [];
-    let at = 0;
-    let pages = 0;
-    let timer: number | null = null;
-    // The pages wait outside the document and go in together at the end: copies of one sheet
-    // share its ids, and each copy put into the document on its own makes the browser re-check
-    // every icon already there that refers to those ids (minutes for 500 pages here).
-    const added = document.createDocumentFragment();
-    const step = () => {
-      const end = Math.min(at + PER_SLICE, chosen.length);
-      for (; at < end; at++) {
-        const index = chosen[at];
-        const result = index === undefined ? undefined : results[index];
-        if (index === undefined || !result) continue;
-        const handout = batchHandout(result, index, context, options);
+    const drawer = createPageDrawer();
+
+    const prepare = async () => {
+      let histories: ReadonlyMap<string, readonly Checkup[]> | undefined;
+      if (readHistories) {
+        // Each result is read from its packed form when first asked for (lib/checkups/packedResults.ts): the ids a slice at a time.
+        const workers: string[] = [];
+        let idsStart = performance.now();
+        for (const i of chosen) {
+          const worker = results[i]?.worker;
+          if (worker !== undefined) workers.push(worker);
+          if (performance.now() - idsStart > SLICE_MS) {
+            await nextTask();
+            if (cancelled) return;
+            idsStart = performance.now();
+          }
+        }
+        const read = readHistories(workers, (bytesRead, bytesTotal) => update({ bytesRead, bytesTotal }));
+        cancelRead = read.cancel;
+        const outcome = await read.outcome;
+        cancelRead = null;
+        if (cancelled) return;
+        if (outcome.ok) histories = outcome.histories;
+        else update({ readProblem: BATCH_MESSAGES.unreadable(outcome.message) });
+      }
+      update({ stage: 'preparing' });
+      await nextTask();
+      const list: BatchHandout[] = [];
+      let pages = 0;
+      let sliceStart = performance.now();
+      for (const index of chosen) {
+        const result = results[index];
+        if (!result) continue;
+        // Without a file every sheet goes without own results; with one, a worker the pass did not find has none either.
+        const handout = batchHandout(result, index, context, options, histories ? (histories.get(result.worker) ?? []) : undefined);
         list.push(handout);
         if (handout.kind === 'sheet') {
-          added.append(drawer.page(handout));
+          if (!drawer.has(handout)) {
+            await drawer.draw(handout);
+            await nextTask();
+            if (cancelled) return;
+            sliceStart = performance.now();
+          }
+          container.append(drawer.page(handout));
           pages++;
         }
+        if (performance.now() - sliceStart > SLICE_MS) {
+          update({ handled: list.length, pages });
+          await nextTask();
+          if (cancelled) return;
+          sliceStart = performance.now();
+        }
       }
-      const done = at >= chosen.length;
-      if (done) container.append(added);
-      setPagesReady(pages);
-      setJob((j) => (j && j.id === jobId ? { ...j, handouts: list.slice(), done } : j));
-      timer = done ? null : window.setTimeout(step, 0);
+      update({ stage: 'done', handled: list.length, pages, handouts: list });
     };
-    timer = window.setTimeout(step, 0);
+    void prepare();
     return () => {
-      if (timer !== null) window.clearTimeout(timer);
-      drawer.dispose();
+      cancelled = true;
+      cancelRead?.();
       container.replaceChildren();
+      drawer.dispose();
     };
     // The job's settings are fixed when it starts (a change clears the job): only a new job restarts this.
     // eslint-disable-next-line react-hooks/exhaustive-deps
@@ -160,25 +171,43 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
   const prepare = () => {
     if (!context || chosen.length === 0) return;
     jobCounter.current += 1;
-    setPagesReady(0);
-    setJob({ id: jobCounter.current, handouts: [], total: chosen.length, paper, done: false });
+    setJob({
+      id: jobCounter.current,
+      paper,
+      total: chosen.length,
+      stage: readHistories ? 'reading' : 'preparing',
+      bytesRead: 0,
+      bytesTotal: 0,
+      handled: 0,
+      pages: 0,
+      readProblem: null,
+      handouts: [],
+    });
   };
 
-  const counts = job?.done ? batchCounts(job.handouts) : null;
-  const skipped = job?.done ? job.handouts.filter((h): h is Extract<BatchHandout, { kind: 'skipped' }> => h.kind === 'skipped') : [];
-  const sheets = job ? job.handouts.filter((h): h is SheetHandout => h.kind === 'sheet') : [];
+  const done = job?.stage === 'done';
+  const counts = done ? batchCounts(job.handouts) : null;
+  const skipped = done ? job.handouts.filter((h): h is Extract<BatchHandout, { kind: 'skipped' }> => h.kind === 'skipped') : [];
+  const leftOff = done ? job.handouts.filter((h): h is SheetHandout => h.kind === 'sheet' && h.historyLeftOff !== undefined) : [];
 
   return (
     <section aria-labelledby="batch-heading" className="checkups__section" data-testid="batch">
       <h2 id="batch-heading">Handouts for several workers</h2>
-      <p>One page per worker, each the handout the consultation screen would print for that worker&rsquo;s figures, all in one print job.</p>
-      <div className="checkups__grid">
+      <p>One page per worker, each the handout the consultation screen would print for that worker&rsquo;s figures and results, all in one print job.</p>
+      {readHistories ? null : (
+        <p className="checkups__note" data-testid="batch-no-file">
+          {BATCH_MESSAGES.noFile}
+        </p>
+      )}
+      <div className="checkups__grid batch__choices">
         <fieldset className="checkups__fieldset">
           <legend>Which workers</legend>
           {BATCH_CHOICES.map((c) => (
             <label key={c} className="checkups__choice">
               <input type="radio" name="batch-choice" value={c} checked={choice === c} onChange={() => setChoice(c)} />
-              {BATCH_CHOICE_LABELS[c]} ({choiceCounts[c]})
+              <span>
+                {BATCH_CHOICE_LABELS[c]} ({choiceCounts[c].toLocaleString('en')})
+              </span>
             </label>
           ))}
         </fieldset>
@@ -187,7 +216,7 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
           {PAPER_SIZE_KEYS.map((key) => (
             <label key={key} className="checkups__choice">
               <input type="radio" name="batch-paper" value={key} checked={paper === key} onChange={() => setPaper(key)} />
-              {PAPER_SIZES[key].label}
+              <span>{PAPER_SIZES[key].label}</span>
             </label>
           ))}
         </fieldset>
@@ -195,44 +224,65 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
           <legend>Worker id</legend>
           <label className="checkups__choice">
             <input type="checkbox" checked={showIds} onChange={(e) => setShowIds(e.target.checked)} />
-            Print each worker&rsquo;s id in small print
+            <span>Print each worker&rsquo;s id in small print</span>
           </label>
         </fieldset>
       </div>
       <div className="checkups__actions">
-        <button type="button" onClick={prepare} disabled={!context || chosen.length === 0 || (job !== null && !job.done)}>
-          Prepare {chosen.length === 1 ? 'the handout' : `${chosen.length} handouts`}
+        <button type="button" onClick={prepare} disabled={!context || chosen.length === 0 || (job !== null && !done)}>
+          Prepare {chosen.length === 1 ? 'the handout' : `${chosen.length.toLocaleString('en')} handouts`}
         </button>
-        {job && !job.done ? (
+        {job && !done ? (
           <button type="button" onClick={() => setJob(null)}>
             Cancel
           </button>
         ) : null}
-        {job?.done && sheets.length > 0 ? (
+        {done && job.pages > 0 ? (
           <button type="button" onClick={() => window.print()} data-testid="batch-print-button">
-            Print or save as PDF ({sheets.length === 1 ? '1 page' : `${sheets.length} pages`})
+            Print or save as PDF ({job.pages === 1 ? '1 page' : `${job.pages.toLocaleString('en')} pages`})
           </button>
         ) : null}
-        {job?.done ? (
+        {done ? (
           <button type="button" onClick={() => setJob(null)}>
             Clear the prepared handouts
           </button>
         ) : null}
       </div>
-      {job && !job.done ? (
-        <>
-          <progress aria-label="Preparing the handouts" max={job.total} value={job.handouts.length} />
-          <p>
-            Preparing handout {job.handouts.length} of {job.total}…
-          </p>
-        </>
+      {job?.stage === 'reading' ? (
+        <div data-testid="batch-progress">
+          <progress aria-label="Reading the workers’ results again" max={job.bytesTotal || 1} value={job.bytesRead} />
+          <p>{BATCH_MESSAGES.reading}</p>
+        </div>
+      ) : null}
+      {job?.stage === 'preparing' ? (
+        <div data-testid="batch-progress">
+          <progress aria-label="Preparing the handouts" max={job.total} value={job.handled} />
+          <p>{BATCH_MESSAGES.preparing(job.handled, job.total)}</p>
+        </div>
+      ) : null}
+      {job?.readProblem ? (
+        <p className="checkups__message" data-testid="batch-read-problem">
+          {job.readProblem}
+        </p>
       ) : null}
       <p role="status" data-testid="batch-status">
         {counts ? `Ready. ${batchCountsText(counts)}` : job ? '' : chosen.length === 0 ? batchCountsText({ chosen: 0, sheets: 0, skipped: 0, byReason: {} }) : ''}
       </p>
+      {leftOff.length > 0 ? (
+        <div data-testid="batch-left-off">
+          <h3 id="batch-left-off-heading">Handouts without the worker&rsquo;s own results ({leftOff.length.toLocaleString('en')})</h3>
+          <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby="batch-left-off-heading">
+            <ul>
+              {leftOff.map((h) => (
+                <li key={h.index}>{BATCH_MESSAGES.leftOff(h.worker, h.historyLeftOff ?? '')}</li>
+              ))}
+            </ul>
+          </div>
+        </div>
+      ) : null}
       {skipped.length > 0 ? (
         <div data-testid="batch-skipped">
-          <h3 id="batch-skipped-heading">Workers without a handout ({skipped.length})</h3>
+          <h3 id="batch-skipped-heading">Workers without a handout ({skipped.length.toLocaleString('en')})</h3>
           <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby="batch-skipped-heading">
             <ul>
               {skipped.map((h) => (
@@ -246,7 +296,7 @@ export function BatchHandouts({ results, context, ticked }: BatchHandoutsProps) 
       ) : null}
       {inBrowser && job
         ? createPortal(
-            <div className="batch-print" data-testid="batch-print" data-paper={job.paper} data-ready={job.done ? 'true' : 'false'} data-pages={pagesReady}>
+            <div className="batch-print" data-testid="batch-print" data-paper={job.paper} data-ready={done ? 'true' : 'false'} data-pages={job.pages}>
               <style>{pageRule(job.paper)}</style>
               <div ref={pagesRef} />
             </div>,

@@ -1,7 +1,8 @@
 'use client';
 /**
  * The worklist with what can be done to its workers: tick workers for batch handouts
- * (./BatchHandouts.tsx), and open one worker in the consultation screen (issue 10, item 7).
+ * (./BatchHandouts.tsx, their own results read again from the file in the screen's Web Worker,
+ * ./workerHistories.ts), and open one worker in the consultation screen (issue 10, item 7).
  *
  * Open one worker: the consultation screen opens in a new tab, so this tab keeps its worklist
  * (the file lives only in this tab's memory). The worker's checkups are read again from the same
@@ -16,6 +17,7 @@ import type { WorklistRow } from '@/lib/checkups/worklist';
 import { prepareCheckups, workerScenario, type WorkerResult } from '@/lib/workforce';
 import { BatchHandouts } from './BatchHandouts';
 import type { FilterChoices, FromWorker, ToWorker } from './protocol';
+import { historiesReader } from './workerHistories';
 import { Worklist } from './Worklist';
 import type { WorklistRanks } from '@/lib/checkups/worklistOrder';
 
@@ -56,6 +58,12 @@ export function BatchWorklist({ rows, results, run, worker, choices = null, rank
     const prepared = prepareCheckups({ evidence: run.evidence, table: run.table, criteria: run.criteria, ...(run.horizon !== null ? { horizonYears: run.horizon } : {}) });
     return prepared.ok ? prepared.value : null;
   }, [run]);
+
+  // Batch handouts read the chosen workers' checkups again from the file; a saved session has none.
+  const readHistories = useMemo(
+    () => (run && run.files.length > 0 ? historiesReader(worker, { files: run.files, kind: run.kind, today: run.today, mapping: run.mapping }) : null),
+    [run, worker],
+  );
 
   const onSelect = useCallback((indices: readonly number[], on: boolean) => {
     setTicked((old) => {
@@ -115,7 +123,7 @@ export function BatchWorklist({ rows, results, run, worker, choices = null, rank
 
   return (
     <>
-      <BatchHandouts results={results} context={context} ticked={ticked} />
+      <BatchHandouts results={results} context={context} ticked={ticked} readHistories={readHistories} />
       <Worklist rows={rows} selected={ticked} onSelect={onSelect} onOpen={onOpen} canOpen={canOpen} choices={choices} ranks={ranks} />
       <p role="status" data-testid="open-status" className="checkups__inline-status">
         {openMessage}

@@ -36,7 +36,7 @@ import { copyPackedChunk, packedChunkBuffers, packedResultList, ResultsPacker, t
 import { workersCsv } from '@/lib/checkups/exportCsv';
 import { SESSION_VERSION, type CheckupSession } from '@/lib/checkups/session';
 import { openSessionStore } from '@/app/storage/sessions';
-import { collectWorkerRows, collectWorkerRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
+import { collectWorkerRows, collectWorkerRowsFromTable, collectWorkersRows, collectWorkersRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
 import type { FromWorker, ToWorker } from './protocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -282,6 +282,51 @@ async function history(data: Extract<ToWorker, { type: 'history' }>): Promise<vo
   post({ type: 'history', worker: data.worker, checkups: workerCheckups(rows), message: null });
 }
 
+/** Workers' checkups per 'histories' answer: small enough that the page takes each in a few milliseconds. */
+const HISTORIES_BATCH = 250;
+type FromWorkerHistories = Extract<FromWorker, { type: 'histories' }>;
+/** The 'histories' pass still reading, if any. */
+let historiesPass: { readonly id: number; readonly controller: AbortController } | null = null;
+
+/** The chosen workers' checkups, read again from the same files in one pass, with progress. */
+async function histories(data: Extract<ToWorker, { type: 'histories' }>): Promise<void> {
+  historiesPass?.controller.abort();
+  const pass = { id: data.id, controller: new AbortController() };
+  historiesPass = pass;
+  const { signal } = pass.controller;
+  const bytesTotal = data.files.reduce((sum, f) => sum + f.size, 0);
+  let bytesRead = 0;
+  const answer = (rest: { histories?: FromWorkerHistories['histories']; done: boolean; message: string | null }) =>
+    post({ type: 'histories', id: data.id, bytesRead, bytesTotal, histories: rest.histories ?? [], done: rest.done, message: rest.message });
+  const reader = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
+  const wanted = new Set(data.workers);
+  let rows;
+  if (data.kind === 'xlsx') {
+    const file = data.files[0];
+    const sheet = file ? await readXlsxSheet(file) : null;
+    rows = !sheet ? null : isRefusal(sheet) ? sheet : collectWorkersRowsFromTable(sheet.rows, reader, wanted);
+  } else {
+    async function* counted(): AsyncGenerator<string | { file: string }> {
+      for await (const chunk of slices(data.files, data.kind === 'fhir-ndjson')) {
+        if (signal.aborted) return;
+        if (typeof chunk === 'string') {
+          bytesRead = Math.min(bytesTotal, bytesRead + SLICE);
+          answer({ done: false, message: null });
+        }
+        yield chunk;
+      }
+    }
+    rows = await collectWorkersRows(counted(), { reader, format: data.kind }, wanted);
+  }
+  if (signal.aborted) return;
+  if (historiesPass === pass) historiesPass = null;
+  bytesRead = bytesTotal;
+  if (!rows || isRefusal(rows)) return answer({ done: true, message: rows ? rows.message : 'No file was given' });
+  const list = [...rows].map(([worker, workerRows]) => ({ worker, checkups: workerCheckups(workerRows) }));
+  for (let at = 0; at < list.length; at += HISTORIES_BATCH) answer({ histories: list.slice(at, at + HISTORIES_BATCH), done: false, message: null });
+  answer({ done: true, message: null });
+}
+
 /** The per-worker CSV of the last finished run, made here so the page never reads every result. */
 function exportWorkers(data: Extract<ToWorker, { type: 'export-workers' }>): void {
   post({ type: 'export-workers', text: lastResults ? workersCsv(packedResultList(lastResults), data.context) : null });
@@ -291,6 +336,14 @@ scope.onmessage = (event: MessageEvent<ToWorker>) => {
   const data = event.data;
   if (data.type === 'cancel') {
     controller?.abort();
+    return;
+  }
+  if (data.type === 'histories-cancel') {
+    if (historiesPass?.id === data.id) historiesPass.controller.abort();
+    return;
+  }
+  if (data.type === 'histories') {
+    void histories(data);
     return;
   }
   if (data.type === 'preview') void preview(data);

@@ -44,7 +44,28 @@ export type ToWorker =
       readonly today: string;
       readonly mapping: ColumnMapping | null;
       readonly worker: string;
-    };
+    }
+  /**
+   * Several workers' rows read again from the same files in one pass (batch handouts' own results,
+   * lib/checkups/workerHistory.ts `collectWorkersRows`). `id` names the pass in its answers; a new
+   * pass, or 'histories-cancel' with its id, stops one still reading.
+   */
+  | {
+      readonly type: 'histories';
+      readonly id: number;
+      readonly files: readonly File[];
+      readonly kind: FileKindName;
+      readonly today: string;
+      readonly mapping: ColumnMapping | null;
+      readonly workers: readonly string[];
+    }
+  | { readonly type: 'histories-cancel'; readonly id: number };
+
+/** One worker's checkups, as read again from the file (answer to 'histories'). */
+export interface WorkerHistoryData {
+  readonly worker: string;
+  readonly checkups: readonly Checkup[];
+}
 
 /** The worklist's filter choices, from the rows (lib/checkups/worklist `worklistFilterChoices`). */
 export interface FilterChoices {
@@ -72,4 +93,18 @@ export type FromWorker =
   /** The answer to 'export-workers': the CSV text, or null when there is no finished run. */
   | { readonly type: 'export-workers'; readonly text: string | null }
   /** The answer to 'history': the worker's checkups, or why the file could not be read again. */
-  | { readonly type: 'history'; readonly worker: string; readonly checkups: readonly Checkup[] | null; readonly message: string | null };
+  | { readonly type: 'history'; readonly worker: string; readonly checkups: readonly Checkup[] | null; readonly message: string | null }
+  /**
+   * Answers to 'histories' `id`: progress through the file (bytes), then the workers' checkups in
+   * batches (a worker with no row is absent), the last one `done`; or `message`, why the file
+   * could not be read again (then `done`, and no checkups).
+   */
+  | {
+      readonly type: 'histories';
+      readonly id: number;
+      readonly bytesRead: number;
+      readonly bytesTotal: number;
+      readonly histories: readonly WorkerHistoryData[];
+      readonly done: boolean;
+      readonly message: string | null;
+    };

@@ -2,19 +2,28 @@
  * Batch handouts: which workers are chosen (hand-worked counts), and that each sheet is exactly
  * the one lib/handout makes for the worker's scenario (handoutSheet is tested on its own in
  * tests/unit/handout/sheet.test.ts, so calling it here for the expected value is legitimate: the
- * code under test is the choice of scenario and the wiring, not the sheet).
+ * code under test is the choice of scenario and the wiring, not the sheet). Batch sheets leave
+ * out the editor's reading grades (`grades: false`, not printed): {@link printed} compares the
+ * rest with /handout's own sheet.
  */
 import { describe, expect, it } from 'vitest';
-import { batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection } from '@/lib/checkups/batchHandouts';
+import { BATCH_MESSAGES, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection } from '@/lib/checkups/batchHandouts';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
-import { DEFAULT_BLOCKS, handoutSheet, ILLUSTRATIVE_BAND_HEADING } from '@/lib/handout';
+import type { Checkup } from '@/lib/glycaemia/schema';
+import { DEFAULT_BLOCKS, handoutSheet, ILLUSTRATIVE_BAND_HEADING, type HandoutSheet } from '@/lib/handout';
 import type { Scenario } from '@/lib/scenario/schema';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
 import { prepareCheckups, type CheckupsContext, type WorkerResult } from '@/lib/workforce';
-import { C003, W001, W002 } from './fixtures';
+import { C003, W001, W001_CHECKUPS, W002 } from './fixtures';
 
 const DATE = new Date(2025, 4, 12, 12); // 12 May 2025, local noon
+
+/** A sheet less its reading grades (editor-only, never printed, left out of batch sheets). */
+function printed(sheet: HandoutSheet): Omit<HandoutSheet, 'readability'> {
+  const { readability: _grades, ...rest } = sheet;
+  return rest;
+}
 
 function contextFor(evidence: EvidenceEntry): CheckupsContext {
   const prepared = prepareCheckups({ evidence, table: DEMO_HEART_FAILURE_10Y, criteria: 'ADA' });
@@ -63,7 +72,8 @@ describe('batchHandout: the sheet is the one /handout makes for the worker’s s
     const got = batchHandout(W001, 0, CONTEXT, { paper: 'a4', date: DATE, showIds: false });
     expect(got.kind).toBe('sheet');
     if (got.kind !== 'sheet') return;
-    expect(got.sheet).toEqual(expected.value);
+    expect(printed(got.sheet)).toEqual(printed(expected.value));
+    expect(got.sheet.readability).toEqual({ blocks: [], whole: '', wholeGrade: undefined });
     expect(got.workerId).toBeUndefined();
     // Demo table and demo study: the band is on the sheet (lib/handout/illustrative.ts).
     expect(got.sheet.illustrative?.heading).toBe(ILLUSTRATIVE_BAND_HEADING);
@@ -90,7 +100,7 @@ describe('batchHandout: the sheet is the one /handout makes for the worker’s s
     if (!expected.ok) throw new Error('the hand-written scenario must give a sheet');
     const got = batchHandout(M064, 3, CONTEXT, { paper: 'a4', date: DATE, showIds: false });
     if (got.kind !== 'sheet') throw new Error('M064 must get a sheet');
-    expect(got.sheet).toEqual(expected.value);
+    expect(printed(got.sheet)).toEqual(printed(expected.value));
     expect(got.index).toBe(3);
   });
 
@@ -107,6 +117,81 @@ describe('batchHandout: the sheet is the one /handout makes for the worker’s s
     // one letter per icon: 1,000 people in each of the two pictures (hand-worked: 0.015 → 1,000, as above)
     expect(a.sheetKey).toContain('"cells":"' + 'e'.repeat(15));
     expect(a.sheetKey.length).toBeLessThan(20_000);
+  });
+});
+
+/** Invented: three yearly HbA1c results only, for a second worker of W001's stratum. */
+const OTHER_CHECKUPS: Checkup[] = [
+  { date: '2022-03-01', hba1c: { value: 5.8, unit: '%' } },
+  { date: '2023-03-01', hba1c: { value: 5.9, unit: '%' } },
+  { date: '2024-03-01', hba1c: { value: 6.1, unit: '%' } },
+];
+/** A print date after every checkup above (a checkup after the print date is refused, as on /handout). */
+const LATER = new Date(2026, 0, 15, 12);
+
+describe('batchHandout with the worker’s checkups: their own results, as /handout prints them', () => {
+  it('W001 with the five checkups of the file: the sheet /handout makes for that scenario and history', () => {
+    const expected = handoutSheet(W001_SCENARIO, { blocks: DEFAULT_BLOCKS, clinic: {} }, { date: LATER, paper: 'a4', table: DEMO_HEART_FAILURE_10Y, history: { criteria: 'ADA', checkups: W001_CHECKUPS } });
+    if (!expected.ok) throw new Error('the hand-written scenario must give a sheet');
+    const got = batchHandout(W001, 0, CONTEXT, { paper: 'a4', date: LATER, showIds: false }, W001_CHECKUPS);
+    if (got.kind !== 'sheet') throw new Error('W001 must get a sheet');
+    expect(printed(got.sheet)).toEqual(printed(expected.value));
+    expect(got.historyLeftOff).toBeUndefined();
+    // Hand-written from the file: HbA1c 5.9 … 6.2 %, every checkup 9 to 13 months after the one
+    // before (yearly: 6 to 18 months, lib/glycaemia/persistence.ts), 2021 to 2025; ADA the run's criteria set.
+    expect(got.sheet.ownResults?.heading).toBe('Your own results');
+    expect(got.sheet.ownResults?.items).toContain('Your HbA1c was between 5.9% and 6.2% at five yearly checkups, from 2021 to 2025.');
+    expect(got.sheet.ownResults?.items).toContain('Your fasting blood sugar (glucose) was between 5.2 mmol/L and 5.6 mmol/L at five yearly checkups, from 2021 to 2025.');
+    expect(got.sheet.ownResults?.items).toContain('A range is not a diagnosis.');
+    expect(got.sheet.ownResults?.items).toContain('Ranges as set by the American Diabetes Association (ADA).');
+  });
+
+  it('two workers of one stratum with other histories: one sheet key (drawn once), each with their own results', () => {
+    const options = { paper: 'a4', date: LATER, showIds: false } as const;
+    const a = batchHandout(W001, 0, CONTEXT, options, W001_CHECKUPS);
+    const b = batchHandout({ ...W001, worker: 'W099', age: 55 }, 1, CONTEXT, options, OTHER_CHECKUPS);
+    if (a.kind !== 'sheet' || b.kind !== 'sheet') throw new Error('both must be sheets');
+    expect(b.sheetKey).toBe(a.sheetKey);
+    expect(b.sheet.ownResults?.items).toContain('Your HbA1c was between 5.8% and 6.1% at three yearly checkups, from 2022 to 2024.'); // hand-written from OTHER_CHECKUPS
+    expect(b.sheet.ownResults?.items).not.toEqual(a.sheet.ownResults?.items);
+    expect(a.sheetKey).not.toContain('5.9%');
+    // everything else printed is the same
+    expect({ ...b.sheet, ownResults: undefined, readability: undefined }).toEqual({ ...a.sheet, ownResults: undefined, readability: undefined });
+  });
+
+  it('without checkups (a saved session): no own results, and another key than a sheet with them', () => {
+    const options = { paper: 'a4', date: LATER, showIds: false } as const;
+    const without = batchHandout(W001, 0, CONTEXT, options);
+    const withOwn = batchHandout(W001, 0, CONTEXT, options, W001_CHECKUPS);
+    if (without.kind !== 'sheet' || withOwn.kind !== 'sheet') throw new Error('both must be sheets');
+    expect(without.sheet.ownResults).toBeUndefined();
+    expect(without.historyLeftOff).toBeUndefined();
+    expect(without.sheetKey).not.toBe(withOwn.sheetKey);
+  });
+
+  it('a checkup after the print date is refused by /handout’s checks: the sheet prints without own results and says why', () => {
+    // 12 May 2025 is before W001's checkup of 23 May 2025 (line 7).
+    const got = batchHandout(W001, 0, CONTEXT, { paper: 'a4', date: DATE, showIds: false }, W001_CHECKUPS);
+    if (got.kind !== 'sheet') throw new Error('W001 must get a sheet');
+    expect(got.sheet.ownResults).toBeUndefined();
+    expect(got.historyLeftOff).toContain('2025-05-23 is after today (2025-05-12)');
+    expect(BATCH_MESSAGES.leftOff('W001', got.historyLeftOff ?? '')).toMatch(/^W001: the handout prints without their own results\. The glucose history/);
+  });
+
+  it('batchHandouts takes each worker’s checkups by id; a worker missing from the map gets none', () => {
+    const batch = batchHandouts([W001, { ...W001, worker: 'W099' }], [0, 1], CONTEXT, { paper: 'a4', date: LATER, showIds: false }, new Map([['W001', W001_CHECKUPS]]));
+    const [a, b] = batch;
+    if (a?.kind !== 'sheet' || b?.kind !== 'sheet') throw new Error('both must be sheets');
+    expect(a.sheet.ownResults?.items[0]).toBe('Your HbA1c was between 5.9% and 6.2% at five yearly checkups, from 2021 to 2025.');
+    expect(b.sheet.ownResults).toBeUndefined();
+  });
+});
+
+describe('BATCH_MESSAGES', () => {
+  it('the file cannot be read again: what that means, then the reader’s reason, ending in one full stop', () => {
+    expect(BATCH_MESSAGES.unreadable('No file was given')).toBe('The workers\u2019 own results could not be read again from the file, so these handouts print without them. No file was given.');
+    expect(BATCH_MESSAGES.unreadable('No file was given.')).toBe('The workers\u2019 own results could not be read again from the file, so these handouts print without them. No file was given.');
+    expect(BATCH_MESSAGES.preparing(12, 1500)).toBe('Preparing handout 12 of 1,500\u2026');
   });
 });
 

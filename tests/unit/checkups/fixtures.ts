@@ -1,3 +1,4 @@
+import type { Checkup } from '../../../lib/glycaemia/schema';
 import type { WorkerResult } from '../../../lib/workforce/types';
 
 /** W001 of demo/checkups/checkups.csv as `hundredfold checkups` prints it (ADA, demo-heart-failure-10y, demo-workforce-hba1c-heart-failure). */
@@ -60,3 +61,12 @@ export const C003: WorkerResult = {
   referenceRisk: 0.01,
   strata: { site: 'North' },
 };
+
+/** W001's five checkups, demo/checkups/checkups.csv lines 3–7 (HbA1c %, fasting glucose mmol/L). */
+export const W001_CHECKUPS: Checkup[] = [
+  { date: '2021-04-06', hba1c: { value: 5.9, unit: '%' }, fpg: { value: 5.4, unit: 'mmol/L' } },
+  { date: '2022-05-17', hba1c: { value: 6, unit: '%' }, fpg: { value: 5.2, unit: 'mmol/L' } },
+  { date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 5.5, unit: 'mmol/L' } },
+  { date: '2024-04-12', hba1c: { value: 6, unit: '%' }, fpg: { value: 5.3, unit: 'mmol/L' } },
+  { date: '2025-05-23', hba1c: { value: 6.2, unit: '%' }, fpg: { value: 5.6, unit: 'mmol/L' } },
+];

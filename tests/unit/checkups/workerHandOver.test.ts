@@ -8,21 +8,13 @@ import { describe, expect, it } from 'vitest';
 import { collectWorkerRows, collectWorkerRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
 import { OPEN_WORKER_MESSAGES, readWorkerHandOver, WORKER_HANDOVER_FORMAT, workerHandOverRecord } from '@/lib/checkups/workerHandOver';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
-import type { Checkup } from '@/lib/glycaemia/schema';
 import type { Scenario } from '@/lib/scenario/schema';
 import { isRefusal } from '@/lib/workforce';
+import { W001_CHECKUPS } from './fixtures';
 
 const DEMO_CSV = readFileSync('demo/checkups/checkups.csv', 'utf8');
 const READER = { today: '2026-01-01' };
 
-/** W001's five checkups, demo/checkups/checkups.csv lines 3–7 (HbA1c %, fasting glucose mmol/L). */
-const W001_CHECKUPS: Checkup[] = [
-  { date: '2021-04-06', hba1c: { value: 5.9, unit: '%' }, fpg: { value: 5.4, unit: 'mmol/L' } },
-  { date: '2022-05-17', hba1c: { value: 6, unit: '%' }, fpg: { value: 5.2, unit: 'mmol/L' } },
-  { date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 5.5, unit: 'mmol/L' } },
-  { date: '2024-04-12', hba1c: { value: 6, unit: '%' }, fpg: { value: 5.3, unit: 'mmol/L' } },
-  { date: '2025-05-23', hba1c: { value: 6.2, unit: '%' }, fpg: { value: 5.6, unit: 'mmol/L' } },
-];
 
 const SCENARIO: Scenario = {
   baseline: { risk: 0.015, years: 10 },

@@ -190,6 +190,15 @@ describe('handoutSheet: editable text and reading grades', () => {
     expect(sheet.readability.blocks.find((b) => b.key === 'nextSteps')?.line).toBe('No words yet, so no reading grade.');
   });
 
+  it('grades: false leaves the (unprinted) reading grades out and changes nothing else', () => {
+    const history = { criteria: 'ADA' as const, checkups: [{ date: '2024-03-01', hba1c: { value: 6.1, unit: '%' as const } }] }; // invented
+    const withGrades = sheetOf(DEMO, { table: DEMO_HEART_FAILURE_10Y, history });
+    const without = sheetOf(DEMO, { table: DEMO_HEART_FAILURE_10Y, history, grades: false });
+    expect(without.readability).toEqual({ blocks: [], whole: '', wholeGrade: undefined });
+    expect(withGrades.readability.blocks).toHaveLength(3); // opening, next steps and the title: the editable blocks (lib/handout/blocks.ts)
+    expect({ ...without, readability: null }).toEqual({ ...withGrades, readability: null });
+  });
+
   it('lists the engine’s warnings for the clinician, not on the sheet itself', () => {
     const sheet = sheetOf(DEMO, { table: DEMO_HEART_FAILURE_10Y });
     // The demo entry's follow-up is 8 years, the horizon 10: the engine warns (horizon-beyond-follow-up).
