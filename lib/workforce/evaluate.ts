@@ -210,16 +210,16 @@ export function evaluateWorker(group: WorkerRows, context: CheckupsContext): Wor
     return result(age, latest, run, status, reasons, match.exposure.warning && status === 'neither' ? [match.exposure.warning] : [], null);
   }
 
-  const built = cachedScenarioFor(age, sex, strata, context);
+  const { built, computed } = scenarioFiguresFor(age, sex, strata, context);
   if (!built.ok) {
     const why = built.issues.map((i) => i.message).join('; ');
     return result(age, latest, run, 'neither', [`The population table cannot place this worker: ${why}.`, ...reasons], [], null);
   }
-  const computed = computeScenario(built.value);
   if (!computed.ok) {
     return result(age, latest, run, 'neither', [`The figures cannot be computed: ${computed.issues.map((i) => i.message).join('; ')}.`, ...reasons], [], null);
   }
-  return result(age, latest, run, status, reasons, [...computed.value.warnings], computed.value);
+  // The figures and their warnings are shared, read-only, by every worker of the same scenario.
+  return result(age, latest, run, status, reasons, computed.value.warnings, computed.value);
 }
 
 /** Latest categories already found, per context, by the checkup's readings (the date does not change a category). */
@@ -270,17 +270,40 @@ export function scenarioFor(
   });
 }
 
-/** Scenarios already built, per context: the same age, sex and table strata give the same scenario. */
-const SCENARIOS = new WeakMap<CheckupsContext, { readonly extra: readonly string[]; readonly byKey: Map<string, Result<Scenario>> }>();
+/** A worker's scenario and its figures: the same age, sex and table strata give the same both. */
+export interface ScenarioFigures {
+  /** {@link scenarioFor}'s answer. */
+  readonly built: Result<Scenario>;
+  /**
+   * lib/engine `computeScenario(built.value)`, frozen (shared by every worker of this scenario);
+   * for a scenario that could not be built, `built` itself (its issues).
+   */
+  readonly computed: Result<ComputeResult>;
+}
+
+/** Scenarios and figures already worked out, per context. */
+const SCENARIOS = new WeakMap<CheckupsContext, { readonly extra: readonly string[]; readonly byKey: Map<string, ScenarioFigures> }>();
 /** Most scenarios kept per context before starting over (ages × sexes × table strata: a few hundred in practice). */
-const MAX_SCENARIOS = 4096;
+export const MAX_SCENARIOS = 4096;
+
+/** Freezes a plain value and everything in it, so that a shared answer cannot be changed through one worker's result. */
+function deepFreeze<T>(value: T): T {
+  if (typeof value !== 'object' || value === null || Object.isFrozen(value)) return value;
+  for (const key of Object.keys(value)) deepFreeze((value as Record<string, unknown>)[key]);
+  return Object.freeze(value);
+}
 
 /**
- * {@link scenarioFor}, remembered per context: the table lookup and the scenario depend only on
- * the age, the sex and the strata the table names, so workers who share them share one (read-only)
- * scenario. computeScenario still runs for every worker.
+ * {@link scenarioFor} and lib/engine `computeScenario` on it, remembered per context: the table
+ * lookup, the scenario and its figures depend only on the age, the sex and the strata the table
+ * names (computeScenario is pure), so workers who share them share one read-only answer instead
+ * of computing it again. Bounded: past {@link MAX_SCENARIOS} keys it forgets and starts over.
+ *
+ * @example
+ * scenarioFiguresFor(52, 'female', { site: 'North' }, context)
+ * //=> { built: { ok: true, value: { baseline: { risk: 0.015, … }, … } }, computed: { ok: true, value: { referenceRisk: 0.015, … } } }
  */
-function cachedScenarioFor(age: number | null, sex: 'female' | 'male' | null, strata: Readonly<Record<string, string>>, context: CheckupsContext): Result<Scenario> {
+export function scenarioFiguresFor(age: number | null, sex: 'female' | 'male' | null, strata: Readonly<Record<string, string>>, context: CheckupsContext): ScenarioFigures {
   let cache = SCENARIOS.get(context);
   if (!cache) {
     cache = { extra: tableNeeds(context.table).extra, byKey: new Map() };
@@ -290,9 +313,10 @@ function cachedScenarioFor(age: number | null, sex: 'female' | 'male' | null, st
   const known = cache.byKey.get(key);
   if (known) return known;
   const built = scenarioFor(age, sex, strata, context);
+  const figures: ScenarioFigures = { built, computed: built.ok ? deepFreeze(computeScenario(built.value)) : built };
   if (cache.byKey.size >= MAX_SCENARIOS) cache.byKey.clear();
-  cache.byKey.set(key, built);
-  return built;
+  cache.byKey.set(key, figures);
+  return figures;
 }
 
 /** The scenario a worker's figures come from (for the screen's "open one worker"); null where the evidence does not apply. */

@@ -6,7 +6,7 @@ import { parseScenario } from '@/lib/scenario/parse';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
 import { daysInMonth, parseIsoDate } from '@/lib/glycaemia/dates';
 import { THRESHOLD_DECIMALS, withUnit, type ValueUnit } from '@/lib/glycaemia/format';
-import { createRowReader, evaluateWorker, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
+import { createRowReader, evaluateWorker, MAX_SCENARIOS, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFiguresFor, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
 
 // The fast paths (answers remembered per text, per age and sex, per pair of readings) against the
 // plain ones (each check afresh; the scenario validated by parseScenario, then computeScenario).
@@ -102,6 +102,46 @@ describe('evaluateWorker with remembered scenarios and categories gives the plai
       }),
       { numRuns: 60 },
     );
+  });
+});
+
+describe('scenarioFiguresFor: computeScenario remembered per age, sex and table strata', () => {
+  const ageArb = fc.oneof(fc.integer({ min: 0, max: 120 }), fc.constantFrom(-1, 121, 200));
+  const sexArb = fc.constantFrom('female' as const, 'male' as const, null);
+  const isDeeplyFrozen = (value: unknown): boolean =>
+    typeof value !== 'object' || value === null || (Object.isFrozen(value) && Object.values(value).every(isDeeplyFrozen));
+
+  it('property: the remembered figures equal computeScenario on the scenario built afresh, are the same object on every call, and are frozen', () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(ageArb, sexArb, fc.constantFrom('North', 'South')), { minLength: 1, maxLength: 20 }), (people) => {
+        const shared = context();
+        for (const [age, sex, site] of people) {
+          const first = scenarioFiguresFor(age, sex, { site }, shared);
+          // Another site: not a stratum of the table, so the same scenario (and the same object).
+          expect(scenarioFiguresFor(age, sex, { site: site === 'North' ? 'South' : 'North' }, shared)).toBe(first);
+          const built = scenarioFor(age, sex, { site }, context());
+          expect(first.built).toEqual(built);
+          if (!built.ok) {
+            expect(first.computed).toEqual(built);
+            continue;
+          }
+          expect(first.computed).toEqual(computeScenario(built.value));
+          expect(isDeeplyFrozen(first.computed)).toBe(true);
+        }
+      }),
+      { numRuns: 100 },
+    );
+  });
+
+  it(`keeps at most ${MAX_SCENARIOS} scenarios per run, then starts over with the same answers`, () => {
+    const shared = context();
+    const first = scenarioFiguresFor(52, 'female', {}, shared);
+    expect(first.computed.ok).toBe(true);
+    // Ages past 120 are distinct keys that the table cannot place: MAX_SCENARIOS of them fill the memory.
+    for (let i = 0; i < MAX_SCENARIOS; i += 1) scenarioFiguresFor(1000 + i, 'male', {}, shared);
+    const again = scenarioFiguresFor(52, 'female', {}, shared);
+    expect(again).not.toBe(first);
+    expect(again).toEqual(first);
   });
 });
 
