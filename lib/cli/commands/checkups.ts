@@ -238,6 +238,60 @@ export function workerRecord(result: WorkerResult): Record<string, unknown> {
   };
 }
 
+/** The figures of a worker without them (not exposed or comparison), as they appear in the line. */
+const NO_FIGURES_JSON = '"referenceRisk":null,"exposedRisk":null,"riskDifference":null,"numberNeeded":null,"horizonYears":null';
+
+/** The figures' JSON text (without braces), per shared, frozen `exposedRisk` object, with the figures it was written from. */
+const FIGURES_JSON = new WeakMap<object, { readonly of: Pick<WorkerResult, 'referenceRisk' | 'riskDifference' | 'numberNeeded' | 'horizonYears'>; readonly text: string }>();
+/** The JSON text of a shared, frozen warnings list. */
+const WARNINGS_JSON = new WeakMap<readonly unknown[], string>();
+
+/**
+ * The worker's NDJSON line: exactly `JSON.stringify(workerRecord(result))`, byte for byte, written
+ * in pieces so that what many workers share is written once. lib/workforce gives every worker of
+ * one scenario (age, sex, table strata) the same frozen figures and warnings
+ * (`scenarioFiguresFor`), so their JSON text — most of a line, and most of the cost of writing it
+ * (thirty-odd doubles) — is remembered per figures object. Anything else (figures not frozen, a
+ * key missing) is written by `JSON.stringify` afresh.
+ */
+export function workerJsonLine(result: WorkerResult): string {
+  const { referenceRisk, exposedRisk, riskDifference, numberNeeded, horizonYears, strata, warnings } = result;
+  if (strata === undefined || warnings === undefined || referenceRisk === undefined || riskDifference === undefined || numberNeeded === undefined || horizonYears === undefined) {
+    return JSON.stringify(workerRecord(result));
+  }
+  let figures: string;
+  if (exposedRisk === null && referenceRisk === null && riskDifference === null && numberNeeded === null && horizonYears === null) figures = NO_FIGURES_JSON;
+  else if (exposedRisk !== null && typeof exposedRisk === 'object' && Object.isFrozen(exposedRisk) && Object.isFrozen(riskDifference) && Object.isFrozen(numberNeeded)) {
+    const known = FIGURES_JSON.get(exposedRisk);
+    if (known && known.of.referenceRisk === referenceRisk && known.of.riskDifference === riskDifference && known.of.numberNeeded === numberNeeded && known.of.horizonYears === horizonYears) {
+      figures = known.text;
+    } else {
+      figures = JSON.stringify({ referenceRisk, exposedRisk, riskDifference, numberNeeded, horizonYears }).slice(1, -1);
+      FIGURES_JSON.set(exposedRisk, { of: { referenceRisk, riskDifference, numberNeeded, horizonYears }, text: figures });
+    }
+  } else return JSON.stringify(workerRecord(result));
+  let warningsText: string;
+  if (Object.isFrozen(warnings)) {
+    const known = WARNINGS_JSON.get(warnings);
+    if (known === undefined) {
+      warningsText = JSON.stringify(warnings);
+      WARNINGS_JSON.set(warnings, warningsText);
+    } else warningsText = known;
+  } else warningsText = JSON.stringify(warnings);
+  const head = JSON.stringify({
+    worker: result.worker,
+    age: result.age,
+    sex: result.sex,
+    checkups: result.checkups,
+    latest: result.latest,
+    run: result.run,
+    status: result.status,
+    reasons: result.reasons,
+  });
+  if (head.length < 3) return JSON.stringify(workerRecord(result));
+  return `${head.slice(0, -1)},${figures},"strata":${JSON.stringify(strata)},"warnings":${warningsText}}`;
+}
+
 /**
  * The command's CSV columns (`--format csv`), documented in the README: one column per key of the
  * NDJSON line, snake_case, reasons and warnings apart, the number needed as a number and as text,
@@ -503,7 +557,7 @@ export async function checkups(io: CommandIo): Promise<number> {
         headerWritten = true;
       }
       out.push(csvLine(result, strata));
-    } else out.push(JSON.stringify(workerRecord(result)));
+    } else out.push(workerJsonLine(result));
   };
   const onHeader = (header: HeaderInfo | null) => {
     strata = strataNames(header);
