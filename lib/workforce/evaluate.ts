@@ -21,7 +21,7 @@ import type { ComputeResult } from '../engine/types';
 import type { EvidenceEntry } from '../evidence/schema';
 import { classifyCheckup, classifyHistory } from '../glycaemia/classify';
 import { yearsBetween } from '../glycaemia/dates';
-import { CRITERIA_SETS, type CriteriaSet, type ExposureDefinition, type GlycaemicCategory } from '../glycaemia/exposure';
+import { CRITERIA_SETS, type CriteriaSet, type ExposureDefinition } from '../glycaemia/exposure';
 import { diabetesRangeNote, exposureStatus } from '../glycaemia/match';
 import { mergeSameDate } from '../glycaemia/parse';
 import type { Checkup } from '../glycaemia/schema';
@@ -188,7 +188,7 @@ export function evaluateWorker(group: WorkerRows, context: CheckupsContext): Wor
     return result(null, null, { category: null, yearlyResults: 0, from: null, to: null }, 'insufficient', ['No usable checkup for this worker.'], [], null);
   }
   const { age, note: ageNote } = ageAtLatest(kept, latestCheckup.date);
-  const latestCategory = latestCategoryOf(latestCheckup, context);
+  const latestCategory = classifyCheckup(latestCheckup, context.criteria).category;
   const match = exposureStatus(checkups, context.exposure, { shownCriteria: context.criteria });
   const run = { category: match.run.category, yearlyResults: match.run.yearlyResults, from: match.run.from, to: match.run.to };
   const latest = { date: latestCheckup.date, category: latestCategory };
@@ -220,31 +220,6 @@ export function evaluateWorker(group: WorkerRows, context: CheckupsContext): Wor
   }
   // The figures and their warnings are shared, read-only, by every worker of the same scenario.
   return result(age, latest, run, status, reasons, computed.value.warnings, computed.value);
-}
-
-/** Latest categories already found, per context, by the checkup's readings (the date does not change a category). */
-const LATEST_CATEGORIES = new WeakMap<CheckupsContext, Map<string, GlycaemicCategory | null>>();
-/** Most reading pairs kept per context before starting over. */
-const MAX_LATEST_CATEGORIES = 16_384;
-
-/**
- * The latest checkup's category under the chosen criteria set: lib/glycaemia `classifyCheckup`,
- * remembered per pair of readings (the category depends only on the values, units and criteria
- * set, not on the date or the worker).
- */
-function latestCategoryOf(checkup: Checkup, context: CheckupsContext): GlycaemicCategory | null {
-  let memo = LATEST_CATEGORIES.get(context);
-  if (!memo) {
-    memo = new Map();
-    LATEST_CATEGORIES.set(context, memo);
-  }
-  const key = `${checkup.hba1c ? `${checkup.hba1c.value} ${checkup.hba1c.unit}` : ''}|${checkup.fpg ? `${checkup.fpg.value} ${checkup.fpg.unit}` : ''}`;
-  const known = memo.get(key);
-  if (known !== undefined) return known;
-  const category = classifyCheckup(checkup, context.criteria).category;
-  if (memo.size >= MAX_LATEST_CATEGORIES) memo.clear();
-  memo.set(key, category);
-  return category;
 }
 
 /**
