@@ -32,6 +32,7 @@ import type { CriteriaSet, GlycaemicCategory } from './exposure';
 import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, thresholdText, withUnit, type ValueUnit } from './format';
 import { glucoseIn, type GlucoseUnit } from './glucose';
 import { hba1cIn, type Hba1cUnit } from './hba1c';
+import { inDateOrder } from './dates';
 import { REPORTING_STEP } from './merge';
 import type { Checkup } from './schema';
 
@@ -390,5 +391,5 @@ export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): Classi
 
 /** Classify every checkup, sorted by date (earliest first). */
 export function classifyHistory(checkups: readonly Checkup[], criteria: CriteriaSet): ClassifiedCheckup[] {
-  return [...checkups].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0)).map((c) => classifyCheckup(c, criteria));
+  return inDateOrder(checkups).map((c) => classifyCheckup(c, criteria));
 }

@@ -15,7 +15,7 @@ export interface CalendarDate {
 /** Days in a month of the Gregorian calendar (leap years: divisible by 4, not by 100 unless by 400). */
 export function daysInMonth(year: number, month: number): number {
   if (month === 2) return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28;
-  return [4, 6, 9, 11].includes(month) ? 30 : 31;
+  return month === 4 || month === 6 || month === 9 || month === 11 ? 30 : 31;
 }
 
 /**
@@ -48,9 +48,17 @@ function digits(text: string, from: number, to: number): number {
   return value;
 }
 
+/** "YYYY-MM-DD": each part written with at least 4, 2 and 2 digits (zeros in front). */
 export function formatIsoDate(date: CalendarDate): string {
+  const { year, month, day } = date;
+  // The usual case without padStart: a four-digit year, a month and a day from 1 to 99 (this runs
+  // several times a checkup); anything else (a year before 1000, a part that is not a whole
+  // number) is padded below, to the same text.
+  if (Number.isInteger(year) && year >= 1000 && year <= 9999 && Number.isInteger(month) && month >= 1 && month <= 99 && Number.isInteger(day) && day >= 1 && day <= 99) {
+    return `${year}-${month < 10 ? '0' : ''}${month}-${day < 10 ? '0' : ''}${day}`;
+  }
   const pad = (n: number, width: number) => String(n).padStart(width, '0');
-  return `${pad(date.year, 4)}-${pad(date.month, 2)}-${pad(date.day, 2)}`;
+  return `${pad(year, 4)}-${pad(month, 2)}-${pad(day, 2)}`;
 }
 
 /** Days since 1970-01-01 for a valid "YYYY-MM-DD" date (caller has validated it). */
@@ -86,6 +94,26 @@ export function wholeMonthsBetween(from: string, to: string): number {
   let months = (b.year - a.year) * 12 + (b.month - a.month);
   if (months > 0 && addMonths(from, months) > to) months -= 1;
   return months;
+}
+
+/** Dated items earliest first: the comparison for a (stable) sort by "YYYY-MM-DD" date. */
+export function compareByDate(a: { readonly date: string }, b: { readonly date: string }): number {
+  return a.date < b.date ? -1 : a.date > b.date ? 1 : 0;
+}
+
+/**
+ * Dated items earliest first, items of one date in their given order — what a stable sort with
+ * {@link compareByDate} gives. A list already in that order (the usual case: histories are kept
+ * sorted) is returned as it is, not copied, so the caller must only read it.
+ *
+ * @example
+ * inDateOrder([{ date: '2022-03-01' }, { date: '2021-03-01' }]) //=> [{ date: '2021-03-01' }, { date: '2022-03-01' }] (a copy)
+ */
+export function inDateOrder<T extends { readonly date: string }>(items: readonly T[]): readonly T[] {
+  for (let i = 1; i < items.length; i++) {
+    if ((items[i] as T).date < (items[i - 1] as T).date) return [...items].sort(compareByDate);
+  }
+  return items;
 }
 
 /** Elapsed years between two dates: days / 365.25 (the mean Julian year, common practice). */

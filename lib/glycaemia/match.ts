@@ -21,7 +21,7 @@
 import type { Warning } from '../result';
 import { classifyCheckup, classifyHistory, type ClassifiedCheckup } from './classify';
 import { CRITERIA } from './criteria';
-import { addMonths, daysBetween, wholeMonthsBetween } from './dates';
+import { addMonths, daysBetween, inDateOrder, wholeMonthsBetween } from './dates';
 import {
   resolveExposureDefinition,
   type CriteriaSet,
@@ -50,7 +50,7 @@ const TEST_WORDS = { either: 'HbA1c or fasting glucose', hba1c: 'HbA1c', fpg: 'f
 export function classifyForDefinition(checkups: readonly Checkup[], definition: ResolvedExposureDefinition): ClassifiedCheckup[] {
   const { test, criteria } = definition;
   if (test === 'either') return classifyHistory(checkups, criteria);
-  const sorted = [...checkups].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+  const sorted = inDateOrder(checkups);
   if (test === 'hba1c') return sorted.filter((c) => c.hba1c).map((c) => classifyCheckup({ date: c.date, hba1c: c.hba1c }, criteria));
   if (test === 'fpg') return sorted.filter((c) => c.fpg).map((c) => classifyCheckup({ date: c.date, fpg: c.fpg }, criteria));
   return sorted
@@ -122,7 +122,7 @@ export function diabetesRangeNote(
   classified: readonly ClassifiedCheckup[],
   otherCategory: GlycaemicCategory = 'prediabetes',
 ): Warning | null {
-  const latest = [...classified].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0)).at(-1);
+  const latest = inDateOrder(classified).at(-1);
   if (!latest || latest.category !== 'diabetes-range') return null;
   const evidence = otherCategory === 'diabetes-range' ? '' : ` Evidence about the ${rangeName(otherCategory)} does not apply to it.`;
   return {

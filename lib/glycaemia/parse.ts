@@ -10,6 +10,7 @@
 import type { z } from 'zod';
 import { fail, ok, type Issue, type Result, type Warning } from '../result';
 import { toIssues } from '../validation/issues';
+import { compareByDate } from './dates';
 import type { CriteriaSet } from './exposure';
 import type { ValueUnit } from './format';
 import { fpgReadingsAgree, hba1cReadingsAgree, keptWords, preferLater, readingText } from './merge';
@@ -99,7 +100,7 @@ export function mergeSameDate(
       message: `${capitalised(checkupName(seen.firstIndex))} and ${checkupName(index)} (${checkup.date}) share a date and were merged${kept.length > 0 ? `: ${kept.join('; ')}` : ''}`,
     });
   });
-  const merged = [...byDate.values()].map((entry) => entry.merged).sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+  const merged = [...byDate.values()].map((entry) => entry.merged).sort(compareByDate);
   return { checkups: merged, notes, issues };
 }
 

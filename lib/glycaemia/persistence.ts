@@ -20,7 +20,7 @@
  * - `years`: elapsed time from the run's first to its last result, days / 365.25. Three yearly
  *   results span about 2 years.
  */
-import { addMonths, daysBetween, wholeMonthsBetween, yearsBetween } from './dates';
+import { addMonths, daysBetween, inDateOrder, wholeMonthsBetween, yearsBetween } from './dates';
 import type { ClassifiedCheckup } from './classify';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
 
@@ -96,7 +96,7 @@ export function countYearlyRounds(dates: readonly string[]): number {
  * //=> { category: 'prediabetes', checkups: 4, yearlyResults: 4, years: 3.0, gaps: [], brokenBy: null, … }
  */
 export function persistence(classified: readonly ClassifiedCheckup[], criteria: CriteriaSet): Persistence {
-  const sorted = [...classified].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+  const sorted = inDateOrder(classified);
   const gaps: Gap[] = [];
   for (let i = 1; i < sorted.length; i += 1) {
     const before = sorted[i - 1];

@@ -4,7 +4,7 @@ import { computeScenario } from '@/lib/engine/compute';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import { parseScenario } from '@/lib/scenario/parse';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
-import { daysInMonth, parseIsoDate } from '@/lib/glycaemia/dates';
+import { daysInMonth, formatIsoDate, inDateOrder, parseIsoDate } from '@/lib/glycaemia/dates';
 import { THRESHOLD_DECIMALS, withUnit, type ValueUnit } from '@/lib/glycaemia/format';
 import { createRowReader, evaluateWorker, MAX_SCENARIOS, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFiguresFor, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
 
@@ -169,6 +169,25 @@ describe('lib/glycaemia dates and values read without patterns, with the same an
     fc.assert(fc.property(dateLike, (text) => {
         expect(parseIsoDate(text)).toEqual(isoByPattern(text));
       }), { numRuns: 2000 });
+  });
+
+  it('property: formatIsoDate and daysInMonth equal the forms they replaced', () => {
+    const padded = (year: number, month: number, day: number) => `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+    const daysByList = (year: number, month: number) => (month === 2 ? ((year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28) : [4, 6, 9, 11].includes(month) ? 30 : 31);
+    const part = fc.oneof(fc.integer({ min: -20, max: 12_000 }), fc.constantFrom(0, -0, 9, 10, 99, 100, 999, 1000, 9999, 10_000, 1.5, Number.NaN, Infinity));
+    fc.assert(fc.property(part, part, part, (year, month, day) => {
+        expect(formatIsoDate({ year, month, day })).toBe(padded(year, month, day));
+        expect(daysInMonth(year, month)).toBe(daysByList(year, month));
+      }), { numRuns: 3000 });
+  });
+
+  it('property: inDateOrder equals a stable sort by date, and gives back a list already in order as it is', () => {
+    const item = fc.record({ date: fc.constantFrom('2021-03-01', '2021-03-02', '2022-01-01', '2022-01-01', '2023-12-31'), id: fc.nat() });
+    fc.assert(fc.property(fc.array(item, { maxLength: 8 }), (items) => {
+        const sorted = [...items].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+        expect(inDateOrder(items)).toEqual(sorted);
+        expect(inDateOrder(sorted)).toBe(sorted);
+      }), { numRuns: 1000 });
   });
 
   it('property: withUnit equals the form it replaced', () => {
