@@ -118,7 +118,11 @@ export function ageAtLatest(rows: readonly CheckupRow[], latestDate: string): { 
 }
 
 function checkupOf(row: CheckupRow): Checkup {
-  return { date: row.date, ...(row.hba1c ? { hba1c: row.hba1c } : {}), ...(row.fpg ? { fpg: row.fpg } : {}) };
+  // Key by key (no spreads), the keys in the same order.
+  const checkup: { -readonly [K in keyof Checkup]: Checkup[K] } = { date: row.date };
+  if (row.hba1c) checkup.hba1c = row.hba1c;
+  if (row.fpg) checkup.fpg = row.fpg;
+  return checkup;
 }
 
 /**
