@@ -21,7 +21,7 @@
 import type { Warning } from '../result';
 import { classifyCheckup, classifyHistory, type ClassifiedCheckup } from './classify';
 import { CRITERIA } from './criteria';
-import { addMonths, daysBetween, inDateOrder, wholeMonthsBetween } from './dates';
+import { compareWithMonthsLater, daysBetween, inDateOrder, wholeMonthsBetween } from './dates';
 import {
   resolveExposureDefinition,
   type CriteriaSet,
@@ -74,7 +74,7 @@ export function runForDefinition(classified: readonly ClassifiedCheckup[], defin
   for (let i = inRun.length - 1; i > 0; i -= 1) {
     const before = inRun[i - 1];
     const after = inRun[i];
-    if (!before || !after || after.date <= addMonths(before.date, definition.maxGapMonths)) continue;
+    if (!before || !after || compareWithMonthsLater(after.date, before.date, definition.maxGapMonths) <= 0) continue;
     const shorter = persistence(inRun.slice(i), definition.criteria);
     return {
       ...shorter,

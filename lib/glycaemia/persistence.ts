@@ -20,7 +20,7 @@
  * - `years`: elapsed time from the run's first to its last result, days / 365.25. Three yearly
  *   results span about 2 years.
  */
-import { addMonths, daysBetween, inDateOrder, wholeMonthsBetween, yearsBetween } from './dates';
+import { compareWithMonthsLater, daysBetween, inDateOrder, wholeMonthsBetween, yearsBetween } from './dates';
 import type { ClassifiedCheckup } from './classify';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
 
@@ -68,7 +68,7 @@ export interface Persistence {
 
 /** A gap from `from` to `to` is too long when `to` is later than `from` + 18 calendar months. */
 export function isLongGap(from: string, to: string): boolean {
-  return to > addMonths(from, MAX_GAP_MONTHS);
+  return compareWithMonthsLater(to, from, MAX_GAP_MONTHS) > 0;
 }
 
 function gapBetween(from: string, to: string): Gap {
@@ -80,7 +80,7 @@ export function countYearlyRounds(dates: readonly string[]): number {
   let rounds = 0;
   let roundStart: string | null = null;
   for (const date of dates) {
-    if (roundStart === null || date >= addMonths(roundStart, MIN_ROUND_MONTHS)) {
+    if (roundStart === null || compareWithMonthsLater(date, roundStart, MIN_ROUND_MONTHS) >= 0) {
       rounds += 1;
       roundStart = date;
     }

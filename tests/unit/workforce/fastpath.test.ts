@@ -4,7 +4,7 @@ import { computeScenario } from '@/lib/engine/compute';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import { parseScenario } from '@/lib/scenario/parse';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
-import { daysInMonth, formatIsoDate, inDateOrder, parseIsoDate } from '@/lib/glycaemia/dates';
+import { addMonths, compareWithMonthsLater, daysInMonth, dayNumber, formatIsoDate, inDateOrder, parseIsoDate, sortByDate } from '@/lib/glycaemia/dates';
 import { THRESHOLD_DECIMALS, withUnit, type ValueUnit } from '@/lib/glycaemia/format';
 import { createRowReader, evaluateWorker, MAX_SCENARIOS, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFiguresFor, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
 
@@ -181,12 +181,41 @@ describe('lib/glycaemia dates and values read without patterns, with the same an
       }), { numRuns: 3000 });
   });
 
-  it('property: inDateOrder equals a stable sort by date, and gives back a list already in order as it is', () => {
+  it('property: addMonths, dayNumber and compareWithMonthsLater equal the forms they replaced (the later date written out and compared as text)', () => {
+    const addByText = (iso: string, months: number) => {
+      const date = isoByPattern(iso);
+      if (!date) return iso;
+      const index = date.year * 12 + (date.month - 1) + months;
+      const year = Math.floor(index / 12);
+      const month = (index % 12) + 1;
+      const day = Math.min(date.day, daysInMonth(year, month));
+      return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+    };
+    const dayByDate = (iso: string) => {
+      const date = isoByPattern(iso);
+      return date ? Date.UTC(date.year, date.month - 1, date.day) / 86_400_000 : Number.NaN;
+    };
+    const year = fc.oneof(fc.integer({ min: 1990, max: 2030 }), fc.integer({ min: 0, max: 9999 }), fc.constantFrom(0, 999, 1000, 9998, 9999));
+    const realDate = fc
+      .tuple(year, fc.integer({ min: 1, max: 12 }), fc.integer({ min: 1, max: 31 }))
+      .map(([y, m, d]) => `${String(y).padStart(4, '0')}-${String(m).padStart(2, '0')}-${String(Math.min(d, daysInMonth(y, m))).padStart(2, '0')}`);
+    const text = fc.oneof(realDate, realDate, dateLike);
+    const months = fc.oneof(fc.constantFrom(6, 12, 18), fc.integer({ min: -40, max: 40 }), fc.integer({ min: -200_000, max: 200_000 }));
+    fc.assert(fc.property(text, text, months, (from, to, m) => {
+        const later = addByText(from, m);
+        expect(addMonths(from, m)).toBe(later);
+        expect(compareWithMonthsLater(to, from, m)).toBe(to < later ? -1 : to > later ? 1 : 0);
+        expect(dayNumber(from)).toBe(dayByDate(from));
+      }), { numRuns: 5000 });
+  });
+
+  it('property: inDateOrder and sortByDate equal a stable sort by date, and inDateOrder gives back a list already in order as it is', () => {
     const item = fc.record({ date: fc.constantFrom('2021-03-01', '2021-03-02', '2022-01-01', '2022-01-01', '2023-12-31'), id: fc.nat() });
     fc.assert(fc.property(fc.array(item, { maxLength: 8 }), (items) => {
         const sorted = [...items].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
         expect(inDateOrder(items)).toEqual(sorted);
         expect(inDateOrder(sorted)).toBe(sorted);
+        expect(sortByDate([...items])).toEqual(sorted);
       }), { numRuns: 1000 });
   });
 
