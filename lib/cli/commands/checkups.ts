@@ -238,46 +238,50 @@ export function workerRecord(result: WorkerResult): Record<string, unknown> {
   };
 }
 
-/** The figures of a worker without them (not exposed or comparison), as they appear in the line. */
-const NO_FIGURES_JSON = '"referenceRisk":null,"exposedRisk":null,"riskDifference":null,"numberNeeded":null,"horizonYears":null';
+/** A piece of a line: text, or text already encoded as UTF-8 (remembered, shared). */
+export type LinePiece = string | Uint8Array;
 
-/** The figures' JSON text (without braces), per shared, frozen `exposedRisk` object, with the figures it was written from. */
-const FIGURES_JSON = new WeakMap<object, { readonly of: Pick<WorkerResult, 'referenceRisk' | 'riskDifference' | 'numberNeeded' | 'horizonYears'>; readonly text: string }>();
-/** The JSON text of a shared, frozen warnings list. */
-const WARNINGS_JSON = new WeakMap<readonly unknown[], string>();
+/** The figures of a worker without them (not exposed or comparison), as they appear in the line. */
+const NO_FIGURES_JSON = Buffer.from('"referenceRisk":null,"exposedRisk":null,"riskDifference":null,"numberNeeded":null,"horizonYears":null');
+
+/** The figures' JSON text (without braces, UTF-8), per shared, frozen `exposedRisk` object, with the figures it was written from. */
+const FIGURES_JSON = new WeakMap<object, { readonly of: Pick<WorkerResult, 'referenceRisk' | 'riskDifference' | 'numberNeeded' | 'horizonYears'>; readonly bytes: Uint8Array }>();
+/** The JSON text (UTF-8) of a shared, frozen warnings list. */
+const WARNINGS_JSON = new WeakMap<readonly unknown[], Uint8Array>();
 
 /**
- * The worker's NDJSON line: exactly `JSON.stringify(workerRecord(result))`, byte for byte, written
- * in pieces so that what many workers share is written once. lib/workforce gives every worker of
- * one scenario (age, sex, table strata) the same frozen figures and warnings
- * (`scenarioFiguresFor`), so their JSON text — most of a line, and most of the cost of writing it
- * (thirty-odd doubles) — is remembered per figures object. Anything else (figures not frozen, a
- * key missing) is written by `JSON.stringify` afresh.
+ * The worker's NDJSON line in pieces, which joined are exactly `JSON.stringify(workerRecord(result))`,
+ * byte for byte (see {@link workerJsonLine}). lib/workforce gives every worker of one scenario
+ * (age, sex, table strata) the same frozen figures and warnings (`scenarioFiguresFor`), so their
+ * JSON — most of a line, and most of the cost of writing it (thirty-odd doubles) — is written and
+ * encoded once per figures object and copied into the output as bytes. Anything else (figures
+ * not frozen, a key missing) is one piece written by `JSON.stringify` afresh.
  */
-export function workerJsonLine(result: WorkerResult): string {
+export function workerJsonPieces(result: WorkerResult): LinePiece[] {
   const { referenceRisk, exposedRisk, riskDifference, numberNeeded, horizonYears, strata, warnings } = result;
   if (strata === undefined || warnings === undefined || referenceRisk === undefined || riskDifference === undefined || numberNeeded === undefined || horizonYears === undefined) {
-    return JSON.stringify(workerRecord(result));
+    return [JSON.stringify(workerRecord(result))];
   }
-  let figures: string;
+  let figures: Uint8Array;
   if (exposedRisk === null && referenceRisk === null && riskDifference === null && numberNeeded === null && horizonYears === null) figures = NO_FIGURES_JSON;
   else if (exposedRisk !== null && typeof exposedRisk === 'object' && Object.isFrozen(exposedRisk) && Object.isFrozen(riskDifference) && Object.isFrozen(numberNeeded)) {
     const known = FIGURES_JSON.get(exposedRisk);
     if (known && known.of.referenceRisk === referenceRisk && known.of.riskDifference === riskDifference && known.of.numberNeeded === numberNeeded && known.of.horizonYears === horizonYears) {
-      figures = known.text;
+      figures = known.bytes;
     } else {
-      figures = JSON.stringify({ referenceRisk, exposedRisk, riskDifference, numberNeeded, horizonYears }).slice(1, -1);
-      FIGURES_JSON.set(exposedRisk, { of: { referenceRisk, riskDifference, numberNeeded, horizonYears }, text: figures });
+      figures = Buffer.from(JSON.stringify({ referenceRisk, exposedRisk, riskDifference, numberNeeded, horizonYears }).slice(1, -1));
+      FIGURES_JSON.set(exposedRisk, { of: { referenceRisk, riskDifference, numberNeeded, horizonYears }, bytes: figures });
     }
-  } else return JSON.stringify(workerRecord(result));
-  let warningsText: string;
+  } else return [JSON.stringify(workerRecord(result))];
+  let warningsJson: LinePiece;
   if (Object.isFrozen(warnings)) {
-    const known = WARNINGS_JSON.get(warnings);
+    let known = WARNINGS_JSON.get(warnings);
     if (known === undefined) {
-      warningsText = JSON.stringify(warnings);
-      WARNINGS_JSON.set(warnings, warningsText);
-    } else warningsText = known;
-  } else warningsText = JSON.stringify(warnings);
+      known = Buffer.from(JSON.stringify(warnings));
+      WARNINGS_JSON.set(warnings, known);
+    }
+    warningsJson = known;
+  } else warningsJson = JSON.stringify(warnings);
   const head = JSON.stringify({
     worker: result.worker,
     age: result.age,
@@ -288,8 +292,15 @@ export function workerJsonLine(result: WorkerResult): string {
     status: result.status,
     reasons: result.reasons,
   });
-  if (head.length < 3) return JSON.stringify(workerRecord(result));
-  return `${head.slice(0, -1)},${figures},"strata":${JSON.stringify(strata)},"warnings":${warningsText}}`;
+  if (head.length < 3) return [JSON.stringify(workerRecord(result))];
+  return [head.slice(0, -1), ',', figures, ',"strata":', JSON.stringify(strata), ',"warnings":', warningsJson, '}'];
+}
+
+/** The worker's NDJSON line: {@link workerJsonPieces} joined; exactly `JSON.stringify(workerRecord(result))`. */
+export function workerJsonLine(result: WorkerResult): string {
+  return workerJsonPieces(result)
+    .map((piece) => (typeof piece === 'string' ? piece : Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength).toString('utf8')))
+    .join('');
 }
 
 /**
@@ -397,27 +408,50 @@ const OUTPUT_BLOCK_BYTES = 1 << 16;
 /**
  * Writes lines with backpressure; stops quietly when the reader has gone. Each line is encoded
  * straight into a block of bytes (no joined string to copy again: the output is several times
- * the input's size, so every copy of it shows in the time); full blocks wait for {@link flush}.
+ * the input's size, so every copy of it shows), a line given in pieces piece by piece, bytes
+ * copied as they are; full blocks wait for {@link flush}.
  */
-class LineWriter {
+export class LineWriter {
   private blocks: Buffer[] = [];
   private block = Buffer.allocUnsafe(OUTPUT_BLOCK_BYTES);
   private used = 0;
   private size = 0;
   open = true;
-  constructor(private readonly io: CommandIo) {}
-  push(line: string): void {
-    if (!this.open) return;
-    const most = line.length * 3 + 1; // UTF-8 takes at most 3 bytes per UTF-16 unit
+  constructor(private readonly io: Pick<CommandIo, 'stdout'>) {}
+  /** Makes room for a line of at most `most` bytes (its newline included) in the current block. */
+  private room(most: number): void {
     if (this.used + most > this.block.length) {
       if (this.used > 0) this.blocks.push(this.block.subarray(0, this.used));
       this.block = Buffer.allocUnsafe(Math.max(OUTPUT_BLOCK_BYTES, most));
       this.used = 0;
     }
+  }
+  push(line: string): void {
+    if (!this.open) return;
+    this.room(line.length * 3 + 1); // UTF-8 takes at most 3 bytes per UTF-16 unit
     const written = this.block.write(line, this.used) + 1;
     this.block[this.used + written - 1] = 0x0a;
     this.used += written;
     this.size += written;
+  }
+  /** One line given in pieces (text, or UTF-8 bytes). */
+  pushPieces(pieces: readonly LinePiece[]): void {
+    if (!this.open) return;
+    let most = 1;
+    for (const piece of pieces) most += typeof piece === 'string' ? piece.length * 3 : piece.byteLength;
+    this.room(most);
+    const start = this.used;
+    let at = start;
+    for (const piece of pieces) {
+      if (typeof piece === 'string') at += this.block.write(piece, at);
+      else {
+        this.block.set(piece, at);
+        at += piece.byteLength;
+      }
+    }
+    this.block[at] = 0x0a;
+    this.used = at + 1;
+    this.size += this.used - start;
   }
   /** Bytes waiting to be written. */
   get pending(): number {
@@ -557,7 +591,7 @@ export async function checkups(io: CommandIo): Promise<number> {
         headerWritten = true;
       }
       out.push(csvLine(result, strata));
-    } else out.push(workerJsonLine(result));
+    } else out.pushPieces(workerJsonPieces(result));
   };
   const onHeader = (header: HeaderInfo | null) => {
     strata = strataNames(header);

@@ -1,6 +1,7 @@
+import { Writable } from 'node:stream';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { workerJsonLine } from '@/lib/cli/commands/checkups';
+import { LineWriter, workerJsonLine, type LinePiece } from '@/lib/cli/commands/checkups';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
 import { evaluateWorker, prepareCheckups, type CheckupRow, type CheckupsContext, type WorkerResult } from '@/lib/workforce';
@@ -100,5 +101,47 @@ describe('workerJsonLine', () => {
     const warned: WorkerResult = { ...insufficient, warnings: Object.freeze([{ code: 'x', message: 'first "quoted" \u2028 text' }]) };
     expect(workerJsonLine(warned)).toBe(contractLine(warned));
     expect(workerJsonLine({ ...warned })).toBe(contractLine(warned));
+  });
+});
+
+describe('LineWriter', () => {
+  it('property: lines given whole or in pieces (text and UTF-8 bytes, any size) come out as the lines joined by newlines, byte for byte', async () => {
+    const text = fc.string({ unit: fc.constantFrom('a', '"', 'é', '–', '中', '😀', ','), maxLength: 40 });
+    const lineArb = fc.oneof(
+      text.map((t) => ({ whole: t })),
+      fc.array(fc.tuple(text, fc.boolean()), { maxLength: 6 }).map((parts) => ({ parts })),
+      // Longer than a whole output block (64 KiB), as text and as bytes; ASCII bytes that fill a block.
+      fc.constant({ whole: 'x'.repeat(70_000) }),
+      fc.constant({ parts: [['y'.repeat(70_000), true] as [string, boolean]] }),
+      fc.integer({ min: 1, max: 3000 }).map((n) => ({ parts: [['z'.repeat(n), true] as [string, boolean]] })),
+    );
+    await fc.assert(
+      fc.asyncProperty(fc.array(lineArb, { maxLength: 300 }), fc.array(fc.constantFrom('a'.repeat(5000), 'é'.repeat(3000)), { maxLength: 30 }), async (lines, filler) => {
+        const chunks: Buffer[] = [];
+        const stdout = new Writable({
+          write(chunk: Buffer, _encoding, done) {
+            chunks.push(Buffer.from(chunk));
+            done();
+          },
+        });
+        const out = new LineWriter({ stdout });
+        const expected: string[] = [];
+        for (const line of [...lines, ...filler.map((whole) => ({ whole }))]) {
+          if ('whole' in line) {
+            out.push(line.whole);
+            expected.push(line.whole);
+          } else {
+            // Bytes given as a view into a larger buffer, as remembered pieces may be.
+            const pieces: LinePiece[] = line.parts.map(([t, asBytes]) => (asBytes ? Buffer.concat([Buffer.from('#'), Buffer.from(t)]).subarray(1) : t));
+            out.pushPieces(pieces);
+            expected.push(line.parts.map(([t]) => t).join(''));
+          }
+          if (out.pending > 100_000) await out.flush();
+        }
+        await out.flush();
+        expect(Buffer.concat(chunks).equals(Buffer.from(expected.map((l) => `${l}\n`).join('')))).toBe(true);
+      }),
+      { numRuns: 60 },
+    );
   });
 });
