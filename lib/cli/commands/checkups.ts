@@ -491,6 +491,9 @@ function strataNames(header: HeaderInfo | null): string[] {
   return header ? header.proposal.mapping.columns.filter((c) => c.field === 'stratum' && c.stratum !== null).map((c) => c.stratum as string) : [];
 }
 
+/** Text the first pass's header probe reads at a time (about 400 rows of a usual file: enough to settle the header). */
+const PROBE_SLICE_CHARS = 1 << 14;
+
 /** The worker column of a CSV/TSV file and where its data rows start, found as the checkup reader finds them. */
 interface WorkerColumn {
   readonly delimiter: Delimiter;
@@ -511,19 +514,26 @@ async function scanWorkerIds(file: string, options: { today: string; overrides: 
   for await (const chunk of fileChunks(file)) {
     if (scanner === null) {
       buffered += chunk;
-      const step = probe.push(chunk);
-      if (isRefusal(step)) return false;
+      // The probe only needs the header and the rows that settle it: fed in slices until it has them,
+      // it does not read the rest of a large first chunk.
+      for (let at = 0; at < chunk.length && probe.header === null; at += PROBE_SLICE_CHARS) {
+        const step = probe.push(chunk.slice(at, at + PROBE_SLICE_CHARS));
+        if (isRefusal(step)) return false;
+      }
       const header = probe.header;
       if (header === null) continue;
       const worker = header.proposal.mapping.columns.find((c) => c.field === 'worker');
       if (!worker) return false;
       column = { delimiter: header.delimiter, index: worker.index, headerLine: header.headerLine };
       const headerLine = column.headerLine;
-      scanner = new ColumnScanner(column.delimiter, column.index, (cell, line) => {
+      // Only where the worker id changes matters (GroupingCheck and RunCounter ignore a repeat), so
+      // a row repeating the row before's cell is skipped without being cut out.
+      const onCell = (cell: string, line: number) => {
         if (line <= headerLine) return true;
         const id = cell.trim();
         return id === '' || add(id);
-      });
+      };
+      scanner = new ColumnScanner(column.delimiter, column.index, onCell, 1, { repeatsSkippedAfter: headerLine });
       if (!scanner.push(buffered.charCodeAt(0) === 0xfeff ? buffered.slice(1) : buffered)) return false;
       buffered = '';
       continue;
