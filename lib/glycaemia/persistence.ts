@@ -98,10 +98,15 @@ export function countYearlyRounds(dates: readonly string[]): number {
 export function persistence(classified: readonly ClassifiedCheckup[], criteria: CriteriaSet): Persistence {
   const sorted = inDateOrder(classified);
   const gaps: Gap[] = [];
+  // Where the latest long gap ends (the run, walking back from the latest checkup, stops there at the latest).
+  let latestGapEnd = -1;
   for (let i = 1; i < sorted.length; i += 1) {
     const before = sorted[i - 1];
     const after = sorted[i];
-    if (before && after && isLongGap(before.date, after.date)) gaps.push(gapBetween(before.date, after.date));
+    if (before && after && isLongGap(before.date, after.date)) {
+      gaps.push(gapBetween(before.date, after.date));
+      latestGapEnd = i;
+    }
   }
   const latest = sorted[sorted.length - 1];
   const empty = { criteria, checkups: 0, yearlyResults: 0, years: 0, from: null, to: null, gaps } as const;
@@ -116,7 +121,7 @@ export function persistence(classified: readonly ClassifiedCheckup[], criteria: 
     const previous = sorted[start - 1];
     const current = sorted[start];
     if (!previous || !current) break;
-    if (isLongGap(previous.date, current.date)) {
+    if (start === latestGapEnd) {
       brokenBy = { date: previous.date, reason: 'gap', category: previous.category, gap: gapBetween(previous.date, current.date) };
       break;
     }

@@ -37,8 +37,11 @@ export function ageBand(age: number | null): string {
   if (age < 20) return 'under 20';
   if (age >= 70) return '70 and over';
   const from = Math.floor(age / 10) * 10;
-  return `${from}–${from + 9}`;
+  return DECADE_BANDS[from] ?? `${from}–${from + 9}`;
 }
+
+/** "20–29" … "60–69", written once (a summary counts every worker in one). */
+const DECADE_BANDS: Readonly<Record<number, string>> = Object.fromEntries([20, 30, 40, 50, 60].map((from) => [from, `${from}–${from + 9}`]));
 
 function zeroCounts(): Record<WorkerStatus, number> {
   return Object.fromEntries(WORKER_STATUSES.map((s) => [s, 0])) as Record<WorkerStatus, number>;
@@ -67,12 +70,10 @@ export class SummaryAccumulator {
     this.byStatus[result.status]++;
     const category = categoryKey(result.latest?.category, result.latest !== null);
     this.byLatestCategory[category] = (this.byLatestCategory[category] ?? 0) + 1;
-    const strata: [string, string][] = [...Object.entries(result.strata), ['age band', ageBand(result.age)], ['sex', result.sex ?? 'unknown']];
-    for (const [name, value] of strata) {
-      const byValue = (this.byStratum[name] ??= {});
-      const counts = (byValue[value] ??= zeroCounts());
-      counts[result.status]++;
-    }
+    const { strata, status } = result;
+    for (const name in strata) if (Object.hasOwn(strata, name)) this.countIn(name, strata[name] as string, status);
+    this.countIn('age band', ageBand(result.age), status);
+    this.countIn('sex', result.sex ?? 'unknown', status);
     if (result.status === 'exposed' && result.exposedRisk && result.referenceRisk !== null) {
       this.exposedWorkers++;
       this.e1 += result.exposedRisk.estimate;
@@ -81,6 +82,13 @@ export class SummaryAccumulator {
       this.excessUpper += result.exposedRisk.upper - result.referenceRisk;
     }
     if (this.horizonYears === null && result.horizonYears !== null) this.horizonYears = result.horizonYears;
+  }
+
+  /** One more worker of this status in a stratum's value. */
+  private countIn(name: string, value: string, status: WorkerStatus): void {
+    const byValue = (this.byStratum[name] ??= {});
+    const counts = (byValue[value] ??= zeroCounts());
+    counts[status]++;
   }
 
   finish(rows: RowCounts): WorkforceSummary {

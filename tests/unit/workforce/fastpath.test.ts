@@ -6,7 +6,7 @@ import { parseScenario } from '@/lib/scenario/parse';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
 import { addMonths, compareWithMonthsLater, daysInMonth, dayNumber, formatIsoDate, inDateOrder, parseIsoDate, sortByDate } from '@/lib/glycaemia/dates';
 import { THRESHOLD_DECIMALS, withUnit, type ValueUnit } from '@/lib/glycaemia/format';
-import { createRowReader, evaluateWorker, MAX_SCENARIOS, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFiguresFor, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
+import { ageBand, createRowReader, evaluateWorker, MAX_SCENARIOS, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFiguresFor, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
 
 // The fast paths (answers remembered per text, per age and sex, per pair of readings) against the
 // plain ones (each check afresh; the scenario validated by parseScenario, then computeScenario).
@@ -142,6 +142,21 @@ describe('scenarioFiguresFor: computeScenario remembered per age, sex and table 
     const again = scenarioFiguresFor(52, 'female', {}, shared);
     expect(again).not.toBe(first);
     expect(again).toEqual(first);
+  });
+});
+
+describe('ageBand writes each decade\'s band once, with the same words', () => {
+  it('property: equals the band written out for any age', () => {
+    const written = (age: number | null) => {
+      if (age === null) return 'unknown';
+      if (age < 20) return 'under 20';
+      if (age >= 70) return '70 and over';
+      const from = Math.floor(age / 10) * 10;
+      return `${from}–${from + 9}`;
+    };
+    fc.assert(fc.property(fc.oneof(fc.integer({ min: -5, max: 130 }), fc.double(), fc.constant(null)), (age) => {
+        expect(ageBand(age)).toBe(written(age));
+      }), { numRuns: 1000 });
   });
 });
 
