@@ -57,7 +57,8 @@ export class SummaryAccumulator {
   private workers = 0;
   private readonly byStatus = zeroCounts();
   private readonly byLatestCategory: Record<string, number> = {};
-  private readonly byStratum: Record<string, Record<string, Record<WorkerStatus, number>>> = {};
+  /** Stratum → value → counts by status (maps: any text is a value, "__proto__" too). */
+  private readonly byStratum = new Map<string, Map<string, Record<WorkerStatus, number>>>();
   private exposedWorkers = 0;
   private e1 = 0;
   private e0 = 0;
@@ -86,8 +87,16 @@ export class SummaryAccumulator {
 
   /** One more worker of this status in a stratum's value. */
   private countIn(name: string, value: string, status: WorkerStatus): void {
-    const byValue = (this.byStratum[name] ??= {});
-    const counts = (byValue[value] ??= zeroCounts());
+    let byValue = this.byStratum.get(name);
+    if (byValue === undefined) {
+      byValue = new Map();
+      this.byStratum.set(name, byValue);
+    }
+    let counts = byValue.get(value);
+    if (counts === undefined) {
+      counts = zeroCounts();
+      byValue.set(value, counts);
+    }
     counts[status]++;
   }
 
@@ -99,11 +108,13 @@ export class SummaryAccumulator {
       excess: { estimate: this.e1 - this.e0, lower: this.excessLower, upper: this.excessUpper },
       attributableFractionAmongExposed: this.e1 > 0 ? (this.e1 - this.e0) / this.e1 : null,
     };
-    const byStratum: Record<string, Record<string, StatusCounts>> = {};
-    for (const name of Object.keys(this.byStratum).sort()) {
-      const values = this.byStratum[name] ?? {};
-      byStratum[name] = Object.fromEntries(Object.keys(values).sort().map((v) => [v, { ...(values[v] ?? zeroCounts()) }]));
-    }
+    // Names and values in sorted order, each an own property (Object.fromEntries: "__proto__" too).
+    const byStratum: Record<string, Record<string, StatusCounts>> = Object.fromEntries(
+      [...this.byStratum.keys()].sort().map((name) => {
+        const values = this.byStratum.get(name) ?? new Map<string, Record<WorkerStatus, number>>();
+        return [name, Object.fromEntries([...values.keys()].sort().map((v) => [v, { ...(values.get(v) ?? zeroCounts()) }]))];
+      }),
+    );
     return {
       workers: this.workers,
       rows,
