@@ -260,8 +260,14 @@ export interface ScenarioFigures {
   readonly computed: Result<ComputeResult>;
 }
 
-/** Scenarios and figures already worked out, per context. */
-const SCENARIOS = new WeakMap<CheckupsContext, { readonly extra: readonly string[]; readonly byKey: Map<string, ScenarioFigures> }>();
+/**
+ * Scenarios and figures already worked out, per context: by age, then by sex, then (only when the
+ * table names strata beyond age and sex) by the values of those strata written as JSON.
+ */
+const SCENARIOS = new WeakMap<
+  CheckupsContext,
+  { readonly extra: readonly string[]; readonly byAge: Map<number | null, Map<'female' | 'male' | null, Map<string, ScenarioFigures>>>; size: number }
+>();
 /** Most scenarios kept per context before starting over (ages × sexes × table strata: a few hundred in practice). */
 export const MAX_SCENARIOS = 4096;
 
@@ -285,16 +291,30 @@ function deepFreeze<T>(value: T): T {
 export function scenarioFiguresFor(age: number | null, sex: 'female' | 'male' | null, strata: Readonly<Record<string, string>>, context: CheckupsContext): ScenarioFigures {
   let cache = SCENARIOS.get(context);
   if (!cache) {
-    cache = { extra: tableNeeds(context.table).extra, byKey: new Map() };
+    cache = { extra: tableNeeds(context.table).extra, byAge: new Map(), size: 0 };
     SCENARIOS.set(context, cache);
   }
-  const key = JSON.stringify([age, sex, ...cache.extra.map((k) => strata[k] ?? null)]);
-  const known = cache.byKey.get(key);
+  const key = cache.extra.length === 0 ? '' : JSON.stringify(cache.extra.map((k) => strata[k] ?? null));
+  const known = cache.byAge.get(age)?.get(sex)?.get(key);
   if (known) return known;
   const built = scenarioFor(age, sex, strata, context);
   const figures: ScenarioFigures = { built, computed: built.ok ? deepFreeze(computeScenario(built.value)) : built };
-  if (cache.byKey.size >= MAX_SCENARIOS) cache.byKey.clear();
-  cache.byKey.set(key, figures);
+  if (cache.size >= MAX_SCENARIOS) {
+    cache.byAge.clear();
+    cache.size = 0;
+  }
+  let bySex = cache.byAge.get(age);
+  if (!bySex) {
+    bySex = new Map();
+    cache.byAge.set(age, bySex);
+  }
+  let byStrata = bySex.get(sex);
+  if (!byStrata) {
+    byStrata = new Map();
+    bySex.set(sex, byStrata);
+  }
+  byStrata.set(key, figures);
+  cache.size += 1;
   return figures;
 }
 
