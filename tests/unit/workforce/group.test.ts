@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ColumnScanner, DelimitedSplitter, GroupingCheck, RunCounter, StreamingGrouper, WorkerGrouper, type CheckupRow } from '@/lib/workforce';
+import { BloomFilter, ColumnScanner, DelimitedSplitter, GroupingCheck, RunCounter, StreamingGrouper, WorkerGrouper, type CheckupRow } from '@/lib/workforce';
 
 // Invented ids and rows (illustrative).
 function rowsOf(ids: readonly string[]): CheckupRow[] {
@@ -71,6 +71,41 @@ describe('grouping check with a Bloom filter and an exact second count', () => {
   it('W1 W2 W1 is not grouped; W1 W1 W2 is (hand-made)', () => {
     expect(firstPass(['W1', 'W2', 'W1'], 24)).toBeNull();
     expect(firstPass(['W1', 'W1', 'W2'], 24)).toEqual(new Set());
+  });
+});
+
+describe('BloomFilter positions by a mask', () => {
+  /** The filter as first written: positions as a remainder (FNV-1a, double hashing), for reference. */
+  function remainderFilter(bitsLog2: number, hashes = 7) {
+    const size = 2 ** bitsLog2;
+    const bits = new Set<number>();
+    const positions = (text: string) => {
+      let h1 = 0x811c9dc5;
+      let h2 = 0x01000193;
+      for (let i = 0; i < text.length; i++) {
+        const c = text.charCodeAt(i);
+        h1 = Math.imul(h1 ^ c, 0x01000193) >>> 0;
+        h2 = Math.imul(h2 ^ c, 0x5bd1e995) >>> 0;
+      }
+      h2 = (h2 | 1) >>> 0;
+      return Array.from({ length: hashes }, (_, k) => ((h1 + Math.imul(k, h2)) >>> 0) % size);
+    };
+    return { add: (t: string) => positions(t).forEach((p) => bits.add(p)), mightHave: (t: string) => positions(t).every((p) => bits.has(p)) };
+  }
+
+  it('property: answers "might have" exactly as the remainder form (sizes up to 2^24 bits, the command\'s; past 2^30 the remainder is kept)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.string({ maxLength: 6 }), { maxLength: 40 }), fc.array(fc.string({ maxLength: 6 }), { maxLength: 40 }), fc.constantFrom(0, 1, 3, 5, 8, 17, 24), (added, asked, bitsLog2) => {
+        const filter = new BloomFilter(bitsLog2);
+        const reference = remainderFilter(bitsLog2);
+        for (const t of added) {
+          filter.add(t);
+          reference.add(t);
+        }
+        for (const t of [...asked, ...added]) expect(filter.mightHave(t)).toBe(reference.mightHave(t));
+      }),
+      { numRuns: 200 },
+    );
   });
 });
 
