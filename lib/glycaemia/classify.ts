@@ -32,6 +32,7 @@ import type { CriteriaSet, GlycaemicCategory } from './exposure';
 import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, thresholdText, withUnit, type ValueUnit } from './format';
 import { glucoseIn, type GlucoseUnit } from './glucose';
 import { hba1cIn, type Hba1cUnit } from './hba1c';
+import { inDateOrder } from './dates';
 import { REPORTING_STEP } from './merge';
 import type { Checkup } from './schema';
 
@@ -222,30 +223,26 @@ function unitSlipNote(test: TestName, entered: { readonly value: number; readonl
   return { code: 'unit-check', message };
 }
 
-/**
- * Classify one checkup under one criteria set.
- *
- * @example
- * classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 92, unit: 'mg/dL' } }, 'ADA')
- * //=> { category: 'prediabetes', decidedBy: 'hba1c', discordant: true, hba1cMmolMol: 43.173, … }
- */
-export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): ClassifiedCheckup {
+/** Everything in a {@link ClassifiedCheckup} but its date: what the readings and the criteria set decide. */
+type ReadingsClassification = Omit<ClassifiedCheckup, 'date'>;
+
+function classifyReadings(hba1cReading: Checkup['hba1c'], fpgReading: Checkup['fpg'], criteria: CriteriaSet): ReadingsClassification {
   const body = CRITERIA[criteria];
   const notes: Warning[] = [];
   let hba1c: TestClassification | null = null;
   let fpg: TestClassification | null = null;
-  if (checkup.hba1c) {
-    const { result, note } = classifyTest('hba1c', checkup.hba1c, hba1cIn(body.hba1c.unit, checkup.hba1c), body.hba1c, body.id);
+  if (hba1cReading) {
+    const { result, note } = classifyTest('hba1c', hba1cReading, hba1cIn(body.hba1c.unit, hba1cReading), body.hba1c, body.id);
     hba1c = result;
     if (note) notes.push(note);
-    const slip = unitSlipNote('hba1c', checkup.hba1c, result.category, body.hba1c, body.id);
+    const slip = unitSlipNote('hba1c', hba1cReading, result.category, body.hba1c, body.id);
     if (slip) notes.push(slip);
   }
-  if (checkup.fpg) {
-    const { result, note } = classifyTest('fpg', checkup.fpg, glucoseIn(body.fpg.unit, checkup.fpg), body.fpg, body.id);
+  if (fpgReading) {
+    const { result, note } = classifyTest('fpg', fpgReading, glucoseIn(body.fpg.unit, fpgReading), body.fpg, body.id);
     fpg = result;
     if (note) notes.push(note);
-    const slip = unitSlipNote('fpg', checkup.fpg, result.category, body.fpg, body.id);
+    const slip = unitSlipNote('fpg', fpgReading, result.category, body.fpg, body.id);
     if (slip) notes.push(slip);
   }
 
@@ -277,12 +274,11 @@ export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): Classi
     });
   }
 
-  const percent = checkup.hba1c ? hba1cIn('%', checkup.hba1c) : null;
-  const mmolMol = checkup.hba1c ? hba1cIn('mmol/mol', checkup.hba1c) : null;
-  const mgDl = checkup.fpg ? glucoseIn('mg/dL', checkup.fpg) : null;
-  const mmolL = checkup.fpg ? glucoseIn('mmol/L', checkup.fpg) : null;
+  const percent = hba1cReading ? hba1cIn('%', hba1cReading) : null;
+  const mmolMol = hba1cReading ? hba1cIn('mmol/mol', hba1cReading) : null;
+  const mgDl = fpgReading ? glucoseIn('mg/dL', fpgReading) : null;
+  const mmolL = fpgReading ? glucoseIn('mmol/L', fpgReading) : null;
   return {
-    date: checkup.date,
     criteria,
     category,
     decidedBy,
@@ -297,7 +293,103 @@ export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): Classi
   };
 }
 
+/** Most pairs of readings remembered per criteria set before starting over: memory stays flat. */
+export const MAX_REMEMBERED_READINGS = 4096;
+
+/** Position of a reading's unit in the memory's slots: 0 or 1; 2 for a missing reading; −1 for an unknown unit. */
+function unitSlot(reading: { readonly unit: string } | undefined, first: string, second: string): number {
+  if (!reading) return 2;
+  return reading.unit === first ? 0 : reading.unit === second ? 1 : -1;
+}
+
+/** Per criteria set: for each pair of units (or a missing test), HbA1c value → fasting glucose value → classification. */
+const REMEMBERED: Record<CriteriaSet, { size: number; readonly slots: Map<number, Map<number, ReadingsClassification>>[] }> = {
+  ADA: { size: 0, slots: [] },
+  WHO: { size: 0, slots: [] },
+  NICE: { size: 0, slots: [] },
+};
+
+/** Forgets every remembered classification (the next ones are worked out afresh). */
+export function forgetRememberedReadings(): void {
+  for (const memory of Object.values(REMEMBERED)) {
+    memory.slots.length = 0;
+    memory.size = 0;
+  }
+}
+
+function freezeDeep<T>(value: T): T {
+  if (typeof value !== 'object' || value === null || Object.isFrozen(value)) return value;
+  for (const key of Object.keys(value)) freezeDeep((value as Record<string, unknown>)[key]);
+  return Object.freeze(value);
+}
+
+/**
+ * {@link classifyReadings}, remembered: a workforce repeats the same few hundred readings on
+ * thousands of checkups, and the classification depends only on the readings and the criteria
+ * set. A remembered answer is frozen (it is shared by every checkup with those readings); its
+ * `entered` readings are copies `{ value, unit }`. A value of 0 (which could be −0, a different
+ * number the memory's keys do not tell apart) or an unknown unit is classified afresh.
+ */
+function rememberedReadings(hba1cReading: Checkup['hba1c'], fpgReading: Checkup['fpg'], criteria: CriteriaSet): ReadingsClassification {
+  const memory = REMEMBERED[criteria];
+  const hSlot = unitSlot(hba1cReading, '%', 'mmol/mol');
+  const fSlot = unitSlot(fpgReading, 'mg/dL', 'mmol/L');
+  const hValue = hba1cReading ? hba1cReading.value : Number.NaN;
+  const fValue = fpgReading ? fpgReading.value : Number.NaN;
+  if (memory === undefined || hSlot < 0 || fSlot < 0 || hValue === 0 || fValue === 0) return classifyReadings(hba1cReading, fpgReading, criteria);
+  const slot = hSlot * 3 + fSlot;
+  let byHba1c = memory.slots[slot];
+  if (byHba1c === undefined) {
+    byHba1c = new Map();
+    memory.slots[slot] = byHba1c;
+  }
+  let byFpg = byHba1c.get(hValue);
+  const known = byFpg?.get(fValue);
+  if (known !== undefined) return known;
+  const fresh = freezeDeep(
+    classifyReadings(hba1cReading ? { value: hValue, unit: hba1cReading.unit } : undefined, fpgReading ? { value: fValue, unit: fpgReading.unit } : undefined, criteria),
+  );
+  if (memory.size >= MAX_REMEMBERED_READINGS) {
+    memory.slots.length = 0;
+    memory.size = 0;
+    return rememberedReadings(hba1cReading, fpgReading, criteria);
+  }
+  if (byFpg === undefined) {
+    byFpg = new Map();
+    byHba1c.set(hValue, byFpg);
+  }
+  byFpg.set(fValue, fresh);
+  memory.size += 1;
+  return fresh;
+}
+
+/**
+ * Classify one checkup under one criteria set. What the readings decide is remembered per pair
+ * of readings (the same answer, frozen and shared); the date is the checkup's own.
+ *
+ * @example
+ * classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.1, unit: '%' }, fpg: { value: 92, unit: 'mg/dL' } }, 'ADA')
+ * //=> { category: 'prediabetes', decidedBy: 'hba1c', discordant: true, hba1cMmolMol: 43.173, … }
+ */
+export function classifyCheckup(checkup: Checkup, criteria: CriteriaSet): ClassifiedCheckup {
+  const r = rememberedReadings(checkup.hba1c, checkup.fpg, criteria);
+  return {
+    date: checkup.date,
+    criteria: r.criteria,
+    category: r.category,
+    decidedBy: r.decidedBy,
+    discordant: r.discordant,
+    hba1c: r.hba1c,
+    fpg: r.fpg,
+    hba1cPercent: r.hba1cPercent,
+    hba1cMmolMol: r.hba1cMmolMol,
+    fpgMgDl: r.fpgMgDl,
+    fpgMmolL: r.fpgMmolL,
+    notes: r.notes,
+  };
+}
+
 /** Classify every checkup, sorted by date (earliest first). */
 export function classifyHistory(checkups: readonly Checkup[], criteria: CriteriaSet): ClassifiedCheckup[] {
-  return [...checkups].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0)).map((c) => classifyCheckup(c, criteria));
+  return inDateOrder(checkups).map((c) => classifyCheckup(c, criteria));
 }

@@ -21,7 +21,7 @@
 import type { Warning } from '../result';
 import { classifyCheckup, classifyHistory, type ClassifiedCheckup } from './classify';
 import { CRITERIA } from './criteria';
-import { addMonths, daysBetween, wholeMonthsBetween } from './dates';
+import { compareWithMonthsLater, daysBetween, inDateOrder, wholeMonthsBetween } from './dates';
 import {
   resolveExposureDefinition,
   type CriteriaSet,
@@ -50,7 +50,7 @@ const TEST_WORDS = { either: 'HbA1c or fasting glucose', hba1c: 'HbA1c', fpg: 'f
 export function classifyForDefinition(checkups: readonly Checkup[], definition: ResolvedExposureDefinition): ClassifiedCheckup[] {
   const { test, criteria } = definition;
   if (test === 'either') return classifyHistory(checkups, criteria);
-  const sorted = [...checkups].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+  const sorted = inDateOrder(checkups);
   if (test === 'hba1c') return sorted.filter((c) => c.hba1c).map((c) => classifyCheckup({ date: c.date, hba1c: c.hba1c }, criteria));
   if (test === 'fpg') return sorted.filter((c) => c.fpg).map((c) => classifyCheckup({ date: c.date, fpg: c.fpg }, criteria));
   return sorted
@@ -74,7 +74,7 @@ export function runForDefinition(classified: readonly ClassifiedCheckup[], defin
   for (let i = inRun.length - 1; i > 0; i -= 1) {
     const before = inRun[i - 1];
     const after = inRun[i];
-    if (!before || !after || after.date <= addMonths(before.date, definition.maxGapMonths)) continue;
+    if (!before || !after || compareWithMonthsLater(after.date, before.date, definition.maxGapMonths) <= 0) continue;
     const shorter = persistence(inRun.slice(i), definition.criteria);
     return {
       ...shorter,
@@ -122,7 +122,7 @@ export function diabetesRangeNote(
   classified: readonly ClassifiedCheckup[],
   otherCategory: GlycaemicCategory = 'prediabetes',
 ): Warning | null {
-  const latest = [...classified].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0)).at(-1);
+  const latest = inDateOrder(classified).at(-1);
   if (!latest || latest.category !== 'diabetes-range') return null;
   const evidence = otherCategory === 'diabetes-range' ? '' : ` Evidence about the ${rangeName(otherCategory)} does not apply to it.`;
   return {
@@ -167,12 +167,58 @@ function testAndGap(definition: ResolvedExposureDefinition): { test: string; gap
   };
 }
 
+type Role = 'exposure' | 'comparison';
+
+/** The words of a check that depend only on the definition and the role, not on the history. */
+interface CheckWords {
+  /** "The study needed 3 yearly results in the prediabetes range (ADA, by HbA1c); this history has " (the count follows). */
+  readonly needed: string;
+  /** The mismatch warning up to the count: "This history does not fit the study's exposure: the study needed …; this history has ". */
+  readonly mismatch: string;
+}
+
+const MISMATCH_END = ". The study's figures may not apply to this person.";
+
+/** The words last worked out per role, with the definition they were worked out for (compared field by field). */
+const LAST_WORDS: Record<Role, { readonly definition: ResolvedExposureDefinition; readonly words: CheckWords } | null> = { exposure: null, comparison: null };
+
+/**
+ * A check's words for a definition and role, worked out once and reused while the definition
+ * stays the same (a workforce checks thousands of histories against one definition).
+ */
+function checkWords(definition: ResolvedExposureDefinition, role: Role): CheckWords {
+  const last = LAST_WORDS[role];
+  if (
+    last &&
+    last.definition.category === definition.category &&
+    last.definition.criteria === definition.criteria &&
+    last.definition.minYears === definition.minYears &&
+    last.definition.test === definition.test &&
+    last.definition.maxGapMonths === definition.maxGapMonths
+  ) {
+    return last.words;
+  }
+  const body = CRITERIA[definition.criteria].id;
+  const { test, gap } = testAndGap(definition);
+  const group = role === 'exposure' ? 'The study needed' : "The study's comparison group needed";
+  const needed = `${group} ${yearlyResults(definition.minYears)} in the ${rangeName(definition.category)} (${body}${test ? `,${test}` : ''})${gap}; this history has `;
+  const words: CheckWords = {
+    needed,
+    mismatch: `This history does not fit the study's ${role === 'exposure' ? 'exposure' : 'comparison group'}: ${needed.charAt(0).toLowerCase()}${needed.slice(1)}`,
+  };
+  LAST_WORDS[role] = {
+    definition: { category: definition.category, criteria: definition.criteria, minYears: definition.minYears, test: definition.test, maxGapMonths: definition.maxGapMonths, comparison: null },
+    words,
+  };
+  return words;
+}
+
 function matchResolved(
   checkups: readonly Checkup[],
   exposure: ExposureDefinition,
   definition: ResolvedExposureDefinition,
   options: MatchOptions,
-  role: 'exposure' | 'comparison' = 'exposure',
+  role: Role = 'exposure',
   /** The history classified and its run under this definition's criteria, test and gap, when already known. */
   known?: { readonly classified: readonly ClassifiedCheckup[]; readonly run: Persistence },
 ): HistoryMatch {
@@ -182,10 +228,8 @@ function matchResolved(
   const sameCategory = run.category === definition.category;
   const count = sameCategory ? run.yearlyResults : 0;
   const matches = sameCategory && count >= definition.minYears;
-  const { test, gap } = testAndGap(definition);
-  const group = role === 'exposure' ? 'The study needed' : "The study's comparison group needed";
-
-  const needed = `${group} ${yearlyResults(definition.minYears)} in the ${rangeName(definition.category)} (${body}${test ? `,${test}` : ''})${gap}; this history has ${count}`;
+  const words = checkWords(definition, role);
+  const needed = `${words.needed}${count}`;
   const span = sameCategory && run.from && run.to ? `, from ${run.from} to ${run.to}` : '';
   const reasons: string[] = [`${needed}${span}.`];
 
@@ -215,22 +259,11 @@ function matchResolved(
   }
 
   const note = diabetesRangeNote(classified, definition.category);
-  return {
-    exposure,
-    matches,
-    matchingYearlyResults: count,
-    persistence: run,
-    reasons,
-    ...(matches
-      ? {}
-      : {
-          warning: {
-            code: 'exposure-mismatch',
-            message: `This history does not fit the study's ${role === 'exposure' ? 'exposure' : 'comparison group'}: ${needed.charAt(0).toLowerCase()}${needed.slice(1)}. The study's figures may not apply to this person.`,
-          },
-        }),
-    ...(note ? { diabetesRangeNote: note } : {}),
-  };
+  // Key by key (no spreads), in the same order: the optional ones last.
+  const match: { -readonly [K in keyof HistoryMatch]: HistoryMatch[K] } = { exposure, matches, matchingYearlyResults: count, persistence: run, reasons };
+  if (!matches) match.warning = { code: 'exposure-mismatch', message: `${words.mismatch}${count}${MISMATCH_END}` };
+  if (note) match.diabetesRangeNote = note;
+  return match;
 }
 
 /** Where a history stands against an evidence entry's exposure and comparison definitions. */
@@ -271,6 +304,42 @@ function neitherReason(run: Persistence, definition: ResolvedExposureDefinition)
   return run.brokenBy.reason === 'gap' ? 'gap' : 'changed';
 }
 
+/** A definition resolved, and its comparison group's as the exposure's with the comparison's category and run. */
+interface ResolvedDefinitions {
+  readonly definition: ResolvedExposureDefinition;
+  readonly comparisonDefinition: ResolvedExposureDefinition | null;
+}
+
+/** The definitions last resolved, with a copy of the fields they were resolved from (compared field by field). */
+let lastResolved: { readonly from: ExposureDefinition; readonly resolved: ResolvedDefinitions } | null = null;
+
+/**
+ * {@link resolveExposureDefinition} and the comparison's definition, reused while the definition's
+ * fields stay the same (a workforce checks thousands of histories against one definition). They
+ * are read only here, never handed out.
+ */
+function resolvedDefinitions(exposure: ExposureDefinition): ResolvedDefinitions {
+  const last = lastResolved?.from;
+  if (
+    last &&
+    last.category === exposure.category &&
+    last.criteria === exposure.criteria &&
+    last.minYears === exposure.minYears &&
+    last.test === exposure.test &&
+    last.maxGapMonths === exposure.maxGapMonths &&
+    last.comparison?.category === exposure.comparison?.category &&
+    last.comparison?.minYears === exposure.comparison?.minYears &&
+    (last.comparison === undefined) === (exposure.comparison === undefined)
+  ) {
+    return (lastResolved as { readonly resolved: ResolvedDefinitions }).resolved;
+  }
+  const definition = resolveExposureDefinition(exposure);
+  const comparisonDefinition = definition.comparison ? { ...definition, category: definition.comparison.category, minYears: definition.comparison.minYears } : null;
+  const resolved = { definition, comparisonDefinition };
+  lastResolved = { from: { ...exposure, ...(exposure.comparison ? { comparison: { ...exposure.comparison } } : {}) }, resolved };
+  return resolved;
+}
+
 /**
  * Exposed, comparison, or neither: the history against the exposure definition, then against the
  * comparison group's definition (same criteria set, test and gap rule). Exposure is checked first;
@@ -281,12 +350,11 @@ function neitherReason(run: Persistence, definition: ResolvedExposureDefinition)
  * //=> { status: 'comparison', neitherReason: null, reasons: ['In the study's comparison group: …', …], … }
  */
 export function exposureStatus(checkups: readonly Checkup[], exposure: ExposureDefinition, options: MatchOptions = {}): ExposureStatusMatch {
-  const definition = resolveExposureDefinition(exposure);
+  const { definition, comparisonDefinition } = resolvedDefinitions(exposure);
   // The comparison shares the criteria set, test and gap rule: classify and find the run once.
   const classified = classifyForDefinition(checkups, definition);
   const known = { classified, run: runForDefinition(classified, definition) };
   const exposed = matchResolved(checkups, exposure, definition, options, 'exposure', known);
-  const comparisonDefinition = definition.comparison ? { ...definition, category: definition.comparison.category, minYears: definition.comparison.minYears } : null;
   const comparison = comparisonDefinition ? matchResolved(checkups, exposure, comparisonDefinition, options, 'comparison', known) : null;
   const run = exposed.persistence;
   if (exposed.matches) {

@@ -10,6 +10,7 @@
 import type { z } from 'zod';
 import { fail, ok, type Issue, type Result, type Warning } from '../result';
 import { toIssues } from '../validation/issues';
+import { sortByDate } from './dates';
 import type { CriteriaSet } from './exposure';
 import type { ValueUnit } from './format';
 import { fpgReadingsAgree, hba1cReadingsAgree, keptWords, preferLater, readingText } from './merge';
@@ -51,6 +52,9 @@ export function mergeSameDate(
   checkupName: (index: number) => string = defaultName,
   criteria?: CriteriaSet,
 ): MergeOutcome {
+  // Nothing shares a date (the usual case): each checkup copied, in date order — exactly what the
+  // general path below gives then, without its table of dates.
+  if (!sharesADate(checkups)) return { checkups: sortByDate(checkups.map((c) => ({ ...c }))), notes: [], issues: [] };
   const byDate = new Map<string, { merged: Checkup; firstIndex: number }>();
   const notes: Warning[] = [];
   const issues: Issue[] = [];
@@ -99,8 +103,26 @@ export function mergeSameDate(
       message: `${capitalised(checkupName(seen.firstIndex))} and ${checkupName(index)} (${checkup.date}) share a date and were merged${kept.length > 0 ? `: ${kept.join('; ')}` : ''}`,
     });
   });
-  const merged = [...byDate.values()].map((entry) => entry.merged).sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+  const merged = sortByDate([...byDate.values()].map((entry) => entry.merged));
   return { checkups: merged, notes, issues };
+}
+
+/** Whether two checkups have the same date (pairwise for a short history, with a set for a long one). */
+function sharesADate(checkups: readonly Checkup[]): boolean {
+  const n = checkups.length;
+  if (n > 16) {
+    const seen = new Set<string>();
+    for (const c of checkups) {
+      if (seen.has(c.date)) return true;
+      seen.add(c.date);
+    }
+    return false;
+  }
+  for (let i = 1; i < n; i++) {
+    const date = (checkups[i] as Checkup).date;
+    for (let j = 0; j < i; j++) if ((checkups[j] as Checkup).date === date) return true;
+  }
+  return false;
 }
 
 /**

@@ -20,7 +20,7 @@
  * - `years`: elapsed time from the run's first to its last result, days / 365.25. Three yearly
  *   results span about 2 years.
  */
-import { addMonths, daysBetween, wholeMonthsBetween, yearsBetween } from './dates';
+import { compareWithMonthsLater, daysBetween, inDateOrder, wholeMonthsBetween, yearsBetween } from './dates';
 import type { ClassifiedCheckup } from './classify';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
 
@@ -68,7 +68,7 @@ export interface Persistence {
 
 /** A gap from `from` to `to` is too long when `to` is later than `from` + 18 calendar months. */
 export function isLongGap(from: string, to: string): boolean {
-  return to > addMonths(from, MAX_GAP_MONTHS);
+  return compareWithMonthsLater(to, from, MAX_GAP_MONTHS) > 0;
 }
 
 function gapBetween(from: string, to: string): Gap {
@@ -80,7 +80,7 @@ export function countYearlyRounds(dates: readonly string[]): number {
   let rounds = 0;
   let roundStart: string | null = null;
   for (const date of dates) {
-    if (roundStart === null || date >= addMonths(roundStart, MIN_ROUND_MONTHS)) {
+    if (roundStart === null || compareWithMonthsLater(date, roundStart, MIN_ROUND_MONTHS) >= 0) {
       rounds += 1;
       roundStart = date;
     }
@@ -96,12 +96,17 @@ export function countYearlyRounds(dates: readonly string[]): number {
  * //=> { category: 'prediabetes', checkups: 4, yearlyResults: 4, years: 3.0, gaps: [], brokenBy: null, … }
  */
 export function persistence(classified: readonly ClassifiedCheckup[], criteria: CriteriaSet): Persistence {
-  const sorted = [...classified].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+  const sorted = inDateOrder(classified);
   const gaps: Gap[] = [];
+  // Where the latest long gap ends (the run, walking back from the latest checkup, stops there at the latest).
+  let latestGapEnd = -1;
   for (let i = 1; i < sorted.length; i += 1) {
     const before = sorted[i - 1];
     const after = sorted[i];
-    if (before && after && isLongGap(before.date, after.date)) gaps.push(gapBetween(before.date, after.date));
+    if (before && after && isLongGap(before.date, after.date)) {
+      gaps.push(gapBetween(before.date, after.date));
+      latestGapEnd = i;
+    }
   }
   const latest = sorted[sorted.length - 1];
   const empty = { criteria, checkups: 0, yearlyResults: 0, years: 0, from: null, to: null, gaps } as const;
@@ -116,7 +121,7 @@ export function persistence(classified: readonly ClassifiedCheckup[], criteria: 
     const previous = sorted[start - 1];
     const current = sorted[start];
     if (!previous || !current) break;
-    if (isLongGap(previous.date, current.date)) {
+    if (start === latestGapEnd) {
       brokenBy = { date: previous.date, reason: 'gap', category: previous.category, gap: gapBetween(previous.date, current.date) };
       break;
     }

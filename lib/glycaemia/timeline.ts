@@ -9,7 +9,7 @@
  */
 import type { ClassifiedCheckup, TestClassification, TestName } from './classify';
 import { CRITERIA } from './criteria';
-import { dayNumber } from './dates';
+import { compareByDate, dayNumber } from './dates';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
 import { categoryLabel, thresholdText, type ValueUnit } from './format';
 
@@ -98,7 +98,7 @@ function series(test: TestName, classified: readonly ClassifiedCheckup[], criter
  */
 export function glucoseTimeline(classified: readonly ClassifiedCheckup[], criteria: CriteriaSet): Timeline | null {
   if (classified.length === 0) return null;
-  const sorted = [...classified].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+  const sorted = [...classified].sort(compareByDate);
   const all = (['hba1c', 'fpg'] as const).map((t) => series(t, sorted, criteria)).filter((s): s is TimelineSeries => s !== null);
   const days = sorted.map((c) => dayNumber(c.date));
   const tickLabels: Record<number, string> = {};

@@ -131,18 +131,35 @@ export class ColumnScanner {
   private line: number;
   private splitter: DelimitedSplitter | null = null;
   private stopped = false;
+  /** The cell of the row before, when repeats are skipped and that row was past {@link repeatsSkippedAfter}. */
+  private previous: string | null = null;
+  private readonly repeatsSkippedAfter: number;
 
   /**
    * @param onCell - called with each row's cell (as written, "" when the row is shorter) and the
    *   row's line; return false to stop
+   * @param options.repeatsSkippedAfter - past this line, a row whose cell is the same text as the
+   *   row before's is not passed to `onCell` (nor sliced out of the text): for a caller that only
+   *   looks at changes, e.g. where one worker's rows end (default: every row is passed)
    */
   constructor(
     readonly delimiter: Delimiter,
     private readonly column: number,
     private readonly onCell: (cell: string, line: number) => boolean,
     firstLine = 1,
+    options: { readonly repeatsSkippedAfter?: number } = {},
   ) {
     this.line = firstLine;
+    this.repeatsSkippedAfter = options.repeatsSkippedAfter ?? Number.POSITIVE_INFINITY;
+  }
+
+  /** Passes a row's cell on, unless it repeats the row before's (past the line given); false to stop. */
+  private pass(cell: string, line: number): boolean {
+    if (line > this.repeatsSkippedAfter) {
+      if (cell === this.previous) return true;
+      this.previous = cell;
+    }
+    return this.onCell(cell, line);
   }
 
   /** Feeds the next chunk; false once `onCell` has asked to stop. */
@@ -158,7 +175,7 @@ export class ColumnScanner {
       return this.feedRows(this.splitter.push(text));
     }
     this.carry = text.slice(cut);
-    const { delimiter, column, onCell } = this;
+    const { delimiter, column, repeatsSkippedAfter } = this;
     let start = 0;
     while (start < cut) {
       const end = text.indexOf('\n', start);
@@ -167,18 +184,21 @@ export class ColumnScanner {
         const at = text.indexOf(delimiter, from);
         from = at < 0 || at >= end ? -1 : at + 1;
       }
-      let cell = '';
+      let to = from;
       if (from >= 0) {
         const at = text.indexOf(delimiter, from);
-        let to = at < 0 || at > end ? end : at;
+        to = at < 0 || at > end ? end : at;
         if (to === end && to > from && text.charCodeAt(to - 1) === 13) to -= 1;
-        cell = text.slice(from, to);
       }
-      if (!onCell(cell, this.line++)) {
+      const line = this.line++;
+      start = end + 1;
+      // A repeat of the row before's cell, compared where it stands (nothing sliced out).
+      const previous = this.previous;
+      if (line > repeatsSkippedAfter && previous !== null && to - from === previous.length && (from < 0 || text.startsWith(previous, from))) continue;
+      if (!this.pass(from >= 0 ? text.slice(from, to) : '', line)) {
         this.stopped = true;
         return false;
       }
-      start = end + 1;
     }
     return true;
   }
@@ -197,7 +217,7 @@ export class ColumnScanner {
 
   private feedRows(rows: readonly CellLine[]): boolean {
     for (const row of rows) {
-      if (!this.onCell(row.cells[this.column] ?? '', row.line)) {
+      if (!this.pass(row.cells[this.column] ?? '', row.line)) {
         this.stopped = true;
         return false;
       }

@@ -21,7 +21,7 @@ import type { ComputeResult } from '../engine/types';
 import type { EvidenceEntry } from '../evidence/schema';
 import { classifyCheckup, classifyHistory } from '../glycaemia/classify';
 import { yearsBetween } from '../glycaemia/dates';
-import { CRITERIA_SETS, type CriteriaSet, type ExposureDefinition, type GlycaemicCategory } from '../glycaemia/exposure';
+import { CRITERIA_SETS, type CriteriaSet, type ExposureDefinition } from '../glycaemia/exposure';
 import { diabetesRangeNote, exposureStatus } from '../glycaemia/match';
 import { mergeSameDate } from '../glycaemia/parse';
 import type { Checkup } from '../glycaemia/schema';
@@ -118,7 +118,11 @@ export function ageAtLatest(rows: readonly CheckupRow[], latestDate: string): { 
 }
 
 function checkupOf(row: CheckupRow): Checkup {
-  return { date: row.date, ...(row.hba1c ? { hba1c: row.hba1c } : {}), ...(row.fpg ? { fpg: row.fpg } : {}) };
+  // Key by key (no spreads), the keys in the same order.
+  const checkup: { -readonly [K in keyof Checkup]: Checkup[K] } = { date: row.date };
+  if (row.hba1c) checkup.hba1c = row.hba1c;
+  if (row.fpg) checkup.fpg = row.fpg;
+  return checkup;
 }
 
 /**
@@ -188,7 +192,7 @@ export function evaluateWorker(group: WorkerRows, context: CheckupsContext): Wor
     return result(null, null, { category: null, yearlyResults: 0, from: null, to: null }, 'insufficient', ['No usable checkup for this worker.'], [], null);
   }
   const { age, note: ageNote } = ageAtLatest(kept, latestCheckup.date);
-  const latestCategory = latestCategoryOf(latestCheckup, context);
+  const latestCategory = classifyCheckup(latestCheckup, context.criteria).category;
   const match = exposureStatus(checkups, context.exposure, { shownCriteria: context.criteria });
   const run = { category: match.run.category, yearlyResults: match.run.yearlyResults, from: match.run.from, to: match.run.to };
   const latest = { date: latestCheckup.date, category: latestCategory };
@@ -210,41 +214,16 @@ export function evaluateWorker(group: WorkerRows, context: CheckupsContext): Wor
     return result(age, latest, run, status, reasons, match.exposure.warning && status === 'neither' ? [match.exposure.warning] : [], null);
   }
 
-  const built = cachedScenarioFor(age, sex, strata, context);
+  const { built, computed } = scenarioFiguresFor(age, sex, strata, context);
   if (!built.ok) {
     const why = built.issues.map((i) => i.message).join('; ');
     return result(age, latest, run, 'neither', [`The population table cannot place this worker: ${why}.`, ...reasons], [], null);
   }
-  const computed = computeScenario(built.value);
   if (!computed.ok) {
     return result(age, latest, run, 'neither', [`The figures cannot be computed: ${computed.issues.map((i) => i.message).join('; ')}.`, ...reasons], [], null);
   }
-  return result(age, latest, run, status, reasons, [...computed.value.warnings], computed.value);
-}
-
-/** Latest categories already found, per context, by the checkup's readings (the date does not change a category). */
-const LATEST_CATEGORIES = new WeakMap<CheckupsContext, Map<string, GlycaemicCategory | null>>();
-/** Most reading pairs kept per context before starting over. */
-const MAX_LATEST_CATEGORIES = 16_384;
-
-/**
- * The latest checkup's category under the chosen criteria set: lib/glycaemia `classifyCheckup`,
- * remembered per pair of readings (the category depends only on the values, units and criteria
- * set, not on the date or the worker).
- */
-function latestCategoryOf(checkup: Checkup, context: CheckupsContext): GlycaemicCategory | null {
-  let memo = LATEST_CATEGORIES.get(context);
-  if (!memo) {
-    memo = new Map();
-    LATEST_CATEGORIES.set(context, memo);
-  }
-  const key = `${checkup.hba1c ? `${checkup.hba1c.value} ${checkup.hba1c.unit}` : ''}|${checkup.fpg ? `${checkup.fpg.value} ${checkup.fpg.unit}` : ''}`;
-  const known = memo.get(key);
-  if (known !== undefined) return known;
-  const category = classifyCheckup(checkup, context.criteria).category;
-  if (memo.size >= MAX_LATEST_CATEGORIES) memo.clear();
-  memo.set(key, category);
-  return category;
+  // The figures and their warnings are shared, read-only, by every worker of the same scenario.
+  return result(age, latest, run, status, reasons, computed.value.warnings, computed.value);
 }
 
 /**
@@ -270,29 +249,73 @@ export function scenarioFor(
   });
 }
 
-/** Scenarios already built, per context: the same age, sex and table strata give the same scenario. */
-const SCENARIOS = new WeakMap<CheckupsContext, { readonly extra: readonly string[]; readonly byKey: Map<string, Result<Scenario>> }>();
-/** Most scenarios kept per context before starting over (ages × sexes × table strata: a few hundred in practice). */
-const MAX_SCENARIOS = 4096;
+/** A worker's scenario and its figures: the same age, sex and table strata give the same both. */
+export interface ScenarioFigures {
+  /** {@link scenarioFor}'s answer. */
+  readonly built: Result<Scenario>;
+  /**
+   * lib/engine `computeScenario(built.value)`, frozen (shared by every worker of this scenario);
+   * for a scenario that could not be built, `built` itself (its issues).
+   */
+  readonly computed: Result<ComputeResult>;
+}
 
 /**
- * {@link scenarioFor}, remembered per context: the table lookup and the scenario depend only on
- * the age, the sex and the strata the table names, so workers who share them share one (read-only)
- * scenario. computeScenario still runs for every worker.
+ * Scenarios and figures already worked out, per context: by age, then by sex, then (only when the
+ * table names strata beyond age and sex) by the values of those strata written as JSON.
  */
-function cachedScenarioFor(age: number | null, sex: 'female' | 'male' | null, strata: Readonly<Record<string, string>>, context: CheckupsContext): Result<Scenario> {
+const SCENARIOS = new WeakMap<
+  CheckupsContext,
+  { readonly extra: readonly string[]; readonly byAge: Map<number | null, Map<'female' | 'male' | null, Map<string, ScenarioFigures>>>; size: number }
+>();
+/** Most scenarios kept per context before starting over (ages × sexes × table strata: a few hundred in practice). */
+export const MAX_SCENARIOS = 4096;
+
+/** Freezes a plain value and everything in it, so that a shared answer cannot be changed through one worker's result. */
+function deepFreeze<T>(value: T): T {
+  if (typeof value !== 'object' || value === null || Object.isFrozen(value)) return value;
+  for (const key of Object.keys(value)) deepFreeze((value as Record<string, unknown>)[key]);
+  return Object.freeze(value);
+}
+
+/**
+ * {@link scenarioFor} and lib/engine `computeScenario` on it, remembered per context: the table
+ * lookup, the scenario and its figures depend only on the age, the sex and the strata the table
+ * names (computeScenario is pure), so workers who share them share one read-only answer instead
+ * of computing it again. Bounded: past {@link MAX_SCENARIOS} keys it forgets and starts over.
+ *
+ * @example
+ * scenarioFiguresFor(52, 'female', { site: 'North' }, context)
+ * //=> { built: { ok: true, value: { baseline: { risk: 0.015, … }, … } }, computed: { ok: true, value: { referenceRisk: 0.015, … } } }
+ */
+export function scenarioFiguresFor(age: number | null, sex: 'female' | 'male' | null, strata: Readonly<Record<string, string>>, context: CheckupsContext): ScenarioFigures {
   let cache = SCENARIOS.get(context);
   if (!cache) {
-    cache = { extra: tableNeeds(context.table).extra, byKey: new Map() };
+    cache = { extra: tableNeeds(context.table).extra, byAge: new Map(), size: 0 };
     SCENARIOS.set(context, cache);
   }
-  const key = JSON.stringify([age, sex, ...cache.extra.map((k) => strata[k] ?? null)]);
-  const known = cache.byKey.get(key);
+  const key = cache.extra.length === 0 ? '' : JSON.stringify(cache.extra.map((k) => strata[k] ?? null));
+  const known = cache.byAge.get(age)?.get(sex)?.get(key);
   if (known) return known;
   const built = scenarioFor(age, sex, strata, context);
-  if (cache.byKey.size >= MAX_SCENARIOS) cache.byKey.clear();
-  cache.byKey.set(key, built);
-  return built;
+  const figures: ScenarioFigures = { built, computed: built.ok ? deepFreeze(computeScenario(built.value)) : built };
+  if (cache.size >= MAX_SCENARIOS) {
+    cache.byAge.clear();
+    cache.size = 0;
+  }
+  let bySex = cache.byAge.get(age);
+  if (!bySex) {
+    bySex = new Map();
+    cache.byAge.set(age, bySex);
+  }
+  let byStrata = bySex.get(sex);
+  if (!byStrata) {
+    byStrata = new Map();
+    bySex.set(sex, byStrata);
+  }
+  byStrata.set(key, figures);
+  cache.size += 1;
+  return figures;
 }
 
 /** The scenario a worker's figures come from (for the screen's "open one worker"); null where the evidence does not apply. */

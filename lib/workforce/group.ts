@@ -39,6 +39,8 @@ export class WorkerGrouper {
 export class BloomFilter {
   private readonly bits: Uint32Array;
   private readonly size: number;
+  /** size − 1 when the size is at most 2^30 (then `x mod size` is `x & mask` for any uint32 x), else −1. */
+  private readonly mask: number;
   private h1 = 0;
   private h2 = 0;
 
@@ -47,6 +49,7 @@ export class BloomFilter {
     private readonly hashes = 7,
   ) {
     this.size = 2 ** bitsLog2;
+    this.mask = bitsLog2 <= 30 ? this.size - 1 : -1;
     this.bits = new Uint32Array(Math.ceil(this.size / 32));
   }
 
@@ -65,7 +68,9 @@ export class BloomFilter {
 
   /** Bit k of the text: (h1 + k·h2) mod 2^32, then mod the size (never negative, never past the end). */
   private position(k: number): number {
-    return ((this.h1 + Math.imul(k, this.h2)) >>> 0) % this.size;
+    const x = (this.h1 + Math.imul(k, this.h2)) >>> 0;
+    // The low bits by a mask (integer arithmetic) rather than a remainder of a number past 2^31 (floating point).
+    return this.mask >= 0 ? x & this.mask : x % this.size;
   }
 
   add(text: string): void {

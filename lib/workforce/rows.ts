@@ -224,24 +224,59 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
     return parsed.data;
   };
   /** One memo per test and unit, keyed by the cell's text. */
-  const readingMemos = new Map<string, TextMemo<Reading<Hba1cUnitName | FpgUnitName> | CellProblem>>();
+  const readingMemos: Record<'hba1c' | 'fpg', Partial<Record<Hba1cUnitName | FpgUnitName, TextMemo<Reading<Hba1cUnitName | FpgUnitName> | CellProblem>>>> = { hba1c: {}, fpg: {} };
   const readingOf = (test: 'hba1c' | 'fpg', cell: CellValue | undefined, unit: Hba1cUnitName | FpgUnitName) => {
     if (typeof cell !== 'string') return checkReading(test, cell, unit);
-    const name = `${test} ${unit}`;
-    let memo = readingMemos.get(name);
+    let memo = readingMemos[test][unit];
     if (!memo) {
       memo = new TextMemo((text) => checkReading(test, text, unit));
-      readingMemos.set(name, memo);
+      readingMemos[test][unit] = memo;
     }
     return memo.get(cell);
   };
   const numberOf = (cell: CellValue | undefined): number | CellProblem => (typeof cell === 'string' ? numbers.get(cell) : readNumberCell(cell, decimalComma));
 
-  function read(cells: readonly CellValue[], line: number): RowOutcome {
+  // The row being read: its line and its problems so far (one list, reused: a good row allocates none).
+  let line = 0;
+  const problems: RowProblem[] = [];
+  const problem = (column: ColumnAssignment | undefined, code: string, message: string) => {
+    problems.push({ line, column: column?.header ?? null, code, message });
+  };
+
+  /** A test's value cell (and unit cell) → the reading; undefined when empty or with a problem (added). */
+  function reading(cells: readonly CellValue[], test: 'hba1c' | 'fpg', column: ColumnAssignment | undefined, unitColumn: ColumnAssignment | undefined): Reading<Hba1cUnitName | FpgUnitName> | undefined {
+    if (!column) return undefined;
+    const cell = cells[column.index];
+    if (cellText(cell) === '') return undefined;
+    let unit = column.unit;
+    if (unit === null) {
+      const unitCellValue = cells[unitColumn?.index ?? -1];
+      unit = typeof unitCellValue === 'string' ? units[test].get(unitCellValue) : unitCell(unitCellValue, test);
+      if (unit === null) {
+        // A value that is not a number is reported as such before its missing unit.
+        const value = numberOf(cell);
+        if (typeof value !== 'number') {
+          problem(column, value.code, value.message);
+          return undefined;
+        }
+        const allowed = test === 'hba1c' ? '% or mmol/mol' : 'mmol/L or mg/dL';
+        const text = cellText(unitCellValue);
+        problem(unitColumn ?? column, 'unit-unknown', text === '' ? `the unit is empty; write ${allowed}` : `"${text.slice(0, 20)}" is not a unit of this test; write ${allowed}`);
+        return undefined;
+      }
+    }
+    const checked = readingOf(test, cell, unit);
+    if ('code' in checked) {
+      problem(column, checked.code, checked.message);
+      return undefined;
+    }
+    return checked;
+  }
+
+  function read(cells: readonly CellValue[], rowLine: number): RowOutcome {
     if (isBlankRow(cells)) return { ok: 'blank' };
-    const problems: RowProblem[] = [];
-    const problem = (column: ColumnAssignment | undefined, code: string, message: string) =>
-      problems.push({ line, column: column?.header ?? null, code, message });
+    line = rowLine;
+    problems.length = 0;
 
     const worker = cellText(cells[m.worker?.index ?? -1]);
     if (worker !== lastWorker) {
@@ -256,40 +291,8 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
     if (typeof checkedDate === 'string') date = checkedDate;
     else problem(m.date, checkedDate.code, checkedDate.message);
 
-    const reading = <U extends string>(
-      test: 'hba1c' | 'fpg',
-      column: ColumnAssignment | undefined,
-      unitColumn: ColumnAssignment | undefined,
-    ): Reading<U> | undefined => {
-      if (!column) return undefined;
-      const cell = cells[column.index];
-      if (cellText(cell) === '') return undefined;
-      let unit = column.unit;
-      if (unit === null) {
-        const unitCellValue = cells[unitColumn?.index ?? -1];
-        unit = typeof unitCellValue === 'string' ? units[test].get(unitCellValue) : unitCell(unitCellValue, test);
-        if (unit === null) {
-          // A value that is not a number is reported as such before its missing unit.
-          const value = numberOf(cell);
-          if (typeof value !== 'number') {
-            problem(column, value.code, value.message);
-            return undefined;
-          }
-          const allowed = test === 'hba1c' ? '% or mmol/mol' : 'mmol/L or mg/dL';
-          const text = cellText(unitCellValue);
-          problem(unitColumn ?? column, 'unit-unknown', text === '' ? `the unit is empty; write ${allowed}` : `"${text.slice(0, 20)}" is not a unit of this test; write ${allowed}`);
-          return undefined;
-        }
-      }
-      const checked = readingOf(test, cell, unit);
-      if ('code' in checked) {
-        problem(column, checked.code, checked.message);
-        return undefined;
-      }
-      return checked as Reading<U>;
-    };
-    const hba1c = reading<Hba1cReading['unit']>('hba1c', m.hba1c, m.hba1cUnit);
-    const fpg = reading<FpgReading['unit']>('fpg', m.fpg, m.fpgUnit);
+    const hba1c = reading(cells, 'hba1c', m.hba1c, m.hba1cUnit) as Reading<Hba1cReading['unit']> | undefined;
+    const fpg = reading(cells, 'fpg', m.fpg, m.fpgUnit) as Reading<FpgReading['unit']> | undefined;
     if (hba1c === undefined && fpg === undefined && problems.length === 0) {
       problem(m.hba1c ?? m.fpg, 'required', 'the row has neither an HbA1c nor a fasting glucose');
     }
@@ -324,7 +327,7 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
         else sex = value;
       }
     }
-    if (problems.length > 0) return { ok: false, problems };
+    if (problems.length > 0) return { ok: false, problems: problems.slice() };
 
     const strata: Record<string, string> = {};
     for (const column of m.strata) {
@@ -332,7 +335,7 @@ export function createRowReader(mapping: ColumnMapping, options: RowOptions): Ro
       if (value !== '' && column.stratum !== null) strata[column.stratum] = value.slice(0, 100);
     }
     // Built key by key (no spreads): one object a row, keys in the order the contract lists them.
-    const row = { line, worker, date } as { -readonly [K in keyof CheckupRow]: CheckupRow[K] };
+    const row = { line: rowLine, worker, date } as { -readonly [K in keyof CheckupRow]: CheckupRow[K] };
     if (hba1c) row.hba1c = hba1c;
     if (fpg) row.fpg = fpg;
     if (age !== undefined) row.age = age;

@@ -37,8 +37,11 @@ export function ageBand(age: number | null): string {
   if (age < 20) return 'under 20';
   if (age >= 70) return '70 and over';
   const from = Math.floor(age / 10) * 10;
-  return `${from}–${from + 9}`;
+  return DECADE_BANDS[from] ?? `${from}–${from + 9}`;
 }
+
+/** "20–29" … "60–69", written once (a summary counts every worker in one). */
+const DECADE_BANDS: Readonly<Record<number, string>> = Object.fromEntries([20, 30, 40, 50, 60].map((from) => [from, `${from}–${from + 9}`]));
 
 function zeroCounts(): Record<WorkerStatus, number> {
   return Object.fromEntries(WORKER_STATUSES.map((s) => [s, 0])) as Record<WorkerStatus, number>;
@@ -54,7 +57,8 @@ export class SummaryAccumulator {
   private workers = 0;
   private readonly byStatus = zeroCounts();
   private readonly byLatestCategory: Record<string, number> = {};
-  private readonly byStratum: Record<string, Record<string, Record<WorkerStatus, number>>> = {};
+  /** Stratum → value → counts by status (maps: any text is a value, "__proto__" too). */
+  private readonly byStratum = new Map<string, Map<string, Record<WorkerStatus, number>>>();
   private exposedWorkers = 0;
   private e1 = 0;
   private e0 = 0;
@@ -67,12 +71,10 @@ export class SummaryAccumulator {
     this.byStatus[result.status]++;
     const category = categoryKey(result.latest?.category, result.latest !== null);
     this.byLatestCategory[category] = (this.byLatestCategory[category] ?? 0) + 1;
-    const strata: [string, string][] = [...Object.entries(result.strata), ['age band', ageBand(result.age)], ['sex', result.sex ?? 'unknown']];
-    for (const [name, value] of strata) {
-      const byValue = (this.byStratum[name] ??= {});
-      const counts = (byValue[value] ??= zeroCounts());
-      counts[result.status]++;
-    }
+    const { strata, status } = result;
+    for (const name in strata) if (Object.hasOwn(strata, name)) this.countIn(name, strata[name] as string, status);
+    this.countIn('age band', ageBand(result.age), status);
+    this.countIn('sex', result.sex ?? 'unknown', status);
     if (result.status === 'exposed' && result.exposedRisk && result.referenceRisk !== null) {
       this.exposedWorkers++;
       this.e1 += result.exposedRisk.estimate;
@@ -83,6 +85,21 @@ export class SummaryAccumulator {
     if (this.horizonYears === null && result.horizonYears !== null) this.horizonYears = result.horizonYears;
   }
 
+  /** One more worker of this status in a stratum's value. */
+  private countIn(name: string, value: string, status: WorkerStatus): void {
+    let byValue = this.byStratum.get(name);
+    if (byValue === undefined) {
+      byValue = new Map();
+      this.byStratum.set(name, byValue);
+    }
+    let counts = byValue.get(value);
+    if (counts === undefined) {
+      counts = zeroCounts();
+      byValue.set(value, counts);
+    }
+    counts[status]++;
+  }
+
   finish(rows: RowCounts): WorkforceSummary {
     const expectedEvents: ExpectedEvents = {
       exposedWorkers: this.exposedWorkers,
@@ -91,11 +108,13 @@ export class SummaryAccumulator {
       excess: { estimate: this.e1 - this.e0, lower: this.excessLower, upper: this.excessUpper },
       attributableFractionAmongExposed: this.e1 > 0 ? (this.e1 - this.e0) / this.e1 : null,
     };
-    const byStratum: Record<string, Record<string, StatusCounts>> = {};
-    for (const name of Object.keys(this.byStratum).sort()) {
-      const values = this.byStratum[name] ?? {};
-      byStratum[name] = Object.fromEntries(Object.keys(values).sort().map((v) => [v, { ...(values[v] ?? zeroCounts()) }]));
-    }
+    // Names and values in sorted order, each an own property (Object.fromEntries: "__proto__" too).
+    const byStratum: Record<string, Record<string, StatusCounts>> = Object.fromEntries(
+      [...this.byStratum.keys()].sort().map((name) => {
+        const values = this.byStratum.get(name) ?? new Map<string, Record<WorkerStatus, number>>();
+        return [name, Object.fromEntries([...values.keys()].sort().map((v) => [v, { ...(values.get(v) ?? zeroCounts()) }]))];
+      }),
+    );
     return {
       workers: this.workers,
       rows,

@@ -238,6 +238,71 @@ export function workerRecord(result: WorkerResult): Record<string, unknown> {
   };
 }
 
+/** A piece of a line: text, or text already encoded as UTF-8 (remembered, shared). */
+export type LinePiece = string | Uint8Array;
+
+/** The figures of a worker without them (not exposed or comparison), as they appear in the line. */
+const NO_FIGURES_JSON = Buffer.from('"referenceRisk":null,"exposedRisk":null,"riskDifference":null,"numberNeeded":null,"horizonYears":null');
+
+/** The figures' JSON text (without braces, UTF-8), per shared, frozen `exposedRisk` object, with the figures it was written from. */
+const FIGURES_JSON = new WeakMap<object, { readonly of: Pick<WorkerResult, 'referenceRisk' | 'riskDifference' | 'numberNeeded' | 'horizonYears'>; readonly bytes: Uint8Array }>();
+/** The JSON text (UTF-8) of a shared, frozen warnings list. */
+const WARNINGS_JSON = new WeakMap<readonly unknown[], Uint8Array>();
+
+/**
+ * The worker's NDJSON line in pieces, which joined are exactly `JSON.stringify(workerRecord(result))`,
+ * byte for byte (see {@link workerJsonLine}). lib/workforce gives every worker of one scenario
+ * (age, sex, table strata) the same frozen figures and warnings (`scenarioFiguresFor`), so their
+ * JSON — most of a line, and most of the cost of writing it (thirty-odd doubles) — is written and
+ * encoded once per figures object and copied into the output as bytes. Anything else (figures
+ * not frozen, a key missing) is one piece written by `JSON.stringify` afresh.
+ */
+export function workerJsonPieces(result: WorkerResult): LinePiece[] {
+  const { referenceRisk, exposedRisk, riskDifference, numberNeeded, horizonYears, strata, warnings } = result;
+  if (strata === undefined || warnings === undefined || referenceRisk === undefined || riskDifference === undefined || numberNeeded === undefined || horizonYears === undefined) {
+    return [JSON.stringify(workerRecord(result))];
+  }
+  let figures: Uint8Array;
+  if (exposedRisk === null && referenceRisk === null && riskDifference === null && numberNeeded === null && horizonYears === null) figures = NO_FIGURES_JSON;
+  else if (exposedRisk !== null && typeof exposedRisk === 'object' && Object.isFrozen(exposedRisk) && Object.isFrozen(riskDifference) && Object.isFrozen(numberNeeded)) {
+    const known = FIGURES_JSON.get(exposedRisk);
+    if (known && known.of.referenceRisk === referenceRisk && known.of.riskDifference === riskDifference && known.of.numberNeeded === numberNeeded && known.of.horizonYears === horizonYears) {
+      figures = known.bytes;
+    } else {
+      figures = Buffer.from(JSON.stringify({ referenceRisk, exposedRisk, riskDifference, numberNeeded, horizonYears }).slice(1, -1));
+      FIGURES_JSON.set(exposedRisk, { of: { referenceRisk, riskDifference, numberNeeded, horizonYears }, bytes: figures });
+    }
+  } else return [JSON.stringify(workerRecord(result))];
+  let warningsJson: LinePiece;
+  if (Object.isFrozen(warnings)) {
+    let known = WARNINGS_JSON.get(warnings);
+    if (known === undefined) {
+      known = Buffer.from(JSON.stringify(warnings));
+      WARNINGS_JSON.set(warnings, known);
+    }
+    warningsJson = known;
+  } else warningsJson = JSON.stringify(warnings);
+  const head = JSON.stringify({
+    worker: result.worker,
+    age: result.age,
+    sex: result.sex,
+    checkups: result.checkups,
+    latest: result.latest,
+    run: result.run,
+    status: result.status,
+    reasons: result.reasons,
+  });
+  if (head.length < 3) return [JSON.stringify(workerRecord(result))];
+  return [head.slice(0, -1), ',', figures, ',"strata":', JSON.stringify(strata), ',"warnings":', warningsJson, '}'];
+}
+
+/** The worker's NDJSON line: {@link workerJsonPieces} joined; exactly `JSON.stringify(workerRecord(result))`. */
+export function workerJsonLine(result: WorkerResult): string {
+  return workerJsonPieces(result)
+    .map((piece) => (typeof piece === 'string' ? piece : Buffer.from(piece.buffer, piece.byteOffset, piece.byteLength).toString('utf8')))
+    .join('');
+}
+
 /**
  * The command's CSV columns (`--format csv`), documented in the README: one column per key of the
  * NDJSON line, snake_case, reasons and warnings apart, the number needed as a number and as text,
@@ -326,13 +391,16 @@ async function sniffKind(file: string): Promise<Kind | string> {
 }
 
 /**
- * Chunk size for the streamed pass: small, so the rows and lines of one chunk die young (they are
- * collected cheaply instead of being promoted to the old generation). Measured: 64 KiB used about
- * 15% less CPU than 1 MiB on 100,000 workers.
+ * Chunk size for reading a file, every pass: small, so the rows and lines of one chunk die young
+ * (they are collected cheaply instead of being promoted to the old generation), and each chunk's
+ * text stays a regular heap string (V8 puts strings over 128 KiB in its large-object space, one
+ * mapping each). Measured: 64 KiB used about 15% less CPU than 1 MiB on 100,000 workers for the
+ * second pass; decoding the 19.5 MB file as UTF-8 took about 80 ms of CPU in 64 KiB chunks against
+ * 160–330 ms in chunks of 16 KiB, 128 KiB, 256 KiB or 1 MiB.
  */
 const STREAM_CHUNK_BYTES = 1 << 16;
 
-async function* fileChunks(file: string, chunkBytes = 1 << 20): AsyncGenerator<string> {
+async function* fileChunks(file: string, chunkBytes = STREAM_CHUNK_BYTES): AsyncGenerator<string> {
   const stream = createReadStream(file, { encoding: 'utf8', highWaterMark: chunkBytes });
   for await (const chunk of stream) yield chunk as string;
 }
@@ -343,27 +411,50 @@ const OUTPUT_BLOCK_BYTES = 1 << 16;
 /**
  * Writes lines with backpressure; stops quietly when the reader has gone. Each line is encoded
  * straight into a block of bytes (no joined string to copy again: the output is several times
- * the input's size, so every copy of it shows in the time); full blocks wait for {@link flush}.
+ * the input's size, so every copy of it shows), a line given in pieces piece by piece, bytes
+ * copied as they are; full blocks wait for {@link flush}.
  */
-class LineWriter {
+export class LineWriter {
   private blocks: Buffer[] = [];
   private block = Buffer.allocUnsafe(OUTPUT_BLOCK_BYTES);
   private used = 0;
   private size = 0;
   open = true;
-  constructor(private readonly io: CommandIo) {}
-  push(line: string): void {
-    if (!this.open) return;
-    const most = line.length * 3 + 1; // UTF-8 takes at most 3 bytes per UTF-16 unit
+  constructor(private readonly io: Pick<CommandIo, 'stdout'>) {}
+  /** Makes room for a line of at most `most` bytes (its newline included) in the current block. */
+  private room(most: number): void {
     if (this.used + most > this.block.length) {
       if (this.used > 0) this.blocks.push(this.block.subarray(0, this.used));
       this.block = Buffer.allocUnsafe(Math.max(OUTPUT_BLOCK_BYTES, most));
       this.used = 0;
     }
+  }
+  push(line: string): void {
+    if (!this.open) return;
+    this.room(line.length * 3 + 1); // UTF-8 takes at most 3 bytes per UTF-16 unit
     const written = this.block.write(line, this.used) + 1;
     this.block[this.used + written - 1] = 0x0a;
     this.used += written;
     this.size += written;
+  }
+  /** One line given in pieces (text, or UTF-8 bytes). */
+  pushPieces(pieces: readonly LinePiece[]): void {
+    if (!this.open) return;
+    let most = 1;
+    for (const piece of pieces) most += typeof piece === 'string' ? piece.length * 3 : piece.byteLength;
+    this.room(most);
+    const start = this.used;
+    let at = start;
+    for (const piece of pieces) {
+      if (typeof piece === 'string') at += this.block.write(piece, at);
+      else {
+        this.block.set(piece, at);
+        at += piece.byteLength;
+      }
+    }
+    this.block[at] = 0x0a;
+    this.used = at + 1;
+    this.size += this.used - start;
   }
   /** Bytes waiting to be written. */
   get pending(): number {
@@ -403,6 +494,9 @@ function strataNames(header: HeaderInfo | null): string[] {
   return header ? header.proposal.mapping.columns.filter((c) => c.field === 'stratum' && c.stratum !== null).map((c) => c.stratum as string) : [];
 }
 
+/** Text the first pass's header probe reads at a time (about 400 rows of a usual file: enough to settle the header). */
+const PROBE_SLICE_CHARS = 1 << 14;
+
 /** The worker column of a CSV/TSV file and where its data rows start, found as the checkup reader finds them. */
 interface WorkerColumn {
   readonly delimiter: Delimiter;
@@ -423,19 +517,26 @@ async function scanWorkerIds(file: string, options: { today: string; overrides: 
   for await (const chunk of fileChunks(file)) {
     if (scanner === null) {
       buffered += chunk;
-      const step = probe.push(chunk);
-      if (isRefusal(step)) return false;
+      // The probe only needs the header and the rows that settle it: fed in slices until it has them,
+      // it does not read the rest of a large first chunk.
+      for (let at = 0; at < chunk.length && probe.header === null; at += PROBE_SLICE_CHARS) {
+        const step = probe.push(chunk.slice(at, at + PROBE_SLICE_CHARS));
+        if (isRefusal(step)) return false;
+      }
       const header = probe.header;
       if (header === null) continue;
       const worker = header.proposal.mapping.columns.find((c) => c.field === 'worker');
       if (!worker) return false;
       column = { delimiter: header.delimiter, index: worker.index, headerLine: header.headerLine };
       const headerLine = column.headerLine;
-      scanner = new ColumnScanner(column.delimiter, column.index, (cell, line) => {
+      // Only where the worker id changes matters (GroupingCheck and RunCounter ignore a repeat), so
+      // a row repeating the row before's cell is skipped without being cut out.
+      const onCell = (cell: string, line: number) => {
         if (line <= headerLine) return true;
         const id = cell.trim();
         return id === '' || add(id);
-      });
+      };
+      scanner = new ColumnScanner(column.delimiter, column.index, onCell, 1, { repeatsSkippedAfter: headerLine });
       if (!scanner.push(buffered.charCodeAt(0) === 0xfeff ? buffered.slice(1) : buffered)) return false;
       buffered = '';
       continue;
@@ -503,7 +604,7 @@ export async function checkups(io: CommandIo): Promise<number> {
         headerWritten = true;
       }
       out.push(csvLine(result, strata));
-    } else out.push(JSON.stringify(workerRecord(result)));
+    } else out.pushPieces(workerJsonPieces(result));
   };
   const onHeader = (header: HeaderInfo | null) => {
     strata = strataNames(header);
@@ -629,7 +730,7 @@ async function streamGrouped(
       hooks.onWorker(result);
     }
   };
-  for await (const chunk of fileChunks(file, STREAM_CHUNK_BYTES)) {
+  for await (const chunk of fileChunks(file)) {
     const step = reader.push(chunk);
     if (isRefusal(step)) return { ok: false, refusal: step };
     if (step.problems.length > 0) {

@@ -210,6 +210,20 @@ describe('summary', () => {
     expect(s.caution).toMatch(/not diagnoses, and not a prediction for any one worker/);
   });
 
+  it('a stratum value that names an object property ("__proto__", "constructor") is counted like any other, and nothing else changes', () => {
+    const ctx = context();
+    const results = ['__proto__', 'constructor', '__proto__', 'North'].map((site, i) =>
+      evaluateWorker(worker(`P${i}`, [['2022-03-01', 5.0], ['2023-03-01', 5.1], ['2024-03-01', 5.2]], { strata: { site } }), ctx),
+    );
+    const s = summariseWorkforce(results, { read: 12, used: 12, skipped: 0 });
+    // Three yearly HbA1c below 5.7% (ADA normal): every worker is in the comparison group.
+    const comparison = (n: number) => ({ exposed: 0, comparison: n, neither: 0, 'diabetes-range': 0, insufficient: 0 });
+    expect(Object.keys(s.byStratum.site ?? {})).toEqual(['North', '__proto__', 'constructor']);
+    expect(JSON.parse(JSON.stringify(s.byStratum.site))).toEqual(JSON.parse('{"North":' + JSON.stringify(comparison(1)) + ',"__proto__":' + JSON.stringify(comparison(2)) + ',"constructor":' + JSON.stringify(comparison(1)) + '}'));
+    expect(Object.prototype).not.toHaveProperty('comparison');
+    expect(({} as Record<string, unknown>).comparison).toBeUndefined();
+  });
+
   it('no exposed worker: expected events 0 and no attributable fraction', () => {
     const s = summariseWorkforce([], { read: 0, used: 0, skipped: 0 });
     expect(s.expectedEvents).toEqual({ exposedWorkers: 0, atOwnRisk: 0, atComparisonRisk: 0, excess: { estimate: 0, lower: 0, upper: 0 }, attributableFractionAmongExposed: null });

@@ -4,9 +4,9 @@ import { computeScenario } from '@/lib/engine/compute';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import { parseScenario } from '@/lib/scenario/parse';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
-import { daysInMonth, parseIsoDate } from '@/lib/glycaemia/dates';
+import { addMonths, compareWithMonthsLater, daysInMonth, dayNumber, formatIsoDate, inDateOrder, parseIsoDate, sortByDate } from '@/lib/glycaemia/dates';
 import { THRESHOLD_DECIMALS, withUnit, type ValueUnit } from '@/lib/glycaemia/format';
-import { createRowReader, evaluateWorker, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
+import { ageBand, createRowReader, evaluateWorker, MAX_SCENARIOS, MEMO_LIMIT, prepareCheckups, proposeMapping, scenarioFiguresFor, scenarioFor, TextMemo, type CheckupRow, type CheckupsContext } from '@/lib/workforce';
 
 // The fast paths (answers remembered per text, per age and sex, per pair of readings) against the
 // plain ones (each check afresh; the scenario validated by parseScenario, then computeScenario).
@@ -105,6 +105,61 @@ describe('evaluateWorker with remembered scenarios and categories gives the plai
   });
 });
 
+describe('scenarioFiguresFor: computeScenario remembered per age, sex and table strata', () => {
+  const ageArb = fc.oneof(fc.integer({ min: 0, max: 120 }), fc.constantFrom(-1, 121, 200));
+  const sexArb = fc.constantFrom('female' as const, 'male' as const, null);
+  const isDeeplyFrozen = (value: unknown): boolean =>
+    typeof value !== 'object' || value === null || (Object.isFrozen(value) && Object.values(value).every(isDeeplyFrozen));
+
+  it('property: the remembered figures equal computeScenario on the scenario built afresh, are the same object on every call, and are frozen', () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(ageArb, sexArb, fc.constantFrom('North', 'South')), { minLength: 1, maxLength: 20 }), (people) => {
+        const shared = context();
+        for (const [age, sex, site] of people) {
+          const first = scenarioFiguresFor(age, sex, { site }, shared);
+          // Another site: not a stratum of the table, so the same scenario (and the same object).
+          expect(scenarioFiguresFor(age, sex, { site: site === 'North' ? 'South' : 'North' }, shared)).toBe(first);
+          const built = scenarioFor(age, sex, { site }, context());
+          expect(first.built).toEqual(built);
+          if (!built.ok) {
+            expect(first.computed).toEqual(built);
+            continue;
+          }
+          expect(first.computed).toEqual(computeScenario(built.value));
+          expect(isDeeplyFrozen(first.computed)).toBe(true);
+        }
+      }),
+      { numRuns: 100 },
+    );
+  });
+
+  it(`keeps at most ${MAX_SCENARIOS} scenarios per run, then starts over with the same answers`, () => {
+    const shared = context();
+    const first = scenarioFiguresFor(52, 'female', {}, shared);
+    expect(first.computed.ok).toBe(true);
+    // Ages past 120 are distinct keys that the table cannot place: MAX_SCENARIOS of them fill the memory.
+    for (let i = 0; i < MAX_SCENARIOS; i += 1) scenarioFiguresFor(1000 + i, 'male', {}, shared);
+    const again = scenarioFiguresFor(52, 'female', {}, shared);
+    expect(again).not.toBe(first);
+    expect(again).toEqual(first);
+  });
+});
+
+describe('ageBand writes each decade\'s band once, with the same words', () => {
+  it('property: equals the band written out for any age', () => {
+    const written = (age: number | null) => {
+      if (age === null) return 'unknown';
+      if (age < 20) return 'under 20';
+      if (age >= 70) return '70 and over';
+      const from = Math.floor(age / 10) * 10;
+      return `${from}–${from + 9}`;
+    };
+    fc.assert(fc.property(fc.oneof(fc.integer({ min: -5, max: 130 }), fc.double(), fc.constant(null)), (age) => {
+        expect(ageBand(age)).toBe(written(age));
+      }), { numRuns: 1000 });
+  });
+});
+
 describe('lib/glycaemia dates and values read without patterns, with the same answers', () => {
   // The forms before they were rewritten for speed, as references.
   const isoByPattern = (text: string) => {
@@ -129,6 +184,54 @@ describe('lib/glycaemia dates and values read without patterns, with the same an
     fc.assert(fc.property(dateLike, (text) => {
         expect(parseIsoDate(text)).toEqual(isoByPattern(text));
       }), { numRuns: 2000 });
+  });
+
+  it('property: formatIsoDate and daysInMonth equal the forms they replaced', () => {
+    const padded = (year: number, month: number, day: number) => `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+    const daysByList = (year: number, month: number) => (month === 2 ? ((year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28) : [4, 6, 9, 11].includes(month) ? 30 : 31);
+    const part = fc.oneof(fc.integer({ min: -20, max: 12_000 }), fc.constantFrom(0, -0, 9, 10, 99, 100, 999, 1000, 9999, 10_000, 1.5, Number.NaN, Infinity));
+    fc.assert(fc.property(part, part, part, (year, month, day) => {
+        expect(formatIsoDate({ year, month, day })).toBe(padded(year, month, day));
+        expect(daysInMonth(year, month)).toBe(daysByList(year, month));
+      }), { numRuns: 3000 });
+  });
+
+  it('property: addMonths, dayNumber and compareWithMonthsLater equal the forms they replaced (the later date written out and compared as text)', () => {
+    const addByText = (iso: string, months: number) => {
+      const date = isoByPattern(iso);
+      if (!date) return iso;
+      const index = date.year * 12 + (date.month - 1) + months;
+      const year = Math.floor(index / 12);
+      const month = (index % 12) + 1;
+      const day = Math.min(date.day, daysInMonth(year, month));
+      return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+    };
+    const dayByDate = (iso: string) => {
+      const date = isoByPattern(iso);
+      return date ? Date.UTC(date.year, date.month - 1, date.day) / 86_400_000 : Number.NaN;
+    };
+    const year = fc.oneof(fc.integer({ min: 1990, max: 2030 }), fc.integer({ min: 0, max: 9999 }), fc.constantFrom(0, 999, 1000, 9998, 9999));
+    const realDate = fc
+      .tuple(year, fc.integer({ min: 1, max: 12 }), fc.integer({ min: 1, max: 31 }))
+      .map(([y, m, d]) => `${String(y).padStart(4, '0')}-${String(m).padStart(2, '0')}-${String(Math.min(d, daysInMonth(y, m))).padStart(2, '0')}`);
+    const text = fc.oneof(realDate, realDate, dateLike);
+    const months = fc.oneof(fc.constantFrom(6, 12, 18), fc.integer({ min: -40, max: 40 }), fc.integer({ min: -200_000, max: 200_000 }));
+    fc.assert(fc.property(text, text, months, (from, to, m) => {
+        const later = addByText(from, m);
+        expect(addMonths(from, m)).toBe(later);
+        expect(compareWithMonthsLater(to, from, m)).toBe(to < later ? -1 : to > later ? 1 : 0);
+        expect(dayNumber(from)).toBe(dayByDate(from));
+      }), { numRuns: 5000 });
+  });
+
+  it('property: inDateOrder and sortByDate equal a stable sort by date, and inDateOrder gives back a list already in order as it is', () => {
+    const item = fc.record({ date: fc.constantFrom('2021-03-01', '2021-03-02', '2022-01-01', '2022-01-01', '2023-12-31'), id: fc.nat() });
+    fc.assert(fc.property(fc.array(item, { maxLength: 8 }), (items) => {
+        const sorted = [...items].sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
+        expect(inDateOrder(items)).toEqual(sorted);
+        expect(inDateOrder(sorted)).toBe(sorted);
+        expect(sortByDate([...items])).toEqual(sorted);
+      }), { numRuns: 1000 });
   });
 
   it('property: withUnit equals the form it replaced', () => {
