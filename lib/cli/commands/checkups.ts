@@ -217,8 +217,8 @@ export function problemLine(problem: RowProblem): string {
   return escapeControl(`${file}row ${problem.line}${column}: ${problem.message}`);
 }
 
-/** The worker's line as the contract names its keys (no row problems: those went to stderr). */
-export function workerRecord(result: WorkerResult): Record<string, unknown> {
+/** The line's first keys, up to the reasons (the figures, strata and warnings follow). */
+function workerHead(result: WorkerResult): Record<string, unknown> {
   return {
     worker: result.worker,
     age: result.age,
@@ -228,6 +228,13 @@ export function workerRecord(result: WorkerResult): Record<string, unknown> {
     run: result.run,
     status: result.status,
     reasons: result.reasons,
+  };
+}
+
+/** The worker's line as the contract names its keys (no row problems: those went to stderr). */
+export function workerRecord(result: WorkerResult): Record<string, unknown> {
+  return {
+    ...workerHead(result),
     referenceRisk: result.referenceRisk,
     exposedRisk: result.exposedRisk,
     riskDifference: result.riskDifference,
@@ -282,16 +289,7 @@ export function workerJsonPieces(result: WorkerResult): LinePiece[] {
     }
     warningsJson = known;
   } else warningsJson = JSON.stringify(warnings);
-  const head = JSON.stringify({
-    worker: result.worker,
-    age: result.age,
-    sex: result.sex,
-    checkups: result.checkups,
-    latest: result.latest,
-    run: result.run,
-    status: result.status,
-    reasons: result.reasons,
-  });
+  const head = JSON.stringify(workerHead(result));
   if (head.length < 3) return [JSON.stringify(workerRecord(result))];
   return [head.slice(0, -1), ',', figures, ',"strata":', JSON.stringify(strata), ',"warnings":', warningsJson, '}'];
 }
