@@ -178,6 +178,12 @@ export function batchCountsText(counts: BatchCounts): string {
   return counts.skipped === 0 ? `${head}.` : `${head}; ${plural(counts.skipped, 'worker gets', 'workers get')} none (listed below).`;
 }
 
+/** The batch controls' words with their counts (numbers with thousands separators, as the screen writes them). */
+export const BATCH_BUTTON_TEXT = {
+  prepare: (workers: number): string => (workers === 1 ? 'Prepare the handout' : `Prepare ${workers.toLocaleString('en')} handouts`),
+  print: (pages: number): string => `Print or save as PDF (${pages === 1 ? '1 page' : `${pages.toLocaleString('en')} pages`})`,
+} as const;
+
 /**
  * Every chosen worker's handout, in file order; `histories` holds each worker's checkups (by
  * worker id) when they could be read again from the file.

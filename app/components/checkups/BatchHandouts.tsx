@@ -19,6 +19,7 @@ import { useEffect, useMemo, useRef, useState } from 'react';
 import { createPortal } from 'react-dom';
 import { useHydrated } from '@/app/components/useHydrated';
 import {
+  BATCH_BUTTON_TEXT,
   BATCH_CHOICE_LABELS,
   BATCH_CHOICES,
   BATCH_MESSAGES,
@@ -230,7 +231,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
       </div>
       <div className="checkups__actions">
         <button type="button" onClick={prepare} disabled={!context || chosen.length === 0 || (job !== null && !done)}>
-          Prepare {chosen.length === 1 ? 'the handout' : `${chosen.length.toLocaleString('en')} handouts`}
+          {BATCH_BUTTON_TEXT.prepare(chosen.length)}
         </button>
         {job && !done ? (
           <button type="button" onClick={() => setJob(null)}>
@@ -239,7 +240,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
         ) : null}
         {done && job.pages > 0 ? (
           <button type="button" onClick={() => window.print()} data-testid="batch-print-button">
-            Print or save as PDF ({job.pages === 1 ? '1 page' : `${job.pages.toLocaleString('en')} pages`})
+            {BATCH_BUTTON_TEXT.print(job.pages)}
           </button>
         ) : null}
         {done ? (

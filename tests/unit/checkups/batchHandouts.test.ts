@@ -7,7 +7,7 @@
  * rest with /handout's own sheet.
  */
 import { describe, expect, it } from 'vitest';
-import { BATCH_MESSAGES, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection } from '@/lib/checkups/batchHandouts';
+import { BATCH_BUTTON_TEXT, BATCH_MESSAGES, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection } from '@/lib/checkups/batchHandouts';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { Checkup } from '@/lib/glycaemia/schema';
@@ -239,5 +239,14 @@ describe('batchHandouts and its counts (hand-worked)', () => {
   it('words for nothing and for one', () => {
     expect(batchCountsText({ chosen: 0, sheets: 0, skipped: 0, byReason: {} })).toBe('No worker chosen yet.');
     expect(batchCountsText({ chosen: 1, sheets: 1, skipped: 0, byReason: {} })).toBe('1 worker chosen: 1 handout (one page each).');
+  });
+});
+
+describe('BATCH_BUTTON_TEXT', () => {
+  it('words the prepare and print buttons with their counts (the screen\'s own wording, common practice for thousands separators)', () => {
+    expect(BATCH_BUTTON_TEXT.prepare(1)).toBe('Prepare the handout');
+    expect(BATCH_BUTTON_TEXT.prepare(1500)).toBe('Prepare 1,500 handouts');
+    expect(BATCH_BUTTON_TEXT.print(1)).toBe('Print or save as PDF (1 page)');
+    expect(BATCH_BUTTON_TEXT.print(500)).toBe('Print or save as PDF (500 pages)');
   });
 });
