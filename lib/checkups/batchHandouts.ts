@@ -54,6 +54,30 @@ export function batchSelection(results: readonly Pick<WorkerResult, 'status'>[],
   return indices;
 }
 
+/**
+ * How many workers each choice takes, in one pass over the results (the screen writes the count
+ * beside each choice): every exposed worker, every worker, and the ticked positions that are
+ * workers of this run. Equal, for every choice, to `batchSelection(results, choice, selected).length`.
+ * @example
+ * batchChoiceCounts([exposed, insufficient, exposed], new Set([2, 1, 7])) //=> { exposed: 2, all: 3, selected: 2 }
+ */
+export function batchChoiceCounts(results: readonly Pick<WorkerResult, 'status'>[], selected: ReadonlySet<number>): Readonly<Record<BatchChoice, number>> {
+  let exposed = 0;
+  for (const r of results) if (r.status === 'exposed') exposed++;
+  let ticked = 0;
+  for (const i of selected) if (Number.isInteger(i) && i >= 0 && i < results.length) ticked++;
+  return { exposed, all: results.length, selected: ticked };
+}
+
+/**
+ * A choice as the screen lists it, with how many workers it takes.
+ * @example
+ * batchChoiceLabel('all', 12000) //=> "All workers (12,000)"
+ */
+export function batchChoiceLabel(choice: BatchChoice, workers: number): string {
+  return `${BATCH_CHOICE_LABELS[choice]} (${workers.toLocaleString('en')})`;
+}
+
 export interface BatchOptions {
   readonly paper: PaperSize;
   /** The date printed on every sheet ("Prepared on …"). */
@@ -218,4 +242,23 @@ export const BATCH_MESSAGES = {
   idLine: (worker: string) => `Worker ${worker}`,
   /** A worker whose history /handout's checks refused: their handout prints without it. */
   leftOff: (worker: string, why: string) => `${worker}: the handout prints without their own results. ${why}`,
+  /** The heading over the list of {@link BATCH_MESSAGES.leftOff} lines. */
+  leftOffHeading: (workers: number) => `Handouts without the worker\u2019s own results (${workers.toLocaleString('en')})`,
+  /** The heading over the list of workers who get no sheet, each with the reason. */
+  skippedHeading: (workers: number) => `Workers without a handout (${workers.toLocaleString('en')})`,
 } as const;
+
+/**
+ * The batch's one-line status (read out to a screen reader when it changes): what is ready once
+ * the sheets are made; before any is asked for, that none is chosen when none is; nothing while
+ * they are being made (the progress bar speaks then).
+ * @example
+ * batchStatusText({ chosen: 3, counts: null, working: false }) //=> ""
+ * batchStatusText({ chosen: 0, counts: null, working: false }) //=> "No worker chosen yet."
+ * batchStatusText({ chosen: 2, counts: { chosen: 2, sheets: 2, skipped: 0, byReason: {} }, working: false }) //=> "Ready. 2 workers chosen: 2 handouts (one page each)."
+ */
+export function batchStatusText(state: { readonly chosen: number; readonly counts: BatchCounts | null; readonly working: boolean }): string {
+  if (state.counts) return `Ready. ${batchCountsText(state.counts)}`;
+  if (state.working || state.chosen > 0) return '';
+  return batchCountsText({ chosen: 0, sheets: 0, skipped: 0, byReason: {} });
+}

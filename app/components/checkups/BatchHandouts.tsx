@@ -20,13 +20,14 @@ import { createPortal } from 'react-dom';
 import { useHydrated } from '@/app/components/useHydrated';
 import {
   BATCH_BUTTON_TEXT,
-  BATCH_CHOICE_LABELS,
   BATCH_CHOICES,
   BATCH_MESSAGES,
+  batchChoiceCounts,
+  batchChoiceLabel,
   batchCounts,
-  batchCountsText,
   batchHandout,
   batchSelection,
+  batchStatusText,
   type BatchChoice,
   type BatchHandout,
 } from '@/lib/checkups/batchHandouts';
@@ -80,10 +81,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
   const jobCounter = useRef(0);
 
   const chosen = useMemo(() => batchSelection(results, choice, ticked), [results, choice, ticked]);
-  const choiceCounts = useMemo(
-    () => Object.fromEntries(BATCH_CHOICES.map((c) => [c, c === choice ? chosen.length : batchSelection(results, c, ticked).length])) as Record<BatchChoice, number>,
-    [results, choice, chosen, ticked],
-  );
+  const choiceCounts = useMemo(() => batchChoiceCounts(results, ticked), [results, ticked]);
 
   // Prepared sheets belong to the choice they were made for: any change clears them.
   const [madeFor, setMadeFor] = useState({ chosen, paper, showIds, readHistories });
@@ -206,9 +204,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
           {BATCH_CHOICES.map((c) => (
             <label key={c} className="checkups__choice">
               <input type="radio" name="batch-choice" value={c} checked={choice === c} onChange={() => setChoice(c)} />
-              <span>
-                {BATCH_CHOICE_LABELS[c]} ({choiceCounts[c].toLocaleString('en')})
-              </span>
+              <span>{batchChoiceLabel(c, choiceCounts[c])}</span>
             </label>
           ))}
         </fieldset>
@@ -267,11 +263,11 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
         </p>
       ) : null}
       <p role="status" data-testid="batch-status">
-        {counts ? `Ready. ${batchCountsText(counts)}` : job ? '' : chosen.length === 0 ? batchCountsText({ chosen: 0, sheets: 0, skipped: 0, byReason: {} }) : ''}
+        {batchStatusText({ chosen: chosen.length, counts, working: job !== null && !done })}
       </p>
       {leftOff.length > 0 ? (
         <div data-testid="batch-left-off">
-          <h3 id="batch-left-off-heading">Handouts without the worker&rsquo;s own results ({leftOff.length.toLocaleString('en')})</h3>
+          <h3 id="batch-left-off-heading">{BATCH_MESSAGES.leftOffHeading(leftOff.length)}</h3>
           <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby="batch-left-off-heading">
             <ul>
               {leftOff.map((h) => (
@@ -283,7 +279,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
       ) : null}
       {skipped.length > 0 ? (
         <div data-testid="batch-skipped">
-          <h3 id="batch-skipped-heading">Workers without a handout ({skipped.length.toLocaleString('en')})</h3>
+          <h3 id="batch-skipped-heading">{BATCH_MESSAGES.skippedHeading(skipped.length)}</h3>
           <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby="batch-skipped-heading">
             <ul>
               {skipped.map((h) => (

@@ -7,14 +7,15 @@
  * rest with /handout's own sheet.
  */
 import { describe, expect, it } from 'vitest';
-import { BATCH_BUTTON_TEXT, BATCH_MESSAGES, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection } from '@/lib/checkups/batchHandouts';
+import fc from 'fast-check';
+import { BATCH_BUTTON_TEXT, BATCH_CHOICES, BATCH_MESSAGES, batchChoiceCounts, batchChoiceLabel, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection, batchStatusText } from '@/lib/checkups/batchHandouts';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { Checkup } from '@/lib/glycaemia/schema';
 import { DEFAULT_BLOCKS, handoutSheet, ILLUSTRATIVE_BAND_HEADING, type HandoutSheet } from '@/lib/handout';
 import type { Scenario } from '@/lib/scenario/schema';
 import { DEMO_HEART_FAILURE_10Y } from '@/lib/tables/demo';
-import { prepareCheckups, type CheckupsContext, type WorkerResult } from '@/lib/workforce';
+import { prepareCheckups, WORKER_STATUSES, type CheckupsContext, type WorkerResult } from '@/lib/workforce';
 import { C003, W001, W001_CHECKUPS, W002 } from './fixtures';
 
 const DATE = new Date(2025, 4, 12, 12); // 12 May 2025, local noon
@@ -62,6 +63,45 @@ describe('batchSelection (hand-worked)', () => {
   it('selected: the ticked ones in file order, whatever the order of ticking; a stale index (9) is ignored', () => {
     expect(batchSelection(results, 'selected', new Set([3, 1, 9]))).toEqual([1, 3]);
     expect(batchSelection(results, 'selected', new Set())).toEqual([]);
+  });
+});
+
+describe('batchChoiceCounts: every choice counted in one pass', () => {
+  it('hand-worked: two exposed of four; ticked 3, 1 and a stale 9 count two', () => {
+    expect(batchChoiceCounts([W001, W002, C003, M064], new Set([3, 1, 9]))).toEqual({ exposed: 2, all: 4, selected: 2 });
+    expect(batchChoiceCounts([], new Set([0]))).toEqual({ exposed: 0, all: 0, selected: 0 });
+  });
+
+  it('property: each count is the length of that choice’s selection (batchSelection, tested above by hand)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom(...WORKER_STATUSES), { maxLength: 60 }), fc.array(fc.integer({ min: -3, max: 70 }), { maxLength: 30 }), (list, ticks) => {
+        const results = list.map((status) => ({ status }));
+        const ticked = new Set(ticks);
+        const counts = batchChoiceCounts(results, ticked);
+        for (const choice of BATCH_CHOICES) expect(counts[choice]).toBe(batchSelection(results, choice, ticked).length);
+      }),
+    );
+  });
+
+  it('labels each choice with its count, thousands separated (common practice)', () => {
+    expect(batchChoiceLabel('exposed', 1)).toBe('All workers who fit the exposure (1)');
+    expect(batchChoiceLabel('all', 12000)).toBe('All workers (12,000)');
+    expect(batchChoiceLabel('selected', 0)).toBe('The workers ticked in the worklist (0)');
+  });
+});
+
+describe('batchStatusText and the list headings', () => {
+  it('says nothing while working or when workers are chosen, that none is chosen when none is, and what is ready when done', () => {
+    expect(batchStatusText({ chosen: 3, counts: null, working: false })).toBe('');
+    expect(batchStatusText({ chosen: 3, counts: null, working: true })).toBe('');
+    expect(batchStatusText({ chosen: 0, counts: null, working: false })).toBe('No worker chosen yet.');
+    expect(batchStatusText({ chosen: 2, counts: { chosen: 2, sheets: 1, skipped: 1, byReason: { 'not-applicable': 1 } }, working: false })).toBe(
+      'Ready. 2 workers chosen: 1 handout (one page each); 1 worker gets none (listed below).',
+    );
+  });
+  it('heads the two lists with their counts', () => {
+    expect(BATCH_MESSAGES.leftOffHeading(1200)).toBe('Handouts without the worker\u2019s own results (1,200)');
+    expect(BATCH_MESSAGES.skippedHeading(3)).toBe('Workers without a handout (3)');
   });
 });
 
