@@ -72,8 +72,18 @@ export function sharedConfig(port: number) {
   };
 }
 
+const shared = sharedConfig(E2E_PORT);
+
 export default defineConfig({
-  ...sharedConfig(E2E_PORT),
+  ...shared,
+  // The service worker precaches the whole app (about 2.4 MB, 65 files) in every new browser
+  // context, i.e. in every test: on the 2-core CI machine that cost each test 1.5–2 s of CPU
+  // shared with the other worker. Tests that are not about it run without it (the app works
+  // online without one, as in a browser that has none); the specs that are about it — offline
+  // use, the update offer, what the service worker fetches, the policy it runs under — say
+  // `test.use({ serviceWorkers: 'allow' })` (offline, privacy, headers), and so does the static
+  // folder's suite.
+  use: { ...shared.use, serviceWorkers: 'block' },
   testDir: 'tests/e2e',
   outputDir: 'test-results/e2e',
   webServer: {

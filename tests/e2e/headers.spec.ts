@@ -8,6 +8,8 @@ import { createHash } from 'node:crypto';
 import { expect, test, type Page } from '@playwright/test';
 
 test.describe.configure({ timeout: 180_000 }); // generous: a busy machine hydrates slowly
+// About the service worker (or run with it, as a clinician's browser does): playwright.config.ts blocks it elsewhere.
+test.use({ serviceWorkers: 'allow' });
 
 const SECURITY_HEADERS = ['content-security-policy', 'referrer-policy', 'x-content-type-options', 'x-frame-options', 'permissions-policy', 'cross-origin-opener-policy'];
 

@@ -19,6 +19,8 @@ import { chooseCsv, fillEvidence, GOOD_CSV, goodTable, openLibrary, savedTables,
 
 // Installing the service worker downloads every page and chunk once: allow for a busy machine.
 test.describe.configure({ timeout: 180_000 });
+// About the service worker (or run with it, as a clinician's browser does): playwright.config.ts blocks it elsewhere.
+test.use({ serviceWorkers: 'allow' });
 
 const OUT = path.join('test-results', 'offline');
 mkdirSync(OUT, { recursive: true });

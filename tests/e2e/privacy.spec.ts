@@ -5,6 +5,9 @@
 import { expect, test } from '@playwright/test';
 import { field, fillTypedScenario } from './support';
 
+// With the service worker, as a clinician's browser runs (its precache is part of the session): playwright.config.ts blocks it elsewhere.
+test.use({ serviceWorkers: 'allow' });
+
 test('no request leaves the origin during a full session, and typing sends nothing', async ({ page, context, baseURL }) => {
   const origin = new URL(baseURL ?? 'http://127.0.0.1').origin;
   const requests: { url: string; method: string; phase: string }[] = [];
