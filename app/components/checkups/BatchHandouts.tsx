@@ -28,13 +28,14 @@ import {
   batchHandout,
   batchSelection,
   batchStatusText,
+  batchTally,
   type BatchChoice,
-  type BatchHandout,
+  type BatchTally,
 } from '@/lib/checkups/batchHandouts';
 import type { Checkup } from '@/lib/glycaemia/schema';
 import { PAPER_SIZE_KEYS, PAPER_SIZES, pageRule, type PaperSize } from '@/lib/handout/paper';
 import type { CheckupsContext, WorkerResult } from '@/lib/workforce';
-import { createPageDrawer, nextTask, type SheetHandout } from './batchPages';
+import { createPageDrawer, nextTask } from './batchPages';
 import type { ReadHistories } from './workerHistories';
 import '@/app/components/handout/handout.css';
 
@@ -57,8 +58,8 @@ interface Job {
   readonly pages: number;
   /** Said when the file could not be read again (the sheets have no own results). */
   readonly readProblem: string | null;
-  /** Every chosen worker's handout, once done. */
-  readonly handouts: readonly BatchHandout[];
+  /** What is kept of every chosen worker's handout (not the sheet: its page is made), once done. */
+  readonly handouts: readonly BatchTally[];
 }
 
 export interface BatchHandoutsProps {
@@ -128,7 +129,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
       }
       update({ stage: 'preparing' });
       await nextTask();
-      const list: BatchHandout[] = [];
+      const list: BatchTally[] = [];
       let pages = 0;
       let sliceStart = performance.now();
       for (const index of chosen) {
@@ -136,7 +137,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
         if (!result) continue;
         // Without a file every sheet goes without own results; with one, a worker the pass did not find has none either.
         const handout = batchHandout(result, index, context, options, histories ? (histories.get(result.worker) ?? []) : undefined);
-        list.push(handout);
+        list.push(batchTally(handout));
         if (handout.kind === 'sheet') {
           if (!drawer.has(handout)) {
             await drawer.draw(handout);
@@ -186,8 +187,8 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
 
   const done = job?.stage === 'done';
   const counts = done ? batchCounts(job.handouts) : null;
-  const skipped = done ? job.handouts.filter((h): h is Extract<BatchHandout, { kind: 'skipped' }> => h.kind === 'skipped') : [];
-  const leftOff = done ? job.handouts.filter((h): h is SheetHandout => h.kind === 'sheet' && h.historyLeftOff !== undefined) : [];
+  const skipped = done ? job.handouts.filter((h): h is Extract<BatchTally, { kind: 'skipped' }> => h.kind === 'skipped') : [];
+  const leftOff = done ? job.handouts.filter((h): h is Extract<BatchTally, { kind: 'sheet' }> => h.kind === 'sheet' && h.historyLeftOff !== undefined) : [];
 
   return (
     <section aria-labelledby="batch-heading" className="checkups__section" data-testid="batch">

@@ -8,7 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { BATCH_BUTTON_TEXT, BATCH_CHOICES, BATCH_MESSAGES, batchChoiceCounts, batchChoiceLabel, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection, batchStatusText } from '@/lib/checkups/batchHandouts';
+import { BATCH_BUTTON_TEXT, BATCH_CHOICES, BATCH_MESSAGES, batchChoiceCounts, batchChoiceLabel, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection, batchStatusText, batchTally } from '@/lib/checkups/batchHandouts';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { Checkup } from '@/lib/glycaemia/schema';
@@ -267,6 +267,15 @@ describe('batchHandouts and its counts (hand-worked)', () => {
     const counts = batchCounts(batch);
     expect(counts).toEqual({ chosen: 4, sheets: 2, skipped: 2, byReason: { 'not-applicable': 2 } });
     expect(batchCountsText(counts)).toBe('4 workers chosen: 2 handouts (one page each); 2 workers get none (listed below).');
+  });
+
+  it('a tally keeps what the screen counts and lists, not the sheet; the counts of the tallies are the counts of the handouts', () => {
+    const batch = batchHandouts(results, batchSelection(results, 'all', new Set()), CONTEXT, { paper: 'a4', date: DATE, showIds: true });
+    const tallies = batch.map(batchTally);
+    expect(tallies[0]).toEqual({ kind: 'sheet', index: 0, worker: 'W001', historyLeftOff: undefined });
+    expect(Object.keys(tallies[0] ?? {})).not.toContain('sheet');
+    expect(tallies[1]).toBe(batch[1]); // a skipped worker's record is small already
+    expect(batchCounts(tallies)).toEqual({ chosen: 4, sheets: 2, skipped: 2, byReason: { 'not-applicable': 2 } });
   });
 
   it('500 exposed workers give 500 sheets', () => {
