@@ -38,6 +38,7 @@ import { DEMO_HEART_FAILURE_10Y } from '../lib/tables/demo';
 import { CAUTION_TEXT } from '../lib/wording';
 import { isRefusal, prepareCheckups, runCheckups, type WorkerResult } from '../lib/workforce';
 import { runWhenAlone, type Figure } from './figure';
+import { traceTasks } from './trace';
 import { writeWorkforce } from './checkups.bench';
 import { sparePort, startServer, stopServer } from './page.bench';
 
@@ -47,6 +48,12 @@ const CHROMIUM_ARGS = ['--no-sandbox', '--headless', '--disable-gpu', '--disable
 /** 1,250 workers: 500 of them (2 in 5) fit the exposure (bench/checkups.bench.ts `writeWorkforce`). */
 const WORKERS = 1250;
 const SHEETS = 500;
+/**
+ * BENCH_TRACE=<file>: a Chromium trace of Prepare → ready is written there, and each main-thread
+ * task's thread time is read from it (bench/trace.ts): what the page itself ran, whatever the load.
+ */
+const TRACE = process.env.BENCH_TRACE;
+const TRACE_CATEGORIES = ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'blink.user_timing', 'v8.execute'];
 
 function build(): void {
   if (process.env.BENCH_REUSE_BUILD === '1' && existsSync(join(ROOT, '.next', 'BUILD_ID'))) return;
@@ -81,10 +88,10 @@ async function expectedSheets(file: string): Promise<Extract<BatchHandout, { kin
 const ARM = `(() => {
   window.__long = [];
   new PerformanceObserver((list) => { for (const e of list.getEntries()) window.__long.push({ start: e.startTime, duration: e.duration }); }).observe({ type: 'longtask' });
-  document.addEventListener('click', (event) => { window.__clickAt = event.timeStamp; }, { capture: true, once: true });
+  document.addEventListener('click', (event) => { window.__clickAt = event.timeStamp; performance.mark('bench:prepare'); }, { capture: true, once: true });
   window.__readyAt = new Promise((resolve) => {
     const observer = new MutationObserver(() => {
-      if (document.querySelector('[data-testid="batch-print"][data-ready="true"]')) { observer.disconnect(); resolve(performance.now()); }
+      if (document.querySelector('[data-testid="batch-print"][data-ready="true"]')) { observer.disconnect(); performance.mark('bench:ready'); resolve(performance.now()); }
     });
     observer.observe(document.body, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-ready'] });
   });
@@ -111,6 +118,7 @@ export async function measure(baseUrl: string, file: string, keep: string | unde
     await page.getByLabel(/^All workers who fit the exposure/).check();
     await page.getByLabel('Print each worker\u2019s id in small print', { exact: true }).check();
     await page.evaluate(ARM);
+    if (TRACE) await browser.startTracing(page, { categories: TRACE_CATEGORIES });
     await page.getByRole('button', { name: `Prepare ${SHEETS} handouts` }).click();
     // Polled with the page's own querySelector, once a second: Playwright's selector engine walks
     // the whole document in script, which over 500 pages is itself a long task.
@@ -121,7 +129,23 @@ export async function measure(baseUrl: string, file: string, keep: string | unde
     await page.waitForTimeout(300);
     const long = ((await page.evaluate('window.__long')) as LongTask[]).filter((l) => l.start + l.duration >= clickAt && l.start <= readyAt + 300);
     const longest = Math.max(0, ...long.map((l) => l.duration));
+    for (const l of long) if (l.duration > 50) process.stderr.write(`long task (wall) while preparing, at +${Math.round(l.start - clickAt)} ms: ${Math.round(l.duration)} ms\n`);
     const status = await page.getByTestId('batch-status').textContent();
+    const traced: Figure[] = [];
+    if (TRACE) {
+      // The window ends when the pages are ready (marked by the page itself): what the bench does
+      // afterwards (Playwright's selector engine walking 500 pages) is not the screen's work.
+      const buffer = await browser.stopTracing();
+      writeFileSync(TRACE, buffer);
+      const summary = traceTasks(JSON.parse(buffer.toString('utf8')) as Parameters<typeof traceTasks>[0], 'bench:prepare', 'bench:ready', 30);
+      for (const t of summary.long) process.stderr.write(`task over 30 ms of thread time while preparing, at +${t.at} ms: thread ${t.thread} ms, wall ${t.wall} ms: ${t.inside.join(', ')}\n`);
+      traced.push(
+        { name: 'trace: longest main-thread task while preparing (thread time)', value: summary.longestThread, unit: 'ms', target: 50, better: 'lower' },
+        { name: 'trace: the same, wall time', value: summary.longestWall, unit: 'ms', better: 'lower' },
+        { name: 'trace: main-thread tasks over 50 ms of thread time while preparing', value: summary.long.filter((t) => t.thread > 50).length, unit: 'tasks', target: 0, better: 'lower' },
+        { name: 'trace: garbage collection on the main thread while preparing', value: summary.gc, unit: 'ms', better: 'lower' },
+      );
+    }
 
     const t1 = Date.now();
     const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
@@ -156,6 +180,7 @@ export async function measure(baseUrl: string, file: string, keep: string | unde
       { name: 'batch handouts: main-thread tasks over 50 ms while preparing', value: long.filter((l) => l.duration > 50).length, unit: 'tasks', target: 0, better: 'lower' },
       { name: `batch handouts: print to PDF (page.pdf, A4), ${SHEETS} pages checked with pdftotext (${distinct} distinct sheets drawn; screen said "${status}")`, value: printMs, unit: 'ms', better: 'lower' },
       { name: 'batch handouts: PDF size', value: Math.round(pdf.length / 1024), unit: 'KiB', better: 'lower' },
+      ...traced,
     ];
   } finally {
     await browser.close();
