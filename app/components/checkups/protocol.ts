@@ -85,7 +85,7 @@ export type FromWorker =
   /** Sent just before `done`: the filters' choices, worked out here rather than on the page. */
   | { readonly type: 'choices'; readonly choices: FilterChoices }
   | { readonly type: 'done'; readonly outcome: CheckupsOutcome }
-  /** After `done`: each column's sort ranks and its rows in order both ways (lib/checkups/worklistOrder.ts), so a sort on the page computes nothing. */
+  /** Just before `done`: each column's sort ranks and its rows in order both ways (lib/checkups/worklistOrder.ts), so a sort on the page computes nothing. */
   | { readonly type: 'ranks'; readonly ranks: Readonly<Partial<Record<WorklistColumn, Int32Array>>>; readonly orders: WorklistOrders }
   | { readonly type: 'session-saved'; readonly id: string; readonly messages: readonly string[] }
   | { readonly type: 'session-opened'; readonly setup: SessionSetup; readonly kind: FileKindName; readonly mapping: ColumnMapping | null }
