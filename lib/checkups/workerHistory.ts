@@ -8,13 +8,11 @@
  */
 import { mergeSameDate } from '../glycaemia/parse';
 import type { Checkup } from '../glycaemia/schema';
+import { checkupOf } from '../workforce/evaluate';
 import { FhirBulkReader } from '../workforce/fhirBulk';
 import { createCheckupTextReader, isRefusal, readCheckupTable, type CheckupReaderOptions, type ReadRefusal } from '../workforce/reader';
 import type { CellValue, CheckupRow } from '../workforce/types';
 
-function checkupOf(row: CheckupRow): Checkup {
-  return { date: row.date, ...(row.hba1c ? { hba1c: row.hba1c } : {}), ...(row.fpg ? { fpg: row.fpg } : {}) };
-}
 
 /**
  * A worker's rows → their checkups, date order, as the engine evaluated them.

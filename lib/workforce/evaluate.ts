@@ -117,7 +117,12 @@ export function ageAtLatest(rows: readonly CheckupRow[], latestDate: string): { 
   return { age: null, note: null };
 }
 
-function checkupOf(row: CheckupRow): Checkup {
+/**
+ * A checkup row's test results as a glucose-history checkup (lib/glycaemia `Checkup`): the date
+ * and whichever of HbA1c and fasting glucose the row gives. Used here and by the history read
+ * again for one worker (lib/checkups/workerHistory.ts), so both see the same checkups.
+ */
+export function checkupOf(row: CheckupRow): Checkup {
   // Key by key (no spreads), the keys in the same order.
   const checkup: { -readonly [K in keyof Checkup]: Checkup[K] } = { date: row.date };
   if (row.hba1c) checkup.hba1c = row.hba1c;
