@@ -112,6 +112,14 @@ export interface HandoutSheet {
     readonly printableHeightMm: number;
     /** Said when the preview is taller than one page. */
     readonly overflowWarning: string;
+    /**
+     * Said before printing, whatever the preview measures, when the sheet is known not to fit one
+     * page: the large layout with the person's own results. Printed from Chromium (2 December
+     * 2026) it ran onto a second page on US Letter at 100 and 1,000 people and on A4 at 1,000,
+     * and fit A4 at 100 with 2 mm to spare; the preview's measure missed it, because text set for
+     * print wraps a little differently from the screen's in the narrow column beside the pictures.
+     */
+    readonly fitWarning: string | undefined;
   };
   readonly layout: HandoutLayout;
   /**
@@ -236,6 +244,10 @@ export function handoutSheet(scenario: Scenario, template: HandoutSheetTemplate,
       pageRule: pageRule(paper),
       printableHeightMm: size.heightMm - 2 * PAGE_MARGIN_MM,
       overflowWarning: `The handout may run onto a second ${size.label} page: shorten the opening words or the next steps.`,
+      fitWarning:
+        layout === 'large' && own.length > 0
+          ? `With the person\u2019s own results, the large layout may run onto a second ${size.label} page: for one page, choose the standard layout or leave their results off.`
+          : undefined,
     },
     layout,
     listsBesidePictures: layout === 'large' && text.denominator === 1000,

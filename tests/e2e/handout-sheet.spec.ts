@@ -138,6 +138,13 @@ test('the person’s own results, handed over from the consultation screen, are 
   expect(text).toContain('Your own results');
   expect(text).toContain('Your HbA1c was between 5.8% and 6.2% at five yearly checkups');
   expect(text).not.toMatch(/illustrative figures/i);
+  // The large layout with own results is known to need a second page at times (lib/handout/sheet.ts): said before printing.
+  const fit = page.getByText('With the person\u2019s own results, the large layout may run onto a second A4 page', { exact: false });
+  await expect(fit).toHaveCount(0);
+  await page.getByLabel('Large pictures (at least 6 cm wide)', { exact: true }).check();
+  await expect(fit).toBeVisible();
+  await page.getByLabel('Standard: pictures beside the words', { exact: true }).check();
+  await expect(fit).toHaveCount(0);
   // Left off when the clinician unticks it.
   await page.getByLabel('Print them on the handout', { exact: true }).uncheck();
   await expect(page.getByTestId('handout-own-results')).toHaveCount(0);

@@ -198,7 +198,7 @@ export function HandoutScreen({ query }: HandoutScreenProps) {
           </button>
         </p>
         <p className="block-editor__warn" aria-live="polite">
-          {overflows ? s.paper.overflowWarning : ''}
+          {s.paper.fitWarning ?? (overflows ? s.paper.overflowWarning : '')}
         </p>
 
         <fieldset>

@@ -147,6 +147,17 @@ describe('handoutSheet: options (issue 12.16)', () => {
     expect(sheetOf(TYPED, { paper: 'letter' }).paper.overflowWarning).toContain('second US Letter page');
   });
 
+  it('warns before printing that the large layout with the person’s own results may need a second page (measured in print, lib/handout/sheet.ts), and only then', () => {
+    const history = { criteria: 'ADA' as const, checkups: [{ date: '2024-03-01', hba1c: { value: 6.1, unit: '%' as const } }] }; // invented
+    expect(sheetOf(TYPED, { layout: 'large', history, paper: 'letter' }).paper.fitWarning).toBe(
+      'With the person\u2019s own results, the large layout may run onto a second US Letter page: for one page, choose the standard layout or leave their results off.',
+    );
+    expect(sheetOf(TYPED, { layout: 'large', history }).paper.fitWarning).toContain('second A4 page');
+    expect(sheetOf(TYPED, { layout: 'standard', history }).paper.fitWarning).toBeUndefined();
+    expect(sheetOf(TYPED, { layout: 'large' }).paper.fitWarning).toBeUndefined();
+    expect(sheetOf(TYPED, { layout: 'large', history, audience: 'group' }).paper.fitWarning).toBeUndefined(); // a group's sheet has no own results
+  });
+
   it('carries the layout choice; the large pictures are at least 6 cm wide', () => {
     expect(sheetOf(TYPED).layout).toBe('standard');
     expect(sheetOf(TYPED, { layout: 'large' }).layout).toBe('large');
