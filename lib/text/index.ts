@@ -7,3 +7,4 @@ export * from './decimal';
 export * from './ages';
 export * from './case';
 export * from './headers';
+export * from './significant';

@@ -10,6 +10,7 @@
  */
 import { checkupDateSchema, fpgReadingSchema, hba1cReadingSchema, type FpgReading, type Hba1cReading, type HistoryOptions } from '../glycaemia/schema';
 import { parseIsoDate } from '../glycaemia/dates';
+import { atFileDigits } from '../text/significant';
 import { headerUnit, normaliseHeader } from './columns';
 import type { CellValue, CheckupRow, ColumnAssignment, ColumnMapping, FpgUnitName, Hba1cUnitName, RowProblem } from './types';
 
@@ -64,13 +65,17 @@ export function cellText(cell: CellValue | undefined): string {
   return String(cell);
 }
 
-/** A number cell: a number, or why it is not one. */
+/**
+ * A number cell: a number, or why it is not one. Read at 15 significant digits (lib/text
+ * `atFileDigits`): a value a formula wrote with binary noise (6.1000000000000005) is the value
+ * the spreadsheet shows (6.1); a number with 15 digits or fewer is read exactly as written.
+ */
 export function readNumberCell(cell: CellValue | undefined, decimalComma: boolean): number | { readonly code: string; readonly message: string } {
-  if (typeof cell === 'number') return Number.isFinite(cell) ? cell : { code: 'not-a-number', message: 'is not a number' };
+  if (typeof cell === 'number') return Number.isFinite(cell) ? atFileDigits(cell) : { code: 'not-a-number', message: 'is not a number' };
   const text = cellText(cell);
-  if (PLAIN_NUMBER.test(text)) return Number(text);
+  if (PLAIN_NUMBER.test(text)) return atFileDigits(Number(text));
   if (DECIMAL_COMMA.test(text)) {
-    if (decimalComma) return Number(text.replace(',', '.'));
+    if (decimalComma) return atFileDigits(Number(text.replace(',', '.')));
     return { code: 'decimal-comma', message: `"${text}" has a comma inside a number, but this file writes decimals with a point; write ${text.replace(',', '.')}` };
   }
   if (/^[+-]?[\d.,]+\s*%$/.test(text)) return { code: 'percent', message: `"${text}" has a % sign; put the unit in the header or the unit column and write the plain number` };

@@ -186,4 +186,23 @@ describe('reading a workbook\'s cells', () => {
     expect(read.step.rows).toEqual([{ line: 3, worker: 'W1', date: '2024-03-01', hba1c: { value: 6.1, unit: '%' }, strata: {} }]);
     expect(read.step.problems).toEqual([expect.objectContaining({ line: 4, column: 'Date', code: 'invalid-date' })]);
   });
+
+  it('reads a value a formula wrote with binary noise as the spreadsheet shows it (15 significant digits, lib/text/significant.ts)', () => {
+    // 0.7 + 0.1 is 0.7999999999999999 and 5.6999999999999993 is the double a formula can give for 5.7 (ECMA-262 Number::toString).
+    const table = [['Worker', 'Date', 'HbA1c (%)', 'Fasting glucose (mmol/L)'], ['W1', new Date('2024-03-01T00:00:00Z'), 5.6999999999999993, 5 + (0.7 + 0.1)]];
+    const read = readCheckupTable(table, { today: TODAY });
+    if (isRefusal(read)) throw new Error(read.message);
+    expect(read.step.rows.map((r) => [r.hba1c?.value, r.fpg?.value])).toEqual([[5.7, 5.8]]);
+  });
+});
+
+describe('numbers written with binary noise in a text file', () => {
+  it('are read at 15 significant digits, so 5.6999999999999993% is the 5.7% the file meant', () => {
+    const { rows, problems } = readAll([`${HEADER}\nW1,2024-03-01,5.6999999999999993,6.1000000000000005,50,female,North\nW2,2024-03-01,6.25,5.55,50,male,North\n`]);
+    expect(problems).toEqual([]);
+    expect(rows.map((r) => [r.worker, r.hba1c?.value, r.fpg?.value])).toEqual([
+      ['W1', 5.7, 6.1],
+      ['W2', 6.25, 5.55], // 15 digits or fewer: exactly as written
+    ]);
+  });
 });
