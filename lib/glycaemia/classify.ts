@@ -45,6 +45,14 @@ export interface TestClassification {
   readonly unit: ValueUnit;
   /** The result as entered. */
   readonly entered: { readonly value: number; readonly unit: ValueUnit };
+  /**
+   * The result as entered, as text in its own unit: as written when it has no more decimals than
+   * {@link CONVERTED_DECIMALS} (one past what labs print), else rounded to those decimals — with
+   * more when fewer would put it on the other side of a cut-point in that unit. A value a
+   * spreadsheet computed (5.55555555555556 mmol/L from 100 mg/dL) reads "5.56 mmol/L", never
+   * fourteen decimals, and 6.4999 % stays below 6.5 %.
+   */
+  readonly enteredText: string;
   /** True when the result was entered in the other unit and converted to the body's. */
   readonly converted: boolean;
   /**
@@ -138,12 +146,30 @@ export function cutPointsIn(test: TestName, thresholds: TestThresholds<ValueUnit
   };
 }
 
-/** A converted value rounded for display without crossing a threshold (at most 6 decimals). */
-function sidePreservingText(value: number, thresholds: TestThresholds<ValueUnit>): string {
-  const category = categoryFor(value, thresholds);
-  let decimals = CONVERTED_DECIMALS[thresholds.unit];
-  while (decimals < 6 && categoryFor(roundTo(value, decimals), thresholds) !== category) decimals += 1;
-  return withUnit(roundTo(value, decimals), thresholds.unit);
+/**
+ * A value rounded for display to `decimals` (default {@link CONVERTED_DECIMALS}), with more, up to
+ * 6, when fewer would put it on the other side of a cut-point of its unit.
+ * @example
+ * sidePreservingText(6.4999, CRITERIA.ADA.hba1c, 1) //=> "6.4999%" (6.5% would read as the diabetes range)
+ * sidePreservingText(6.04, CRITERIA.ADA.hba1c, 1) //=> "6.0%"
+ */
+export function sidePreservingText(value: number, cuts: Pick<CutPoints, 'unit' | 'prediabetesFrom' | 'diabetesRangeFrom'>, decimals: number = CONVERTED_DECIMALS[cuts.unit]): string {
+  const category = categoryFor(value, cuts);
+  let shown = decimals;
+  while (shown < 6 && categoryFor(roundTo(value, shown), cuts) !== category) shown += 1;
+  return withUnit(roundTo(value, shown), cuts.unit);
+}
+
+/** Decimals a number is written with (its shortest text; 0 for one in exponent form). */
+function writtenDecimals(value: number): number {
+  const written = String(value);
+  const point = written.indexOf('.');
+  return point < 0 || /e/i.test(written) ? 0 : written.length - point - 1;
+}
+
+/** An entered value as text ({@link TestClassification.enteredText}), against the cut-points in its unit. */
+function enteredValueText(entered: { readonly value: number; readonly unit: ValueUnit }, cuts: CutPoints): string {
+  return writtenDecimals(entered.value) <= CONVERTED_DECIMALS[entered.unit] ? withUnit(entered.value, entered.unit) : sidePreservingText(entered.value, cuts);
 }
 
 function roundToStep(value: number, step: number): number {
@@ -161,10 +187,10 @@ function classifyTest(
   const cuts = cutPointsIn(test, thresholds, entered.unit);
   // The category comes from the value as entered, against the body's form in that unit.
   const category = categoryFor(entered.value, cuts);
-  const text = converted ? sidePreservingText(value, thresholds) : withUnit(entered.value, entered.unit);
-  const result: TestClassification = { test, value, unit: thresholds.unit, entered, converted, text, category };
+  const enteredText = enteredValueText(entered, cuts);
+  const text = converted ? sidePreservingText(value, thresholds) : enteredText;
+  const result: TestClassification = { test, value, unit: thresholds.unit, entered, enteredText, converted, text, category };
   if (!converted) return { result, note: null };
-  const enteredText = withUnit(entered.value, entered.unit);
   const ownCategory = categoryFor(value, thresholds);
   const pairs = [
     { own: thresholds.prediabetesFrom, there: cuts.prediabetesFrom, published: cuts.publishedPrediabetes },

@@ -25,7 +25,7 @@ export const GLYCAEMIA_CAUTION =
   'Each category applies the named body\'s thresholds to single results. It is not a diagnosis: a result in the diabetes range needs confirming by repeat testing, as your local guideline says.';
 
 function testWords(t: TestClassification): string {
-  const shown = t.converted ? `${t.text}, entered as ${t.entered.unit === '%' ? `${t.entered.value}%` : `${t.entered.value} ${t.entered.unit}`}` : t.text;
+  const shown = t.converted ? `${t.text}, entered as ${t.enteredText}` : t.text;
   return `${TEST_LABELS[t.test]} ${shown}`;
 }
 

@@ -25,11 +25,11 @@
  *   is not a diagnosis.
  */
 import { integerWords } from '../readability/numberWords';
-import { classifyHistory, type ClassifiedCheckup, type TestClassification, type TestName } from '../glycaemia/classify';
+import { classifyHistory, sidePreservingText, type ClassifiedCheckup, type TestClassification, type TestName } from '../glycaemia/classify';
 import { CRITERIA } from '../glycaemia/criteria';
 import { addMonths } from '../glycaemia/dates';
 import type { CriteriaSet } from '../glycaemia/exposure';
-import { rangeName, roundTo, THRESHOLD_DECIMALS, withUnit } from '../glycaemia/format';
+import { rangeName, THRESHOLD_DECIMALS } from '../glycaemia/format';
 import { isLongGap, MIN_ROUND_MONTHS, persistence } from '../glycaemia/persistence';
 import type { Checkup } from '../glycaemia/schema';
 
@@ -84,19 +84,23 @@ function isYearly(dates: readonly string[]): boolean {
   });
 }
 
-function valueText(t: TestClassification, asEntered: boolean): { readonly value: number; readonly text: string } {
-  if (asEntered) return { value: t.entered.value, text: withUnit(t.entered.value, t.entered.unit) };
-  const rounded = roundTo(t.value, THRESHOLD_DECIMALS[t.unit]);
-  return { value: rounded, text: withUnit(rounded, t.unit) };
+/**
+ * A result for the sentence: as entered, or in the body's unit rounded to the decimals labs print
+ * — with more where fewer would put it across one of the body's cut-points (a converted 6.46%
+ * is written 6.46%, not the 6.5% that starts the diabetes range). `value` orders the results.
+ */
+function valueText(t: TestClassification, asEntered: boolean, criteria: CriteriaSet): { readonly value: number; readonly text: string } {
+  if (asEntered) return { value: t.entered.value, text: t.enteredText };
+  return { value: t.value, text: sidePreservingText(t.value, CRITERIA[criteria][t.test], THRESHOLD_DECIMALS[t.unit]) };
 }
 
-function testSentence(test: TestName, sorted: readonly ClassifiedCheckup[]): string | null {
+function testSentence(test: TestName, sorted: readonly ClassifiedCheckup[], criteria: CriteriaSet): string | null {
   const results = sorted.flatMap((c) => (c[test] ? [{ date: c.date, t: c[test] }] : []));
   const first = results[0];
   const last = results[results.length - 1];
   if (!first || !last) return null;
   const asEntered = results.every((r) => r.t.entered.unit === first.t.entered.unit);
-  const values = results.map((r) => valueText(r.t, asEntered));
+  const values = results.map((r) => valueText(r.t, asEntered, criteria));
   const low = values.reduce((a, b) => (b.value < a.value ? b : a));
   const high = values.reduce((a, b) => (b.value > a.value ? b : a));
   const n = results.length;
@@ -120,7 +124,7 @@ export function ownResultsText(history: { readonly criteria: CriteriaSet; readon
   const { criteria } = history;
   if (history.checkups.length === 0) return null;
   const sorted = classifyHistory(history.checkups, criteria); // sorted by date
-  const tests = (['hba1c', 'fpg'] as const).map((t) => testSentence(t, sorted)).filter((s): s is string => s !== null);
+  const tests = (['hba1c', 'fpg'] as const).map((t) => testSentence(t, sorted, criteria)).filter((s): s is string => s !== null);
   const run = persistence(sorted, criteria);
   let range: string | null = null;
   if (run.category !== null && run.from !== null && run.to !== null) {

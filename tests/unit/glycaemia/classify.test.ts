@@ -109,3 +109,29 @@ describe('classifyCheckup: which test decides, discordance', () => {
     for (const note of c.notes) expect(note.message).not.toMatch(/\bdiabetes\b(?! range)/i);
   });
 });
+
+describe('enteredText: a value entered with more decimals than labs print is written without them, never across a cut-point', () => {
+  // Cut-points: ADA HbA1c 5.7% and 6.5%, fasting glucose 5.6 mmol/L (100 mg/dL) (lib/glycaemia/criteria.ts, ADA Standards of Care).
+  it('a spreadsheet-computed value reads with one decimal past the lab’s', () => {
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 5.55555555555556, unit: '%' }, fpg: { value: 5.55555555555556, unit: 'mmol/L' } }, 'ADA');
+    expect(c.hba1c?.enteredText).toBe('5.56%');
+    expect(c.hba1c?.text).toBe('5.56%');
+    expect(c.fpg?.enteredText).toBe('5.56 mmol/L');
+    expect(c.fpg?.category).toBe('normal');
+  });
+
+  it('keeps every decimal needed to stay on its side of the cut-point: 6.4999% is not written 6.50%, 5.59999 mmol/L not 5.60', () => {
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.4999, unit: '%' }, fpg: { value: 5.59999, unit: 'mmol/L' } }, 'ADA');
+    expect(c.hba1c?.category).toBe('prediabetes');
+    expect(c.hba1c?.enteredText).toBe('6.4999%');
+    expect(c.fpg?.category).toBe('normal');
+    expect(c.fpg?.enteredText).toBe('5.59999 mmol/L');
+  });
+
+  it('a value with the decimals labs print, or one more, is written as entered', () => {
+    const c = classifyCheckup({ date: '2023-03-01', hba1c: { value: 6.25, unit: '%' }, fpg: { value: 104, unit: 'mg/dL' } }, 'ADA');
+    expect(c.hba1c?.enteredText).toBe('6.25%');
+    expect(c.fpg?.enteredText).toBe('104 mg/dL');
+    expect(c.fpg?.text).toBe('104 mg/dL'); // ADA's own unit for fasting glucose: not converted
+  });
+});

@@ -34,6 +34,21 @@ describe('ownResultsText', () => {
     ]);
   });
 
+  it('writes a value a spreadsheet computed with one decimal past the lab’s, and 6.4999% never as 6.50% (it is below the 6.5% cut-point)', () => {
+    const s = summary(yearly([5.76666666666667, 6.4999, 6.1]));
+    expect(s?.tests).toEqual(['Your HbA1c was between 5.77% and 6.4999% at three yearly checkups, from 2019 to 2021.']);
+    expect(s?.range).toBe('All three results, from 2019 to 2021, were in the prediabetes range.');
+  });
+
+  it('mixed units: a converted result just under a cut-point keeps the decimals that show it is under', () => {
+    // 47 mmol/mol = (47 + 23.5) / 10.93 = 6.450% (master equation solved for %, Hoelzel et al. 2004,
+    // Clin Chem 50:166; hand-computed): to one decimal 6.5%, the ADA's diabetes-range cut-point it is
+    // under; so two decimals, 6.45%. 47 mmol/mol is under ADA's published 48 mmol/mol too.
+    const s = summary([{ date: '2022-05-02', hba1c: { value: 47, unit: 'mmol/mol' } }, pct('2023-05-08', 6.0)]);
+    expect(s?.tests).toEqual(['Your HbA1c was between 6.0% and 6.45% at two yearly checkups, from 2022 to 2023.']);
+    expect(s?.range).toBe('Both results, from 2022 to 2023, were in the prediabetes range.');
+  });
+
   it('gives mixed units in the body’s unit with the decimals labs print', () => {
     // 42 mmol/mol = (42 + 23.5) / 10.93 = 5.993% (master equation solved for %, Hoelzel et al.
     // 2004, Clin Chem 50:166; hand-computed), printed to one decimal: 6.0%.
