@@ -18,6 +18,7 @@
  * - the value and day then pass the same checks as any typed checkup (lib/glycaemia/schema.ts).
  */
 import { canonicalUnit, checkupDateSchema, fpgReadingSchema, hba1cReadingSchema, type FpgReading, type Hba1cReading, type HistoryOptions } from '../glycaemia/schema';
+import { atFileDigits } from '../text/significant';
 import { LOINC_SYSTEMS, loincKind, type LoincKind } from './loinc';
 
 export const USABLE_STATUSES = ['final', 'amended', 'corrected'] as const;
@@ -94,8 +95,9 @@ export function readObservation(resource: unknown, options: HistoryOptions): Obs
     return skip(`no valueQuantity${absent}`);
   }
   if (quantity.comparator !== undefined) return skip(`the value is a limit ("${String(quantity.comparator)}"), not a measured result`);
-  const value = quantity.value;
-  if (typeof value !== 'number' || !Number.isFinite(value)) return skip('valueQuantity.value is not a number');
+  if (typeof quantity.value !== 'number' || !Number.isFinite(quantity.value)) return skip('valueQuantity.value is not a number');
+  // At 15 significant digits, as every file's numbers are read (lib/text/significant.ts): a system that wrote a double in full (6.1000000000000005) meant 6.1.
+  const value = atFileDigits(quantity.value);
   const system = text(quantity.system);
   if (system !== null && system !== UCUM_SYSTEM) return skip(`the unit is not a UCUM unit (system ${system})`);
   const unitText = text(quantity.code) ?? text(quantity.unit);

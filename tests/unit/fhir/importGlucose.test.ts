@@ -112,6 +112,13 @@ describe('importFhirGlucose: usable observations', () => {
   });
 });
 
+describe('values written as doubles in full', () => {
+  it('are read at 15 significant digits (lib/text/significant.ts): 5.6999999999999993% is 5.7%', () => {
+    const r = readObservation(obs({ value: 5.6999999999999993 }), TODAY);
+    expect(r.ok && r.reading).toEqual({ value: 5.7, unit: '%' });
+  });
+});
+
 describe('importFhirGlucose: every skipped resource is reported with why', () => {
   it.each([
     ['preliminary', 'status "preliminary": only final, amended and corrected results are used'],
