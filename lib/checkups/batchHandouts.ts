@@ -11,8 +11,8 @@
  *   `scenarioFragment`) and that record, i.e. the very call /handout makes when it opens that
  *   link, with the same default template, paper and date (less the editor's reading grades,
  *   which are not printed: `grades: false`).
- * Without checkups (a saved session keeps no file to read them from) the sheet has no own
- * results, as /handout's has when nothing was handed over.
+ * Without checkups (neither a file nor a saved session's rows to read them from) the sheet has no
+ * own results, as /handout's has when nothing was handed over.
  *
  * A worker gets no sheet, and is counted and listed with the reason, when the evidence does not
  * apply to them (status neither, insufficient or diabetes range: no figures), or when
@@ -253,9 +253,10 @@ export function batchHandouts(
 
 /** What the screen says while it prepares the handouts, and about the workers' own results. */
 export const BATCH_MESSAGES = {
-  /** Said before printing when the results come from a saved session. */
-  noFile: 'A saved session keeps no checkup file, so these handouts print without each worker\u2019s own results (their glucose history).',
-  reading: 'Reading the chosen workers\u2019 results again from the file\u2026',
+  /** Said before printing when neither a file nor a saved session's rows can give the workers' own results. */
+  noFile: 'Without the checkup file or a saved session\u2019s rows, these handouts print without each worker\u2019s own results (their glucose history).',
+  /** While the chosen workers' checkups are read again: from the file, or from a saved session's rows. */
+  reading: 'Reading the chosen workers\u2019 results again\u2026',
   /** The file could not be read again: the handouts are made without own results. */
   unreadable: (why: string) => `The workers\u2019 own results could not be read again from the file, so these handouts print without them. ${why.replace(/\.?$/, '.')}`,
   preparing: (done: number, total: number) => `Preparing handout ${done.toLocaleString('en')} of ${total.toLocaleString('en')}\u2026`,

@@ -89,6 +89,18 @@ export function collectWorkersRowsFromTable(table: readonly (readonly CellValue[
   return kept;
 }
 
+/**
+ * The wanted workers' rows among rows already read: a saved session's (lib/checkups/session.ts
+ * keeps the rows the engine read, not the file), in their order.
+ * @example
+ * workersRowsFrom(session.rows, new Set(['W001'])).get('W001') //=> [{ line: 2, worker: 'W001', date: '2021-03-02', … }, …]
+ */
+export function workersRowsFrom(rows: readonly CheckupRow[], workers: ReadonlySet<string>): RowsByWorker {
+  const { kept, keep } = rowKeeper(workers);
+  keep(rows);
+  return kept;
+}
+
 /** One worker's rows (see {@link collectWorkersRows}); none when the worker has no row. */
 export async function collectWorkerRows(
   chunks: AsyncIterable<string | { readonly file: string }> | Iterable<string | { readonly file: string }>,

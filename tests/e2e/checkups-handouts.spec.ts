@@ -19,7 +19,6 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { BATCH_MESSAGES } from '../../lib/checkups/batchHandouts';
 import { WORKER_HANDOVER_KEY } from '../../lib/checkups/workerHandOverKey';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '../../lib/evidence/demo';
 import { DEFAULT_BLOCKS, HANDOUT_HISTORY_KEY, handOverRecord, handoutSheet } from '../../lib/handout';
@@ -254,7 +253,7 @@ test('batch handouts: ticked workers print one page each in one PDF, each with i
   expect(Number(idWord?.[2]) - Number(idWord?.[1])).toBeLessThan(9); // points: a 7 pt line, where 12 pt text is about 14
 });
 
-test('a saved session keeps no file: the screen says before printing that the handouts go without own results, and the sheets have none', async ({ page }) => {
+test('a saved session keeps the rows, not the file: reopened, its batch handouts still carry each worker’s own results, and one worker opens with their history', async ({ page, context }) => {
   test.slow(); // save, reopen and print on a shared machine
   await openAndProcessCheckups(page, DEMO_CHECKUPS);
   // Straight from the file, the screen says nothing of the kind.
@@ -266,8 +265,8 @@ test('a saved session keeps no file: the screen says before printing that the ha
   await page.reload();
   await page.getByRole('button', { name: `Open ${name}` }).click();
   await expect(page.getByTestId('summary')).toBeVisible({ timeout: 30_000 });
-  // lib/checkups/batchHandouts.ts BATCH_MESSAGES.noFile, said before anything is prepared
-  await expect(page.getByTestId('batch-no-file')).toHaveText(BATCH_MESSAGES.noFile);
+  // The session's rows give the own results (the worker keeps them): nothing to say before printing.
+  await expect(page.getByTestId('batch-no-file')).toHaveCount(0);
   await page.getByLabel('Tick W001', { exact: true }).check();
   await page.getByLabel(/^The workers ticked in the worklist/).check();
   await page.getByRole('button', { name: 'Prepare the handout' }).click();
@@ -279,8 +278,16 @@ test('a saved session keeps no file: the screen says before printing that the ha
   if (!sheet.ok) throw new Error('W001 must get a sheet');
   expect(text).toContain(squash(sheet.value.text.exposed.caption));
   expect(text).toContain(`${CAUTION_HEADING} ${squash(CAUTION_TEXT)}`);
-  expect(text).not.toContain('Your own results');
-  expect(text).not.toContain(PRINTED[0].own[0]);
+  // W001's own results, the same sentences as a batch straight from the file (demo/checkups/checkups.csv lines 3–7).
+  expect(text).toContain('Your own results');
+  for (const sentence of PRINTED[0].own) expect(text).toContain(sentence);
+  // Open one worker from the reopened session: the history comes from the session's rows too.
+  const row = page.getByTestId('worklist').locator('tr[data-worker="W001"]');
+  const [tab] = await Promise.all([context.waitForEvent('page'), row.getByRole('button', { name: 'Open W001 in the consultation screen (new tab)' }).click()]);
+  await expect(tab.getByTestId('result')).toBeVisible({ timeout: 30_000 });
+  await expect(tab.getByTestId('glucose-row')).toHaveCount(5); // W001's five checkups, lines 3–7
+  await expect(tab.getByTestId('glucose-match')).toContainText('This history fits the study\u2019s exposure.');
+  await tab.close();
   await page.getByRole('button', { name: `Delete ${name}` }).click();
   await page.getByRole('group', { name: `Delete the session ${name}?` }).getByRole('button', { name: 'Delete', exact: true }).click();
 });

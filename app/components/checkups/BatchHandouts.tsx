@@ -6,8 +6,9 @@
  *
  * Each sheet is lib/checkups `batchHandout`: the sheet /handout makes for the worker's scenario
  * and glucose history, the history read again from the file in the screen's Web Worker, all the
- * chosen workers in one pass (./workerHistories.ts). A saved session keeps no file: the screen
- * says so before anything is prepared, and the sheets have no own results.
+ * chosen workers in one pass (./workerHistories.ts), or from a saved session's rows (the session
+ * keeps the rows the engine read, not the file). With neither, the screen says so before anything
+ * is prepared, and the sheets have no own results.
  *
  * The pages exist only once the physician asks for them. They are made in short slices (each at
  * most {@link SLICE_MS} of work, then the page gets the thread back), one page put in at a time

@@ -59,11 +59,9 @@ export function BatchWorklist({ rows, results, run, worker, choices = null, rank
     return prepared.ok ? prepared.value : null;
   }, [run]);
 
-  // Batch handouts read the chosen workers' checkups again from the file; a saved session has none.
-  const readHistories = useMemo(
-    () => (run && run.files.length > 0 ? historiesReader(worker, { files: run.files, kind: run.kind, today: run.today, mapping: run.mapping }) : null),
-    [run, worker],
-  );
+  // Batch handouts read the chosen workers' checkups again: from the file, or from a saved
+  // session's rows (the worker keeps the open session's; a run from a session gives no file).
+  const readHistories = useMemo(() => (run ? historiesReader(worker, { files: run.files, kind: run.kind, today: run.today, mapping: run.mapping }) : null), [run, worker]);
 
   const onSelect = useCallback((indices: readonly number[], on: boolean) => {
     setTicked((old) => {
@@ -76,8 +74,8 @@ export function BatchWorklist({ rows, results, run, worker, choices = null, rank
     });
   }, []);
 
-  // A saved session keeps no file, so its workers' histories cannot be read again to open one.
-  const canOpen = useCallback((row: WorklistRow) => run !== null && run.files.length > 0 && results[row.index]?.referenceRisk != null, [run, results]);
+  // The worker's history comes from the file, or from a saved session's rows, as for batch handouts.
+  const canOpen = useCallback((row: WorklistRow) => run !== null && results[row.index]?.referenceRisk != null, [run, results]);
 
   const onOpen = (row: WorklistRow) => {
     const result = results[row.index];

@@ -113,7 +113,7 @@ export function CheckupsScreen() {
     } else if (m.type === 'session-opened') {
       restore(m.setup);
       setFromSession(true);
-      // A session keeps no file: batch handouts work from the results; opening one worker needs the file.
+      // A session keeps no file: its rows, kept by the worker, give the results, batch handouts' own results and one worker's history.
       setRunInput({ files: [], kind: m.kind, today: localIsoDate(), mapping: m.mapping, confirmedMapping: m.mapping, evidence: m.setup.evidence, table: m.setup.table, criteria: m.setup.criteria, horizon: m.setup.horizonYears });
     } else if (m.type === 'session-refused') {
       setSessionMessages([...m.messages]);

@@ -7,7 +7,9 @@
  * Saved sessions (lib/checkups/session.ts, app/storage/sessions.ts) are saved and opened here:
  * the rows are read again from the file still in memory and written to the browser's storage
  * from this thread, and a reopened session's rows are processed here with the engine's public
- * steps (WorkerGrouper → evaluateWorker → SummaryAccumulator), as runCheckups does.
+ * steps (WorkerGrouper → evaluateWorker → SummaryAccumulator), as runCheckups does. A session
+ * keeps the rows the engine read, not the file: while one is open, the workers' checkups for
+ * batch handouts and "open one worker" come from its rows (a request that gives no file).
  */
 import {
   createCheckupTextReader,
@@ -36,7 +38,7 @@ import { copyPackedChunk, packedChunkBuffers, packedResultList, ResultsPacker, t
 import { workersCsv } from '@/lib/checkups/exportCsv';
 import { SESSION_VERSION, type CheckupSession } from '@/lib/checkups/session';
 import { openSessionStore } from '@/app/storage/sessions';
-import { collectWorkerRows, collectWorkerRowsFromTable, collectWorkersRows, collectWorkersRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
+import { collectWorkerRows, collectWorkerRowsFromTable, collectWorkersRows, collectWorkersRowsFromTable, workerCheckups, workersRowsFrom } from '@/lib/checkups/workerHistory';
 import type { FromWorker, ToWorker } from './protocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -46,6 +48,8 @@ const PREVIEW_BYTES = 64 * 1024;
 let controller: AbortController | null = null;
 /** The last run that finished, for "Save the session". */
 let lastRun: Extract<ToWorker, { type: 'run' }> | null = null;
+/** The rows of the saved session open now (its workers' checkups are read from them); null after a run from a file. */
+let sessionRows: readonly CheckupRow[] | null = null;
 
 async function* slices(files: readonly File[], markFiles: boolean): AsyncGenerator<string | { file: string }> {
   for (const file of files) {
@@ -132,6 +136,7 @@ async function run(data: Extract<ToWorker, { type: 'run' }>): Promise<void> {
   controller = new AbortController();
   lastRun = null;
   lastResults = null;
+  sessionRows = null;
   const context = prepareCheckups({ evidence: data.evidence, table: data.table, criteria: data.criteria, ...(data.horizon !== null ? { horizonYears: data.horizon } : {}) });
   if (!context.ok) return post({ type: 'refused', messages: context.issues.map((i) => i.message) });
   const sink = resultSink();
@@ -237,6 +242,7 @@ async function openSession(data: Extract<ToWorker, { type: 'open-session' }>): P
   if (!opened.ok) return post({ type: 'session-refused', messages: opened.issues.map((i) => i.message) });
   const session = opened.value;
   const { setup } = session;
+  sessionRows = session.rows;
   post({ type: 'session-opened', setup, kind: session.kind, mapping: session.mapping });
   const context = prepareCheckups({ evidence: setup.evidence, table: setup.table, criteria: setup.criteria, ...(setup.horizonYears !== null ? { horizonYears: setup.horizonYears } : {}) });
   if (!context.ok) return post({ type: 'session-refused', messages: context.issues.map((i) => i.message) });
@@ -277,7 +283,9 @@ async function openSession(data: Extract<ToWorker, { type: 'open-session' }>): P
 async function history(data: Extract<ToWorker, { type: 'history' }>): Promise<void> {
   const reader = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
   let rows;
-  if (data.kind === 'xlsx') {
+  if (data.files.length === 0 && sessionRows) {
+    rows = workersRowsFrom(sessionRows, new Set([data.worker])).get(data.worker) ?? [];
+  } else if (data.kind === 'xlsx') {
     const file = data.files[0];
     const sheet = file ? await readXlsxSheet(file) : null;
     rows = !sheet ? null : isRefusal(sheet) ? sheet : collectWorkerRowsFromTable(sheet.rows, reader, data.worker);
@@ -307,7 +315,9 @@ async function histories(data: Extract<ToWorker, { type: 'histories' }>): Promis
   const reader = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
   const wanted = new Set(data.workers);
   let rows;
-  if (data.kind === 'xlsx') {
+  if (data.files.length === 0 && sessionRows) {
+    rows = workersRowsFrom(sessionRows, wanted);
+  } else if (data.kind === 'xlsx') {
     const file = data.files[0];
     const sheet = file ? await readXlsxSheet(file) : null;
     rows = !sheet ? null : isRefusal(sheet) ? sheet : collectWorkersRowsFromTable(sheet.rows, reader, wanted);

@@ -6,7 +6,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { collectWorkersRows, collectWorkersRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
+import { collectWorkersRows, collectWorkersRowsFromTable, workerCheckups, workersRowsFrom } from '@/lib/checkups/workerHistory';
 import type { Checkup } from '@/lib/glycaemia/schema';
 import { isRefusal } from '@/lib/workforce';
 
@@ -31,6 +31,18 @@ const W012_CHECKUPS: Checkup[] = [
   { date: '2024-03-13', hba1c: a1c(6.2), fpg: fpg(5.5) },
   { date: '2025-04-24', hba1c: a1c(6.1), fpg: fpg(5.3) },
 ];
+
+describe('workersRowsFrom: the wanted workers’ rows among rows already read (a saved session’s)', () => {
+  it('the demo file’s rows as a session keeps them: the same rows, and so the same checkups, as reading the file again', async () => {
+    const all = await collectWorkersRows([DEMO_CSV], { reader: READER, format: 'delimited' }, new Set(DEMO_CSV.split('\n').slice(1).map((l) => l.split(',')[0] ?? '')));
+    if (isRefusal(all)) throw new Error(all.message);
+    const kept = workersRowsFrom([...all.values()].flat(), WANTED);
+    expect([...kept.keys()].sort()).toEqual(['W001', 'W007', 'W012']);
+    expect(kept.get('W007')?.map((r) => r.line)).toEqual([30, 31, 32, 33, 34]);
+    expect(workerCheckups(kept.get('W007') ?? [])).toEqual(W007_CHECKUPS);
+    expect(workerCheckups(kept.get('W012') ?? [])).toEqual(W012_CHECKUPS);
+  });
+});
 
 describe('collectWorkersRows: the wanted workers’ rows in one pass', () => {
   it('three workers of the demo file, read in three chunks cut mid-line: each gets only their own rows; a worker not in the file is absent', async () => {
