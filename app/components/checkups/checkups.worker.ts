@@ -27,6 +27,7 @@ import {
   type CheckupRow,
   type CheckupsOutcome,
   type CheckupsProgress,
+  type ReadRefusal,
   type RowCounts,
   type RowProblem,
   type WorkerResult,
@@ -38,7 +39,7 @@ import { copyPackedChunk, packedChunkBuffers, packedResultList, ResultsPacker, t
 import { workersCsv } from '@/lib/checkups/exportCsv';
 import { SESSION_VERSION, type CheckupSession } from '@/lib/checkups/session';
 import { openSessionStore } from '@/app/storage/sessions';
-import { collectWorkerRows, collectWorkerRowsFromTable, collectWorkersRows, collectWorkersRowsFromTable, workerCheckups, workersRowsFrom } from '@/lib/checkups/workerHistory';
+import { collectWorkersRows, collectWorkersRowsFromTable, workerCheckups, workersRowsFrom, type RowsByWorker } from '@/lib/checkups/workerHistory';
 import type { FromWorker, ToWorker } from './protocol';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -279,21 +280,36 @@ async function openSession(data: Extract<ToWorker, { type: 'open-session' }>): P
   finish({ ok: true, summary: finished, header: null, problemCount }, sink);
 }
 
-/** One worker's checkups, read again from the same files with the same mapping. */
-async function history(data: Extract<ToWorker, { type: 'history' }>): Promise<void> {
+type RowsRequest = Pick<Extract<ToWorker, { type: 'histories' }>, 'files' | 'kind' | 'today' | 'mapping'>;
+
+/**
+ * The wanted workers' rows, read again: from the open saved session's rows when the request gives
+ * no file, else from the same files with the same mapping (a workbook's sheet, or text in slices,
+ * each slice reported to `onSlice`). Null when there is neither.
+ */
+async function wantedRows(data: RowsRequest, wanted: ReadonlySet<string>, signal?: AbortSignal, onSlice?: () => void): Promise<RowsByWorker | ReadRefusal | null> {
+  if (data.files.length === 0) return sessionRows ? workersRowsFrom(sessionRows, wanted) : null;
   const reader = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
-  let rows;
-  if (data.files.length === 0 && sessionRows) {
-    rows = workersRowsFrom(sessionRows, new Set([data.worker])).get(data.worker) ?? [];
-  } else if (data.kind === 'xlsx') {
+  if (data.kind === 'xlsx') {
     const file = data.files[0];
     const sheet = file ? await readXlsxSheet(file) : null;
-    rows = !sheet ? null : isRefusal(sheet) ? sheet : collectWorkerRowsFromTable(sheet.rows, reader, data.worker);
-  } else {
-    rows = await collectWorkerRows(slices(data.files, data.kind === 'fhir-ndjson'), { reader, format: data.kind }, data.worker);
+    return !sheet ? null : isRefusal(sheet) ? sheet : collectWorkersRowsFromTable(sheet.rows, reader, wanted);
   }
+  async function* counted(): AsyncGenerator<string | { file: string }> {
+    for await (const chunk of slices(data.files, data.kind === 'fhir-ndjson')) {
+      if (signal?.aborted) return;
+      if (typeof chunk === 'string') onSlice?.();
+      yield chunk;
+    }
+  }
+  return collectWorkersRows(counted(), { reader, format: data.kind }, wanted);
+}
+
+/** One worker's checkups, read again (see {@link wantedRows}). */
+async function history(data: Extract<ToWorker, { type: 'history' }>): Promise<void> {
+  const rows = await wantedRows(data, new Set([data.worker]));
   if (!rows || isRefusal(rows)) return post({ type: 'history', worker: data.worker, checkups: null, message: rows ? rows.message : 'No file was given' });
-  post({ type: 'history', worker: data.worker, checkups: workerCheckups(rows), message: null });
+  post({ type: 'history', worker: data.worker, checkups: workerCheckups(rows.get(data.worker) ?? []), message: null });
 }
 
 /** Workers' checkups per 'histories' answer: small enough that the page takes each in a few milliseconds. */
@@ -312,28 +328,10 @@ async function histories(data: Extract<ToWorker, { type: 'histories' }>): Promis
   let bytesRead = 0;
   const answer = (rest: { histories?: FromWorkerHistories['histories']; done: boolean; message: string | null }) =>
     post({ type: 'histories', id: data.id, bytesRead, bytesTotal, histories: rest.histories ?? [], done: rest.done, message: rest.message });
-  const reader = { today: data.today, ...(data.mapping ? { mapping: data.mapping } : {}) };
-  const wanted = new Set(data.workers);
-  let rows;
-  if (data.files.length === 0 && sessionRows) {
-    rows = workersRowsFrom(sessionRows, wanted);
-  } else if (data.kind === 'xlsx') {
-    const file = data.files[0];
-    const sheet = file ? await readXlsxSheet(file) : null;
-    rows = !sheet ? null : isRefusal(sheet) ? sheet : collectWorkersRowsFromTable(sheet.rows, reader, wanted);
-  } else {
-    async function* counted(): AsyncGenerator<string | { file: string }> {
-      for await (const chunk of slices(data.files, data.kind === 'fhir-ndjson')) {
-        if (signal.aborted) return;
-        if (typeof chunk === 'string') {
-          bytesRead = Math.min(bytesTotal, bytesRead + SLICE);
-          answer({ done: false, message: null });
-        }
-        yield chunk;
-      }
-    }
-    rows = await collectWorkersRows(counted(), { reader, format: data.kind }, wanted);
-  }
+  const rows = await wantedRows(data, new Set(data.workers), signal, () => {
+    bytesRead = Math.min(bytesTotal, bytesRead + SLICE);
+    answer({ done: false, message: null });
+  });
   if (signal.aborted) return;
   if (historiesPass === pass) historiesPass = null;
   bytesRead = bytesTotal;
