@@ -270,6 +270,33 @@ export const BATCH_MESSAGES = {
   skippedHeading: (workers: number) => `Workers without a handout (${workers.toLocaleString('en')})`,
 } as const;
 
+/** A titled list of workers on the screen, one line each (`key`: the worker's position). */
+export interface BatchWorkerList {
+  readonly heading: string;
+  readonly lines: readonly { readonly key: number; readonly text: string }[];
+}
+
+/**
+ * What the screen shows once the sheets are made: the counts, the workers whose handout prints
+ * without their own results (and why), and the workers who get none (and why).
+ * @example
+ * batchDoneView([{ kind: 'sheet', index: 0, worker: 'W001', historyLeftOff: undefined }, { kind: 'skipped', index: 1, worker: 'W002', reason: 'not-applicable', message: 'Not enough results: …' }])
+ * //=> { counts: { chosen: 2, sheets: 1, skipped: 1, … }, leftOff: { heading: 'Handouts without the worker’s own results (0)', lines: [] }, skipped: { heading: 'Workers without a handout (1)', lines: [{ key: 1, text: 'W002: Not enough results: …' }] } }
+ */
+export function batchDoneView(tallies: readonly BatchTally[]): { readonly counts: BatchCounts; readonly leftOff: BatchWorkerList; readonly skipped: BatchWorkerList } {
+  const leftOff: { key: number; text: string }[] = [];
+  const skipped: { key: number; text: string }[] = [];
+  for (const t of tallies) {
+    if (t.kind === 'skipped') skipped.push({ key: t.index, text: `${t.worker}: ${t.message}` });
+    else if (t.historyLeftOff !== undefined) leftOff.push({ key: t.index, text: BATCH_MESSAGES.leftOff(t.worker, t.historyLeftOff) });
+  }
+  return {
+    counts: batchCounts(tallies),
+    leftOff: { heading: BATCH_MESSAGES.leftOffHeading(leftOff.length), lines: leftOff },
+    skipped: { heading: BATCH_MESSAGES.skippedHeading(skipped.length), lines: skipped },
+  };
+}
+
 /**
  * The batch's one-line status (read out to a screen reader when it changes): what is ready once
  * the sheets are made; before any is asked for, that none is chosen when none is; nothing while

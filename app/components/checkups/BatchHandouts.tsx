@@ -25,13 +25,14 @@ import {
   BATCH_MESSAGES,
   batchChoiceCounts,
   batchChoiceLabel,
-  batchCounts,
+  batchDoneView,
   batchHandout,
   batchSelection,
   batchStatusText,
   batchTally,
   type BatchChoice,
   type BatchTally,
+  type BatchWorkerList,
 } from '@/lib/checkups/batchHandouts';
 import type { Checkup } from '@/lib/glycaemia/schema';
 import { PAPER_SIZE_KEYS, PAPER_SIZES, pageRule, type PaperSize } from '@/lib/handout/paper';
@@ -187,9 +188,7 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
   };
 
   const done = job?.stage === 'done';
-  const counts = done ? batchCounts(job.handouts) : null;
-  const skipped = done ? job.handouts.filter((h): h is Extract<BatchTally, { kind: 'skipped' }> => h.kind === 'skipped') : [];
-  const leftOff = done ? job.handouts.filter((h): h is Extract<BatchTally, { kind: 'sheet' }> => h.kind === 'sheet' && h.historyLeftOff !== undefined) : [];
+  const doneView = useMemo(() => (job?.stage === 'done' ? batchDoneView(job.handouts) : null), [job]);
 
   return (
     <section aria-labelledby="batch-heading" className="checkups__section" data-testid="batch">
@@ -265,34 +264,10 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
         </p>
       ) : null}
       <p role="status" data-testid="batch-status">
-        {batchStatusText({ chosen: chosen.length, counts, working: job !== null && !done })}
+        {batchStatusText({ chosen: chosen.length, counts: doneView?.counts ?? null, working: job !== null && !done })}
       </p>
-      {leftOff.length > 0 ? (
-        <div data-testid="batch-left-off">
-          <h3 id="batch-left-off-heading">{BATCH_MESSAGES.leftOffHeading(leftOff.length)}</h3>
-          <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby="batch-left-off-heading">
-            <ul>
-              {leftOff.map((h) => (
-                <li key={h.index}>{BATCH_MESSAGES.leftOff(h.worker, h.historyLeftOff ?? '')}</li>
-              ))}
-            </ul>
-          </div>
-        </div>
-      ) : null}
-      {skipped.length > 0 ? (
-        <div data-testid="batch-skipped">
-          <h3 id="batch-skipped-heading">{BATCH_MESSAGES.skippedHeading(skipped.length)}</h3>
-          <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby="batch-skipped-heading">
-            <ul>
-              {skipped.map((h) => (
-                <li key={h.index}>
-                  {h.worker}: {h.message}
-                </li>
-              ))}
-            </ul>
-          </div>
-        </div>
-      ) : null}
+      {doneView && doneView.leftOff.lines.length > 0 ? <WorkerList id="batch-left-off" list={doneView.leftOff} /> : null}
+      {doneView && doneView.skipped.lines.length > 0 ? <WorkerList id="batch-skipped" list={doneView.skipped} /> : null}
       {inBrowser && job
         ? createPortal(
             <div className="batch-print" data-testid="batch-print" data-paper={job.paper} data-ready={done ? 'true' : 'false'} data-pages={job.pages}>
@@ -303,5 +278,21 @@ export function BatchHandouts({ results, context, ticked, readHistories }: Batch
           )
         : null}
     </section>
+  );
+}
+
+/** A titled list of workers in its own scrolling region (`id`: its test id, and its heading's id with "-heading"). */
+function WorkerList({ id, list }: { readonly id: string; readonly list: BatchWorkerList }) {
+  return (
+    <div data-testid={id}>
+      <h3 id={`${id}-heading`}>{list.heading}</h3>
+      <div className="checkups__problems" tabIndex={0} role="region" aria-labelledby={`${id}-heading`}>
+        <ul>
+          {list.lines.map((line) => (
+            <li key={line.key}>{line.text}</li>
+          ))}
+        </ul>
+      </div>
+    </div>
   );
 }

@@ -8,7 +8,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { BATCH_BUTTON_TEXT, BATCH_CHOICES, BATCH_MESSAGES, batchChoiceCounts, batchChoiceLabel, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection, batchStatusText, batchTally } from '@/lib/checkups/batchHandouts';
+import { BATCH_BUTTON_TEXT, BATCH_CHOICES, BATCH_MESSAGES, batchChoiceCounts, batchChoiceLabel, batchCounts, batchCountsText, batchHandout, batchHandouts, batchSelection, batchDoneView, batchStatusText, batchTally } from '@/lib/checkups/batchHandouts';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { EvidenceEntry } from '@/lib/evidence/schema';
 import type { Checkup } from '@/lib/glycaemia/schema';
@@ -276,6 +276,17 @@ describe('batchHandouts and its counts (hand-worked)', () => {
     expect(Object.keys(tallies[0] ?? {})).not.toContain('sheet');
     expect(tallies[1]).toBe(batch[1]); // a skipped worker's record is small already
     expect(batchCounts(tallies)).toEqual({ chosen: 4, sheets: 2, skipped: 2, byReason: { 'not-applicable': 2 } });
+  });
+
+  it('the finished batch on screen: the counts, and each worker without a sheet or without own results, with why', () => {
+    const batch = batchHandouts(results, batchSelection(results, 'all', new Set()), CONTEXT, { paper: 'a4', date: DATE, showIds: false });
+    const tallies = [...batch.map(batchTally), { kind: 'sheet' as const, index: 7, worker: 'Q7', historyLeftOff: 'A checkup is dated after today.' }];
+    const view = batchDoneView(tallies);
+    expect(view.counts).toEqual({ chosen: 5, sheets: 3, skipped: 2, byReason: { 'not-applicable': 2 } });
+    expect(view.skipped.heading).toBe('Workers without a handout (2)');
+    expect(view.skipped.lines.map((l) => l.key)).toEqual([1, 2]);
+    expect(view.skipped.lines[0]?.text).toMatch(/^W002: Not enough results/);
+    expect(view.leftOff).toEqual({ heading: 'Handouts without the worker\u2019s own results (1)', lines: [{ key: 7, text: 'Q7: the handout prints without their own results. A checkup is dated after today.' }] });
   });
 
   it('500 exposed workers give 500 sheets', () => {
