@@ -40,11 +40,9 @@ import { isRefusal, prepareCheckups, runCheckups, type WorkerResult } from '../l
 import { runWhenAlone, type Figure } from './figure';
 import { traceTasks } from './trace';
 import { writeWorkforce } from './checkups.bench';
-import { sparePort, startServer, stopServer } from './page.bench';
+import { CHROMIUM, CHROMIUM_ARGS, sparePort, startServer, stopServer } from './page.bench';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
-const CHROMIUM = '/usr/bin/chromium';
-const CHROMIUM_ARGS = ['--no-sandbox', '--headless', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
 /** 1,250 workers: 500 of them (2 in 5) fit the exposure (bench/checkups.bench.ts `writeWorkforce`). */
 const WORKERS = 1250;
 const SHEETS = 500;

@@ -32,12 +32,10 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { chromium, type Page } from '@playwright/test';
 import type { Figure } from './figure';
 import { writeWorkforce } from './checkups.bench';
-import { sparePort, startServer, stopServer } from './page.bench';
+import { CHROMIUM, CHROMIUM_ARGS, sparePort, startServer, stopServer } from './page.bench';
 import { traceTasks } from './trace';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
-const CHROMIUM = '/usr/bin/chromium';
-const CHROMIUM_ARGS = ['--no-sandbox', '--headless', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
 /** The workforce's size: the 100,000, or BENCH_CHECKUPS_WORKERS for quicker looks (e.g. 30000). */
 const WORKERS = Number(process.env.BENCH_CHECKUPS_WORKERS ?? 100_000);
 /** A Chromium trace of the run is written here and read for each main-thread task's thread time (bench/trace.ts). */

@@ -27,8 +27,9 @@ import { median, type Figure } from './figure';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const NEXT_DIR = join(ROOT, '.next');
-const CHROMIUM = '/usr/bin/chromium';
-const CHROMIUM_ARGS = ['--no-sandbox', '--headless', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
+/** Debian's Chromium and the launch flags that work with it here (as playwright.config.ts); every browser bench launches it so. */
+export const CHROMIUM = '/usr/bin/chromium';
+export const CHROMIUM_ARGS = ['--no-sandbox', '--headless', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
 const KEYSTROKES = 30;
 const WARM_UP = 4;
 
