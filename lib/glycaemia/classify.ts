@@ -29,7 +29,7 @@
 import type { Warning } from '../result';
 import { CRITERIA, type TestThresholds } from './criteria';
 import type { CriteriaSet, GlycaemicCategory } from './exposure';
-import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, thresholdText, withUnit, type ValueUnit } from './format';
+import { CONVERTED_DECIMALS, categoryLabel, rangeName, roundTo, TEST_LABELS, thresholdText, withUnit, writtenDecimals, type ValueUnit } from './format';
 import { glucoseIn, type GlucoseUnit } from './glucose';
 import { hba1cIn, type Hba1cUnit } from './hba1c';
 import { inDateOrder } from './dates';
@@ -158,13 +158,6 @@ export function sidePreservingText(value: number, cuts: Pick<CutPoints, 'unit' |
   let shown = decimals;
   while (shown < 6 && categoryFor(roundTo(value, shown), cuts) !== category) shown += 1;
   return withUnit(roundTo(value, shown), cuts.unit);
-}
-
-/** Decimals a number is written with (its shortest text; 0 for one in exponent form). */
-function writtenDecimals(value: number): number {
-  const written = String(value);
-  const point = written.indexOf('.');
-  return point < 0 || /e/i.test(written) ? 0 : written.length - point - 1;
 }
 
 /** An entered value as text ({@link TestClassification.enteredText}), against the cut-points in its unit. */

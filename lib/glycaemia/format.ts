@@ -34,10 +34,15 @@ export function roundTo(value: number, decimals: number): number {
  */
 export function withUnit(value: number, unit: ValueUnit): string {
   const written = String(value);
-  const point = written.indexOf('.');
-  const entered = point < 0 ? 0 : written.length - point - 1;
-  const text = /e/i.test(written) ? written : value.toFixed(Math.max(THRESHOLD_DECIMALS[unit], entered));
+  const text = /e/i.test(written) ? written : value.toFixed(Math.max(THRESHOLD_DECIMALS[unit], writtenDecimals(value)));
   return unit === '%' ? `${text}%` : `${text} ${unit}`;
+}
+
+/** Decimals a number is written with (its shortest text, ECMA-262 Number::toString; 0 in exponent form). */
+export function writtenDecimals(value: number): number {
+  const written = String(value);
+  const point = written.indexOf('.');
+  return point < 0 || /e/i.test(written) ? 0 : written.length - point - 1;
 }
 
 /** Decimals the bodies write their thresholds with: 5.7 %, 48 mmol/mol, 7.0 mmol/L, 126 mg/dL. */
