@@ -83,10 +83,7 @@ export async function collectWorkersRows(
 /** The same for a workbook's sheet already read into cells. */
 export function collectWorkersRowsFromTable(table: readonly (readonly CellValue[])[], reader: CheckupReaderOptions, workers: ReadonlySet<string>): RowsByWorker | ReadRefusal {
   const read = readCheckupTable(table, reader);
-  if (isRefusal(read)) return read;
-  const { kept, keep } = rowKeeper(workers);
-  keep(read.step.rows);
-  return kept;
+  return isRefusal(read) ? read : workersRowsFrom(read.step.rows, workers);
 }
 
 /**
@@ -99,20 +96,4 @@ export function workersRowsFrom(rows: readonly CheckupRow[], workers: ReadonlySe
   const { kept, keep } = rowKeeper(workers);
   keep(rows);
   return kept;
-}
-
-/** One worker's rows (see {@link collectWorkersRows}); none when the worker has no row. */
-export async function collectWorkerRows(
-  chunks: AsyncIterable<string | { readonly file: string }> | Iterable<string | { readonly file: string }>,
-  options: { readonly reader: CheckupReaderOptions; readonly format: 'delimited' | 'fhir-ndjson' },
-  worker: string,
-): Promise<CheckupRow[] | ReadRefusal> {
-  const rows = await collectWorkersRows(chunks, options, new Set([worker]));
-  return rows instanceof Map ? (rows.get(worker) ?? []) : rows;
-}
-
-/** One worker's rows from a workbook's sheet. */
-export function collectWorkerRowsFromTable(table: readonly (readonly CellValue[])[], reader: CheckupReaderOptions, worker: string): CheckupRow[] | ReadRefusal {
-  const rows = collectWorkersRowsFromTable(table, reader, new Set([worker]));
-  return rows instanceof Map ? (rows.get(worker) ?? []) : rows;
 }

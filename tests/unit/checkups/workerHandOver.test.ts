@@ -5,7 +5,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { collectWorkerRows, collectWorkerRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
+import { collectWorkersRows, collectWorkersRowsFromTable, workerCheckups } from '@/lib/checkups/workerHistory';
 import { OPEN_WORKER_MESSAGES, readWorkerHandOver, WORKER_HANDOVER_FORMAT, workerHandOverRecord } from '@/lib/checkups/workerHandOver';
 import { DEMO_WORKFORCE_HBA1C_HEART_FAILURE } from '@/lib/evidence/demo';
 import type { Scenario } from '@/lib/scenario/schema';
@@ -14,6 +14,16 @@ import { W001_CHECKUPS } from './fixtures';
 
 const DEMO_CSV = readFileSync('demo/checkups/checkups.csv', 'utf8');
 const READER = { today: '2026-01-01' };
+
+/** One worker's rows, as the screen's worker asks for them (a set of one); none when the worker has no row. */
+async function collectWorkerRows(chunks: readonly string[], options: Parameters<typeof collectWorkersRows>[1], worker: string) {
+  const rows = await collectWorkersRows(chunks, options, new Set([worker]));
+  return rows instanceof Map ? (rows.get(worker) ?? []) : rows;
+}
+function collectWorkerRowsFromTable(table: Parameters<typeof collectWorkersRowsFromTable>[0], reader: typeof READER, worker: string) {
+  const rows = collectWorkersRowsFromTable(table, reader, new Set([worker]));
+  return rows instanceof Map ? (rows.get(worker) ?? []) : rows;
+}
 
 
 const SCENARIO: Scenario = {
